@@ -1,0 +1,34 @@
+import { deleteGag, findGag, seriesOfGag, updateGag } from '@/db/queries/gags';
+import { checkManualMove } from '@/lib/gags/status';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { updateGagSchema } from '@/lib/validation/gag';
+
+type Params = { gagId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfGag>[0]) => seriesOfGag(db, p.gagId);
+
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) =>
+  Response.json(await findGag(db, params.gagId)),
+);
+
+/** Any of title, premise, status, beats. Status moves follow lib/gags/status. */
+export const PATCH = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params }) => {
+  const patch = await parseBody(req, updateGagSchema);
+  await db.transaction().execute(async (trx) => {
+    const current = await trx.selectFrom('gags').select('status').where('id', '=', params.gagId).executeTakeFirst();
+    if (!current) throw new HttpError(404, 'Not found.');
+    if (patch.status) {
+      const check = checkManualMove(current.status, patch.status);
+      if (!check.ok) {
+        throw new HttpError(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
+      }
+    }
+    await updateGag(trx, params.gagId, patch);
+  });
+  return Response.json(await findGag(db, params.gagId));
+});
+
+/** Owners only: deleting is part of "manage". */
+export const DELETE = withSeriesRole<Params>('manage', seriesOf, async ({ db, params }) => {
+  await deleteGag(db, params.gagId);
+  return new Response(null, { status: 204 });
+});

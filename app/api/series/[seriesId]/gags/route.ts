@@ -1,0 +1,18 @@
+import { randomUUID } from 'node:crypto';
+import { createGag, listGags } from '@/db/queries/gags';
+import { findSeries } from '@/db/queries/series';
+import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { createGagSchema } from '@/lib/validation/gag';
+
+type Params = { seriesId: string };
+const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) =>
+  Response.json(await listGags(db, seriesId)),
+);
+
+export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, seriesId }) => {
+  const input = await parseBody(req, createGagSchema);
+  const gag = await createGag(db, { id: randomUUID(), seriesId, title: input.title, premise: input.premise });
+  return Response.json(gag, { status: 201 });
+});

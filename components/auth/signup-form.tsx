@@ -1,0 +1,65 @@
+'use client';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { signIn } from 'next-auth/react';
+import Link from 'next/link';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { Button } from '@/components/ui/button';
+import { Field } from '@/components/ui/field';
+import { ApiError, api } from '@/lib/http/client';
+import { type SignUpInput, signUpSchema } from '@/lib/validation/account';
+
+export function SignUpForm() {
+  const router = useRouter();
+  const [error, setError] = useState<string | null>(null);
+  const { register, handleSubmit, formState } = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema) });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setError(null);
+    try {
+      await api('/api/users', { method: 'POST', json: values });
+    } catch (err) {
+      setError(err instanceof ApiError ? err.message : 'Could not create the account.');
+      return;
+    }
+    const res = await signIn('credentials', { email: values.email, password: values.password, redirect: false });
+    if (!res?.ok) {
+      router.push('/signin');
+      return;
+    }
+    router.push('/series');
+    router.refresh();
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="panel space-y-4 p-6" aria-labelledby="signup-title">
+      <h1 id="signup-title" className="text-2xl font-extrabold">
+        Create an account
+      </h1>
+      {error && (
+        <p role="alert" className="rounded-md border border-stamp/40 bg-stamp-light px-3 py-2 text-sm text-stamp">
+          {error}
+        </p>
+      )}
+      <Field id="name" label="Your name" error={formState.errors.name?.message}>
+        <input id="name" autoComplete="name" className="field" {...register('name')} />
+      </Field>
+      <Field id="email" label="E-mail" error={formState.errors.email?.message}>
+        <input id="email" type="email" autoComplete="email" className="field" {...register('email')} />
+      </Field>
+      <Field id="password" label="Password" hint="At least 10 characters." error={formState.errors.password?.message}>
+        <input id="password" type="password" autoComplete="new-password" className="field" {...register('password')} />
+      </Field>
+      <Button type="submit" disabled={formState.isSubmitting} className="w-full">
+        {formState.isSubmitting ? 'Creating…' : 'Create account'}
+      </Button>
+      <p className="text-sm text-graphite-soft">
+        Already have one?{' '}
+        <Link href="/signin" className="font-bold text-ink underline">
+          Sign in
+        </Link>
+      </p>
+    </form>
+  );
+}

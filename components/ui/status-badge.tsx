@@ -1,0 +1,21 @@
+import { STATUS_LABELS, type GagStatus } from '@/lib/gags/status';
+
+// Colour is never the only signal: the label is always written out.
+const TONES: Record<GagStatus, string> = {
+  idea: 'bg-marker-10 text-graphite-soft border-marker-20',
+  thumbnailing: 'bg-white text-graphite border-marker-40',
+  in_review: 'bg-ink-light text-ink border-ink/30',
+  ready_to_ink: 'bg-stamp-light text-stamp border-stamp/50',
+  inked: 'bg-graphite text-white border-graphite',
+  scanned: 'bg-marker-60 text-white border-marker-60',
+  placed: 'bg-paper-deep text-graphite border-paper-edge',
+};
+
+export function StatusBadge({ status }: { status: GagStatus }) {
+  return (
+    <span className={`inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-bold ${TONES[status]}`}>
+      {status === 'ready_to_ink' && <span aria-hidden className="mr-1">✓</span>}
+      {STATUS_LABELS[status]}
+    </span>
+  );
+}

@@ -1,0 +1,16 @@
+// Every migration, imported statically so the server bundle carries them
+// (a folder scan does not survive bundling). Add new files here, in time order.
+import type { Migration, MigrationProvider } from 'kysely';
+import * as m0900 from './2026_12_01_0900_create_users_and_series';
+import * as m0910 from './2026_12_01_0910_create_gags_and_beats';
+import * as m0920 from './2026_12_01_0920_create_sign_in_failures';
+
+export const migrations: Record<string, Migration> = {
+  '2026_12_01_0900_create_users_and_series': m0900,
+  '2026_12_01_0910_create_gags_and_beats': m0910,
+  '2026_12_01_0920_create_sign_in_failures': m0920,
+};
+
+export const migrationProvider: MigrationProvider = {
+  getMigrations: async () => migrations,
+};

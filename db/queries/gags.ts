@@ -1,0 +1,143 @@
+// Gags with their four beats. Every write that touches a beat also bumps the
+// gag's updatedAt, so "last change" on the board means any change.
+import type { Kysely, Transaction } from 'kysely';
+import { BEAT_KINDS, type BeatKind, type GagStatus } from '@/lib/gags/status';
+import type { Database } from '../database';
+
+export type BeatDto = { kind: BeatKind; note: string; updatedAt: string };
+export type GagDto = {
+  id: string;
+  seriesId: string;
+  title: string;
+  premise: string;
+  status: GagStatus;
+  position: number;
+  createdAt: string;
+  updatedAt: string;
+  beats: BeatDto[];
+  beatsWritten: number;
+};
+
+type Db = Kysely<Database> | Transaction<Database>;
+
+function beatOrder(kind: BeatKind): number {
+  return BEAT_KINDS.indexOf(kind);
+}
+
+async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten'>[]): Promise<GagDto[]> {
+  if (gags.length === 0) return [];
+  const beats = await db
+    .selectFrom('beats')
+    .select(['gagId', 'kind', 'note', 'updatedAt'])
+    .where(
+      'gagId',
+      'in',
+      gags.map((g) => g.id),
+    )
+    .execute();
+  const byGag = new Map<string, BeatDto[]>();
+  for (const b of beats) {
+    const list = byGag.get(b.gagId) ?? [];
+    list.push({ kind: b.kind, note: b.note, updatedAt: b.updatedAt });
+    byGag.set(b.gagId, list);
+  }
+  return gags.map((g) => {
+    const list = (byGag.get(g.id) ?? []).sort((a, b) => beatOrder(a.kind) - beatOrder(b.kind));
+    return { ...g, beats: list, beatsWritten: list.filter((b) => b.note.trim() !== '').length };
+  });
+}
+
+const GAG_COLUMNS = [
+  'id',
+  'seriesId',
+  'title',
+  'premise',
+  'status',
+  'position',
+  'createdAt',
+  'updatedAt',
+] as const;
+
+export async function listGags(db: Db, seriesId: string): Promise<GagDto[]> {
+  const rows = await db
+    .selectFrom('gags')
+    .select(GAG_COLUMNS)
+    .where('seriesId', '=', seriesId)
+    .orderBy('position')
+    .execute();
+  return attachBeats(db, rows);
+}
+
+export async function findGag(db: Db, gagId: string): Promise<GagDto | undefined> {
+  const row = await db.selectFrom('gags').select(GAG_COLUMNS).where('id', '=', gagId).executeTakeFirst();
+  if (!row) return undefined;
+  const [gag] = await attachBeats(db, [row]);
+  return gag;
+}
+
+export async function seriesOfGag(db: Db, gagId: string): Promise<string | null> {
+  const row = await db.selectFrom('gags').select('seriesId').where('id', '=', gagId).executeTakeFirst();
+  return row?.seriesId ?? null;
+}
+
+/** Appends a gag at the end of the board with four empty beats. */
+export async function createGag(
+  db: Kysely<Database>,
+  input: { id: string; seriesId: string; title: string; premise: string; status?: GagStatus; notes?: Partial<Record<BeatKind, string>>; now?: string },
+): Promise<GagDto> {
+  const now = input.now ?? new Date().toISOString();
+  await db.transaction().execute(async (trx) => {
+    const last = await trx
+      .selectFrom('gags')
+      .select((eb) => eb.fn.max('position').as('max'))
+      .where('seriesId', '=', input.seriesId)
+      .executeTakeFirst();
+    const position = (Number(last?.max ?? 0) || 0) + 1;
+    await trx
+      .insertInto('gags')
+      .values({
+        id: input.id,
+        seriesId: input.seriesId,
+        title: input.title,
+        premise: input.premise,
+        status: input.status ?? 'idea',
+        position,
+        createdAt: now,
+        updatedAt: now,
+      })
+      .execute();
+    await trx
+      .insertInto('beats')
+      .values(BEAT_KINDS.map((kind) => ({ gagId: input.id, kind, note: input.notes?.[kind] ?? '', updatedAt: now })))
+      .execute();
+  });
+  const gag = await findGag(db, input.id);
+  if (!gag) throw new Error('gag vanished after insert');
+  return gag;
+}
+
+export async function updateGag(
+  trx: Transaction<Database>,
+  gagId: string,
+  patch: { title?: string; premise?: string; status?: GagStatus; beats?: { kind: BeatKind; note: string }[] },
+): Promise<void> {
+  const now = new Date().toISOString();
+  const { beats, ...fields } = patch;
+  for (const beat of beats ?? []) {
+    await trx
+      .updateTable('beats')
+      .set({ note: beat.note, updatedAt: now })
+      .where('gagId', '=', gagId)
+      .where('kind', '=', beat.kind)
+      .execute();
+  }
+  await trx
+    .updateTable('gags')
+    .set({ ...fields, updatedAt: now })
+    .where('id', '=', gagId)
+    .execute();
+}
+
+export async function deleteGag(db: Db, gagId: string): Promise<void> {
+  await db.deleteFrom('gags').where('id', '=', gagId).execute();
+}

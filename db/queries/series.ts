@@ -1,0 +1,47 @@
+// Series and memberships.
+import type { Kysely } from 'kysely';
+import type { Role } from '@/lib/auth/permissions';
+import type { Database } from '../database';
+
+export type SeriesDto = { id: string; title: string; role: Role };
+
+export async function listSeriesForUser(db: Kysely<Database>, userId: string): Promise<SeriesDto[]> {
+  return db
+    .selectFrom('memberships as m')
+    .innerJoin('series as s', 's.id', 'm.seriesId')
+    .select(['s.id', 's.title', 'm.role'])
+    .where('m.userId', '=', userId)
+    .orderBy('s.createdAt')
+    .orderBy('s.title')
+    .execute();
+}
+
+export async function roleInSeries(db: Kysely<Database>, userId: string, seriesId: string): Promise<Role | null> {
+  const row = await db
+    .selectFrom('memberships')
+    .select('role')
+    .where('userId', '=', userId)
+    .where('seriesId', '=', seriesId)
+    .executeTakeFirst();
+  return row?.role ?? null;
+}
+
+export async function findSeries(db: Kysely<Database>, seriesId: string) {
+  return db.selectFrom('series').select(['id', 'title']).where('id', '=', seriesId).executeTakeFirst();
+}
+
+/** Creates a series with its creator as owner, in one transaction. */
+export async function createSeries(
+  db: Kysely<Database>,
+  input: { id: string; title: string; ownerId: string },
+): Promise<SeriesDto> {
+  const now = new Date().toISOString();
+  await db.transaction().execute(async (trx) => {
+    await trx.insertInto('series').values({ id: input.id, title: input.title, createdAt: now }).execute();
+    await trx
+      .insertInto('memberships')
+      .values({ seriesId: input.id, userId: input.ownerId, role: 'owner', createdAt: now })
+      .execute();
+  });
+  return { id: input.id, title: input.title, role: 'owner' };
+}

@@ -1,0 +1,42 @@
+// Users and the sign-in failure log. Plain functions taking db or trx.
+import type { Kysely } from 'kysely';
+import type { Database, User } from '../database';
+
+export async function findUserByEmail(db: Kysely<Database>, email: string): Promise<User | undefined> {
+  return db.selectFrom('users').selectAll().where('email', '=', email.toLowerCase()).executeTakeFirst();
+}
+
+export async function findUserById(
+  db: Kysely<Database>,
+  id: string,
+): Promise<Pick<User, 'id' | 'email' | 'name'> | undefined> {
+  return db.selectFrom('users').select(['id', 'email', 'name']).where('id', '=', id).executeTakeFirst();
+}
+
+export async function insertUser(
+  db: Kysely<Database>,
+  user: { id: string; email: string; name: string; passwordHash: string },
+): Promise<void> {
+  await db
+    .insertInto('users')
+    .values({ ...user, email: user.email.toLowerCase(), createdAt: new Date().toISOString() })
+    .execute();
+}
+
+export async function countRecentFailures(db: Kysely<Database>, email: string, sinceMs: number): Promise<number> {
+  const row = await db
+    .selectFrom('signInFailures')
+    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .where('email', '=', email.toLowerCase())
+    .where('at', '>=', sinceMs)
+    .executeTakeFirstOrThrow();
+  return Number(row.n);
+}
+
+export async function recordFailure(db: Kysely<Database>, email: string, atMs: number): Promise<void> {
+  await db.insertInto('signInFailures').values({ email: email.toLowerCase(), at: atMs }).execute();
+}
+
+export async function clearFailures(db: Kysely<Database>, email: string): Promise<void> {
+  await db.deleteFrom('signInFailures').where('email', '=', email.toLowerCase()).execute();
+}

@@ -1,0 +1,38 @@
+// Who may do what in a series (PRODUCT.md, "People and roles"). Pure: the
+// server guard enforces it, the UI reads it only to hide what a role cannot do.
+
+export const ROLES = ['owner', 'cocreator', 'editor', 'viewer'] as const;
+export type Role = (typeof ROLES)[number];
+
+export const ROLE_LABELS: Record<Role, string> = {
+  owner: 'Owner',
+  cocreator: 'Co-creator',
+  editor: 'Editor',
+  viewer: 'Viewer',
+};
+
+export const ACTIONS = ['read', 'comment', 'edit', 'stamp', 'manage'] as const;
+export type Action = (typeof ACTIONS)[number];
+
+/**
+ * - read: see everything in the series
+ * - comment: write comments
+ * - edit: create and edit gags, beats and passes; reorder
+ * - stamp: mark a pass "ready to ink" or "needs another pass"
+ * - manage: members, volumes, print spec, deleting
+ */
+const GRANTS: Record<Action, readonly Role[]> = {
+  read: ['owner', 'cocreator', 'editor', 'viewer'],
+  comment: ['owner', 'cocreator', 'editor'],
+  edit: ['owner', 'cocreator'],
+  stamp: ['owner', 'editor'],
+  manage: ['owner'],
+};
+
+export function can(role: Role | null | undefined, action: Action): boolean {
+  return role != null && GRANTS[action].includes(role);
+}
+
+export function permissionsOf(role: Role): Record<Action, boolean> {
+  return Object.fromEntries(ACTIONS.map((a) => [a, can(role, a)])) as Record<Action, boolean>;
+}

@@ -1,0 +1,20 @@
+// Board search and filters (pure). A search matches when every word of the
+// query appears in the title or premise, ignoring case and accents.
+import type { GagStatus } from './status';
+
+export type Searchable = { title: string; premise: string; status: GagStatus };
+
+function fold(s: string): string {
+  return s.normalize('NFD').replace(/\p{Diacritic}/gu, '').toLowerCase();
+}
+
+export function matchesSearch(gag: Searchable, query: string): boolean {
+  const words = fold(query).split(/\s+/).filter(Boolean);
+  if (words.length === 0) return true;
+  const hay = fold(`${gag.title} ${gag.premise}`);
+  return words.every((w) => hay.includes(w));
+}
+
+export function filterGags<T extends Searchable>(gags: T[], query: string, status: GagStatus | 'all'): T[] {
+  return gags.filter((g) => (status === 'all' || g.status === status) && matchesSearch(g, query));
+}

@@ -1,0 +1,67 @@
+// A gag's life: idea → thumbnailing → in review → ready to ink → inked → scanned → placed.
+// Pure rules shared by the API (which enforces them) and the UI (which offers only these).
+
+export const GAG_STATUSES = [
+  'idea',
+  'thumbnailing',
+  'in_review',
+  'ready_to_ink',
+  'inked',
+  'scanned',
+  'placed',
+] as const;
+export type GagStatus = (typeof GAG_STATUSES)[number];
+
+export const STATUS_LABELS: Record<GagStatus, string> = {
+  idea: 'Idea',
+  thumbnailing: 'Thumbnailing',
+  in_review: 'In review',
+  ready_to_ink: 'Ready to ink',
+  inked: 'Inked',
+  scanned: 'Scanned',
+  placed: 'Placed',
+};
+
+export const BEAT_KINDS = ['setup', 'build', 'turn', 'payoff'] as const;
+export type BeatKind = (typeof BEAT_KINDS)[number];
+
+export const BEAT_LABELS: Record<BeatKind, string> = {
+  setup: 'Setup',
+  build: 'Build',
+  turn: 'Turn',
+  payoff: 'Payoff',
+};
+
+/**
+ * Status moves a person may make by hand. "Ready to ink" is never among the
+ * targets from the drafting side: only an editor's or owner's stamp sets it.
+ * From "ready to ink" the gag can go on to "inked", or be pulled back for more
+ * thumbnailing; the paper stages step forward or back one at a time.
+ */
+const MANUAL_MOVES: Record<GagStatus, readonly GagStatus[]> = {
+  idea: ['thumbnailing', 'in_review'],
+  thumbnailing: ['idea', 'in_review'],
+  in_review: ['idea', 'thumbnailing'],
+  ready_to_ink: ['in_review', 'thumbnailing', 'inked'],
+  inked: ['ready_to_ink', 'scanned'],
+  scanned: ['inked', 'placed'],
+  placed: ['scanned'],
+};
+
+export function allowedManualMoves(from: GagStatus): readonly GagStatus[] {
+  return MANUAL_MOVES[from];
+}
+
+export type StatusCheck = { ok: true } | { ok: false; reason: string };
+
+export function checkManualMove(from: GagStatus, to: GagStatus): StatusCheck {
+  if (from === to) return { ok: true };
+  if (MANUAL_MOVES[from].includes(to)) return { ok: true };
+  if (to === 'ready_to_ink') {
+    return { ok: false, reason: '"Ready to ink" is set only by an editor\'s or owner\'s stamp on a pass.' };
+  }
+  return {
+    ok: false,
+    reason: `A gag cannot move from "${STATUS_LABELS[from]}" to "${STATUS_LABELS[to]}". From "${STATUS_LABELS[from]}" it can go to: ${MANUAL_MOVES[from].map((s) => `"${STATUS_LABELS[s]}"`).join(', ')}.`,
+  };
+}
