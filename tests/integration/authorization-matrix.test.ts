@@ -1,0 +1,108 @@
+// Every route × every kind of caller, with the status each must get.
+// Later routes join ROUTES. A refused call must leave the database unchanged.
+import { randomUUID } from 'node:crypto';
+import { beforeAll, describe, expect, it } from 'vitest';
+import * as gagRoute from '@/app/api/gags/[gagId]/route';
+import * as healthRoute from '@/app/api/health/route';
+import * as gagsRoute from '@/app/api/series/[seriesId]/gags/route';
+import * as seriesRoute from '@/app/api/series/route';
+import * as usersRoute from '@/app/api/users/route';
+import { createGag } from '@/db/queries/gags';
+import { callRoute } from '../support/call-route';
+import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
+
+const PERSONAS: Persona[] = ['anonymous', 'viewer', 'editor', 'cocreator', 'owner', 'outsider'];
+
+let db: Awaited<ReturnType<typeof freshDb>>;
+beforeAll(async () => {
+  db = await freshDb();
+});
+
+async function newGag(): Promise<string> {
+  const id = randomUUID();
+  await createGag(db, { id, seriesId: DEMO_SERIES_ID, title: 'Matrix gag', premise: '' });
+  return id;
+}
+
+type Prepared = { params?: Record<string, string>; body?: unknown };
+type RouteCase = {
+  route: string;
+  handler: (req: Request, ctx: { params: Promise<any> }) => Promise<Response> | Response;
+  method: string;
+  prepare: () => Promise<Prepared>;
+  expected: Record<Persona, number>;
+};
+
+//                    anonymous viewer editor cocreator owner outsider
+const row = (a: number, v: number, e: number, c: number, o: number, x: number): Record<Persona, number> => ({
+  anonymous: a, viewer: v, editor: e, cocreator: c, owner: o, outsider: x,
+});
+
+const ROUTES: RouteCase[] = [
+  { route: 'GET /api/health', handler: healthRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(200, 200, 200, 200, 200, 200) },
+  {
+    route: 'POST /api/users', handler: usersRoute.POST, method: 'POST',
+    prepare: async () => ({ body: { name: 'New Person', email: `${randomUUID()}@pier.test`, password: 'long-enough-pw' } }),
+    expected: row(201, 201, 201, 201, 201, 201),
+  },
+  { route: 'GET /api/series', handler: seriesRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
+  {
+    route: 'POST /api/series', handler: seriesRoute.POST, method: 'POST',
+    prepare: async () => ({ body: { title: 'A new series' } }),
+    expected: row(401, 201, 201, 201, 201, 201),
+  },
+  {
+    route: 'GET /api/series/:seriesId/gags', handler: gagsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/series/:seriesId/gags', handler: gagsRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { title: 'Crab Cakes' } }),
+    expected: row(401, 403, 403, 201, 201, 404),
+  },
+  {
+    route: 'GET /api/gags/:gagId', handler: gagRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { gagId: await newGag() } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'PATCH /api/gags/:gagId', handler: gagRoute.PATCH, method: 'PATCH',
+    prepare: async () => ({ params: { gagId: await newGag() }, body: { title: 'Changed', beats: [{ kind: 'turn', note: 'A wave.' }] } }),
+    expected: row(401, 403, 403, 200, 200, 404),
+  },
+  {
+    route: 'DELETE /api/gags/:gagId', handler: gagRoute.DELETE, method: 'DELETE',
+    prepare: async () => ({ params: { gagId: await newGag() } }),
+    expected: row(401, 403, 403, 403, 204, 404),
+  },
+];
+
+async function snapshot() {
+  return JSON.stringify({
+    users: await db.selectFrom('users').select(['id', 'email', 'name']).orderBy('id').execute(),
+    series: await db.selectFrom('series').selectAll().orderBy('id').execute(),
+    memberships: await db.selectFrom('memberships').selectAll().orderBy('seriesId').orderBy('userId').execute(),
+    gags: await db.selectFrom('gags').selectAll().orderBy('id').execute(),
+    beats: await db.selectFrom('beats').selectAll().orderBy('gagId').orderBy('kind').execute(),
+  });
+}
+
+describe('authorization matrix', () => {
+  for (const r of ROUTES) {
+    describe(r.route, () => {
+      it.each(PERSONAS)(`%s`, async (persona) => {
+        const { params, body } = await r.prepare();
+        const before = await snapshot();
+        const res = await callRoute(r.handler, { method: r.method, as: persona, params, body });
+        expect(res.status).toBe(r.expected[persona]);
+        if (res.status >= 400) {
+          expect(typeof res.body.error).toBe('string');
+          expect(await snapshot()).toEqual(before);
+        } else if (r.method !== 'GET') {
+          expect(await snapshot()).not.toEqual(before);
+        }
+      });
+    });
+  }
+});

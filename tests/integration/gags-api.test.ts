@@ -1,0 +1,156 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import * as gagRoute from '@/app/api/gags/[gagId]/route';
+import * as healthRoute from '@/app/api/health/route';
+import * as gagsRoute from '@/app/api/series/[seriesId]/gags/route';
+import * as seriesRoute from '@/app/api/series/route';
+import * as usersRoute from '@/app/api/users/route';
+import { callRoute } from '../support/call-route';
+import { DEMO_SERIES_ID, freshDb } from '../support/test-db';
+
+let db: Awaited<ReturnType<typeof freshDb>>;
+beforeAll(async () => {
+  db = await freshDb();
+});
+
+async function gagRow(id: string) {
+  const gag = await db.selectFrom('gags').selectAll().where('id', '=', id).executeTakeFirst();
+  const beats = await db.selectFrom('beats').selectAll().where('gagId', '=', id).orderBy('kind').execute();
+  return { gag, beats };
+}
+
+describe('health', () => {
+  it('answers ok with the database kind', async () => {
+    const r = await callRoute(healthRoute.GET, {});
+    expect(r).toEqual({ status: 200, body: { ok: true, db: 'sqlite' } });
+  });
+});
+
+describe('series', () => {
+  it('lists my series with my role', async () => {
+    const r = await callRoute(seriesRoute.GET, { as: 'editor' });
+    expect(r.body).toEqual([{ id: DEMO_SERIES_ID, title: 'Kettle Crab', role: 'editor' }]);
+    const o = await callRoute(seriesRoute.GET, { as: 'outsider' });
+    expect(o.body.map((s: { title: string }) => s.title)).toEqual(['Lantern Moth']);
+  });
+
+  it('creating a series makes me its owner', async () => {
+    const r = await callRoute(seriesRoute.POST, { method: 'POST', as: 'viewer', body: { title: '  Tide Pool Notes ' } });
+    expect(r.status).toBe(201);
+    expect(r.body).toMatchObject({ title: 'Tide Pool Notes', role: 'owner' });
+    const mine = await callRoute(seriesRoute.GET, { as: 'viewer' });
+    expect(mine.body).toContainEqual({ id: r.body.id, title: 'Tide Pool Notes', role: 'owner' });
+  });
+
+  it('a blank title is 422 and creates nothing', async () => {
+    const before = await db.selectFrom('series').select('id').execute();
+    const r = await callRoute(seriesRoute.POST, { method: 'POST', as: 'owner', body: { title: ' ' } });
+    expect(r.status).toBe(422);
+    expect(r.body.issues[0].path).toEqual(['title']);
+    expect(await db.selectFrom('series').select('id').execute()).toEqual(before);
+  });
+});
+
+describe('gags', () => {
+  it('lists gags in board order with four beats each', async () => {
+    const r = await callRoute(gagsRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } });
+    expect(r.status).toBe(200);
+    expect(r.body).toHaveLength(12);
+    const positions = r.body.map((g: { position: number }) => g.position);
+    expect([...positions].sort((a, b) => a - b)).toEqual(positions);
+    for (const g of r.body) expect(g.beats.map((b: { kind: string }) => b.kind)).toEqual(['setup', 'build', 'turn', 'payoff']);
+  });
+
+  it('creates a gag at the end of the board as an idea with empty beats', async () => {
+    const r = await callRoute(gagsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { seriesId: DEMO_SERIES_ID },
+      body: { title: 'Barnacle Band', premise: 'Barnacles form a band on the teapot.' },
+    });
+    expect(r.status).toBe(201);
+    expect(r.body).toMatchObject({ title: 'Barnacle Band', status: 'idea', beatsWritten: 0, position: 13 });
+    expect(r.body.beats).toHaveLength(4);
+  });
+
+  it('patches title, premise and beat notes together, and bumps updatedAt', async () => {
+    const before = await gagRow('demo-gag-10');
+    const r = await callRoute(gagRoute.PATCH, {
+      method: 'PATCH',
+      as: 'owner',
+      params: { gagId: 'demo-gag-10' },
+      body: { title: 'Handle Trapeze', beats: [{ kind: 'payoff', note: 'Kettle lands in a cup, bows.' }] },
+    });
+    expect(r.status).toBe(200);
+    expect(r.body.title).toBe('Handle Trapeze');
+    expect(r.body.beats.find((b: { kind: string }) => b.kind === 'payoff').note).toBe('Kettle lands in a cup, bows.');
+    expect(r.body.beats.find((b: { kind: string }) => b.kind === 'setup').note).toBe('Kettle eyes the handle from below.');
+    expect(r.body.updatedAt > before.gag!.updatedAt).toBe(true);
+    expect(r.body.beatsWritten).toBe(2);
+  });
+
+  it('refuses "ready to ink" by hand with 422 and changes nothing', async () => {
+    const before = await gagRow('demo-gag-07');
+    const r = await callRoute(gagRoute.PATCH, {
+      method: 'PATCH',
+      as: 'owner',
+      params: { gagId: 'demo-gag-07' },
+      body: { status: 'ready_to_ink', title: 'Sneaky rename' },
+    });
+    expect(r.status).toBe(422);
+    expect(r.body.error).toMatch(/stamp/);
+    expect(await gagRow('demo-gag-07')).toEqual(before);
+  });
+
+  it('allows a legal status move', async () => {
+    const r = await callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { gagId: 'demo-gag-05' }, body: { status: 'inked' } });
+    expect(r.status).toBe(200);
+    expect(r.body.status).toBe('inked');
+  });
+
+  it.each([
+    ['malformed JSON', { rawBody: '{"title":' }],
+    ['an unknown field', { body: { colour: 'red' } }],
+    ['an empty patch', { body: {} }],
+    ['an unknown beat kind', { body: { beats: [{ kind: 'punchline', note: 'x' }] } }],
+    ['a title too long', { body: { title: 'x'.repeat(121) } }],
+  ])('422 for %s, nothing changes', async (_name, input) => {
+    const before = await gagRow('demo-gag-08');
+    const r = await callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'owner', params: { gagId: 'demo-gag-08' }, ...input });
+    expect(r.status).toBe(422);
+    expect(typeof r.body.error).toBe('string');
+    expect(await gagRow('demo-gag-08')).toEqual(before);
+  });
+
+  it('an unknown gag is 404', async () => {
+    const r = await callRoute(gagRoute.GET, { as: 'owner', params: { gagId: 'no-such-gag' } });
+    expect(r.status).toBe(404);
+  });
+
+  it('a gag of another series is 404, even to an owner elsewhere', async () => {
+    const r = await callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'owner', params: { gagId: 'demo-gag-21' }, body: { title: 'x' } });
+    expect(r.status).toBe(404);
+  });
+
+  it('the owner deletes a gag: 204, then 404', async () => {
+    const r = await callRoute(gagRoute.DELETE, { method: 'DELETE', as: 'owner', params: { gagId: 'demo-gag-11' } });
+    expect(r.status).toBe(204);
+    expect((await callRoute(gagRoute.GET, { as: 'owner', params: { gagId: 'demo-gag-11' } })).status).toBe(404);
+    expect(await gagRow('demo-gag-11')).toEqual({ gag: undefined, beats: [] });
+  });
+});
+
+describe('sign-up', () => {
+  it('creates an account once; the same address again is 409', async () => {
+    const body = { name: 'Pier Keeper', email: 'Keeper@Pier.test', password: 'a-long-password' };
+    const first = await callRoute(usersRoute.POST, { method: 'POST', body });
+    expect(first.status).toBe(201);
+    expect(first.body).toMatchObject({ email: 'keeper@pier.test', name: 'Pier Keeper' });
+    expect(first.body.passwordHash).toBeUndefined();
+    const again = await callRoute(usersRoute.POST, { method: 'POST', body: { ...body, email: 'keeper@pier.test' } });
+    expect(again.status).toBe(409);
+  });
+  it('a short password is 422', async () => {
+    const r = await callRoute(usersRoute.POST, { method: 'POST', body: { name: 'A', email: 'a@pier.test', password: 'short' } });
+    expect(r.status).toBe(422);
+  });
+});

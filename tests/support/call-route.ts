@@ -1,0 +1,31 @@
+// Calls a route handler the way Next does: a Request, a params promise, and
+// next-auth's real session cookie (an encrypted JWT made with the app's secret).
+import { encode } from 'next-auth/jwt';
+import { authSecret } from '@/lib/auth/secret';
+import { PERSONAS, type Persona } from './test-db';
+
+type Handler = (req: Request, ctx: { params: Promise<any> }) => Promise<Response> | Response;
+
+export async function sessionCookie(persona: Persona): Promise<string | undefined> {
+  if (persona === 'anonymous') return undefined;
+  const u = PERSONAS[persona];
+  const token = await encode({ token: { sub: u.id, email: u.email, name: u.name }, secret: authSecret()! });
+  return `next-auth.session-token=${token}`;
+}
+
+export async function callRoute(
+  handler: Handler,
+  opts: { method?: string; url?: string; as?: Persona; params?: Record<string, string>; body?: unknown; rawBody?: string },
+): Promise<{ status: number; body: any }> {
+  const headers = new Headers();
+  const cookie = await sessionCookie(opts.as ?? 'anonymous');
+  if (cookie) headers.set('cookie', cookie);
+  let body: string | undefined;
+  if (opts.rawBody !== undefined) body = opts.rawBody;
+  else if (opts.body !== undefined) body = JSON.stringify(opts.body);
+  if (body !== undefined) headers.set('content-type', 'application/json');
+  const req = new Request(`http://localhost${opts.url ?? '/'}`, { method: opts.method ?? 'GET', headers, body });
+  const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
+  const text = await res.text();
+  return { status: res.status, body: text ? JSON.parse(text) : null };
+}
