@@ -140,12 +140,15 @@ export function Board({
             return (
               <section
                 key={s}
-                aria-labelledby={`col-${s}`}
+                aria-label={STATUS_LABELS[s]}
                 className="w-64 shrink-0 rounded-lg border border-paper-edge bg-paper-deep/50 p-2"
               >
-                <h2 id={`col-${s}`} className="flex items-center justify-between px-1 pb-2 font-sans text-sm font-bold">
+                <h2 className="flex items-center justify-between px-1 pb-2 font-sans text-sm font-bold">
                   <span>{STATUS_LABELS[s]}</span>
-                  <span className="rounded-full bg-white px-2 text-xs text-graphite-faint">{inColumn.length}</span>
+                  <span className="rounded-full bg-white px-2 text-xs text-graphite-faint">
+                    {inColumn.length}
+                    <span className="sr-only"> gags</span>
+                  </span>
                 </h2>
                 <ul className="space-y-2">
                   {inColumn.map((g) => (

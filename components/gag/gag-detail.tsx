@@ -200,10 +200,12 @@ export function GagDetail({
           {BEAT_KINDS.map((kind, i) => (
             <div key={kind} className="panel flex min-h-[11rem] flex-col p-3">
               <div className="mb-2 flex items-baseline justify-between">
-                <label htmlFor={`beat-${kind}`} className="font-display text-lg font-extrabold">
-                  <span className="mr-2 text-marker-40">{i + 1}</span>
-                  {BEAT_LABELS[kind]}
-                </label>
+                <span className="font-display text-lg font-extrabold">
+                  <span aria-hidden className="mr-2 text-marker-40">
+                    {i + 1}
+                  </span>
+                  <label htmlFor={`beat-${kind}`}>{BEAT_LABELS[kind]}</label>
+                </span>
                 <span className="text-xs text-graphite-faint">{BEAT_HINTS[kind]}</span>
               </div>
               {canEdit ? (

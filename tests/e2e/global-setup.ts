@@ -1,0 +1,99 @@
+// Builds the production app into .next-test, seeds a temporary SQLite database,
+// and serves it with `next start` on 127.0.0.1 for the browser tests.
+import { type ChildProcess, execFileSync, spawn } from 'node:child_process';
+import fs from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import type { TestProject } from 'vitest/node';
+
+const root = path.resolve(import.meta.dirname, '../..');
+const DIST = '.next-test';
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as net.AddressInfo;
+      srv.close(() => resolve(port));
+    });
+    srv.on('error', reject);
+  });
+}
+
+async function waitForHealth(url: string, server: ChildProcess, log: () => string) {
+  const deadline = Date.now() + 60_000;
+  while (Date.now() < deadline) {
+    if (server.exitCode !== null) throw new Error(`next start exited early:\n${log()}`);
+    try {
+      const res = await fetch(`${url}/api/health`);
+      if (res.ok) return;
+    } catch {
+      /* not up yet */
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(`next start did not answer within 60 s:\n${log()}`);
+}
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string;
+  }
+}
+
+export default async function setup(project: TestProject) {
+  const env = { ...process.env, NEXT_TELEMETRY_DISABLED: '1', NEXT_DIST_DIR: DIST };
+  const reuse = process.env.E2E_REUSE_BUILD === '1' && fs.existsSync(path.join(root, DIST, 'BUILD_ID'));
+  if (!reuse) {
+    console.log('[e2e] next build (production) …');
+    execFileSync(process.execPath, [path.join(root, 'node_modules/next/dist/bin/next'), 'build'], {
+      cwd: root,
+      env: { ...env, NODE_ENV: 'production' },
+      stdio: ['ignore', 'inherit', 'inherit'],
+    });
+  }
+
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-e2e-'));
+  const databaseUrl = `file:${path.join(dataDir, 'e2e.sqlite')}`;
+  execFileSync(process.execPath, [path.join(root, 'node_modules/tsx/dist/cli.mjs'), 'db/cli.ts', 'seed'], {
+    cwd: root,
+    env: { ...env, DATABASE_URL: databaseUrl },
+    stdio: ['ignore', 'inherit', 'inherit'],
+  });
+
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  let output = '';
+  const server = spawn(
+    process.execPath,
+    [path.join(root, 'node_modules/next/dist/bin/next'), 'start', '-H', '127.0.0.1', '-p', String(port)],
+    {
+      cwd: root,
+      env: {
+        ...env,
+        NODE_ENV: 'production',
+        DATABASE_URL: databaseUrl,
+        NEXTAUTH_URL: baseUrl,
+        NEXTAUTH_SECRET: 'e2e-secret-for-the-test-server-only',
+      },
+      detached: true, // its own process group, so teardown stops next-server too
+      stdio: ['ignore', 'pipe', 'pipe'],
+    },
+  );
+  server.stdout?.on('data', (d) => (output += d));
+  server.stderr?.on('data', (d) => (output += d));
+  await waitForHealth(baseUrl, server, () => output);
+  console.log(`[e2e] app at ${baseUrl}, database ${databaseUrl}`);
+  project.provide('baseUrl', baseUrl);
+
+  return async () => {
+    try {
+      if (server.pid) process.kill(-server.pid, 'SIGTERM');
+    } catch {
+      /* already gone */
+    }
+    fs.rmSync(dataDir, { recursive: true, force: true });
+    if (process.env.E2E_SHOW_SERVER_LOG === '1') console.log(output);
+  };
+}

@@ -1,0 +1,117 @@
+// The viewer sees no editing controls and the API refuses their write;
+// sign-in failures get a clear message, and 429 after 10 in 15 minutes.
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { openBrowser, signIn } from './browser';
+
+const baseUrl = inject('baseUrl');
+let browser: Awaited<ReturnType<typeof openBrowser>>;
+let page: Page;
+
+beforeAll(async () => {
+  browser = await openBrowser();
+  page = await browser.context.newPage();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe('viewer', () => {
+  it('has no editing controls, and the API refuses a write with 403', async () => {
+    await signIn(page, baseUrl, 'viewer@quadrille.test');
+    await page.goto(`${baseUrl}/series/demo-kettle-crab/gags/demo-gag-08`);
+    await page.getByRole('heading', { name: 'Fog Horn' }).waitFor();
+    expect(await page.locator('input:not([type=hidden]), textarea, select').count()).toBe(0);
+    expect(await page.getByRole('button', { name: /Delete/ }).count()).toBe(0);
+
+    // The same request the owner's page would send, from the viewer's signed-in page.
+    const result = await page.evaluate(async () => {
+      const res = await fetch('/api/gags/demo-gag-08', {
+        method: 'PATCH',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ beats: [{ kind: 'setup', note: 'Vandalised' }] }),
+      });
+      return { status: res.status, body: await res.json() };
+    });
+    expect(result.status).toBe(403);
+    expect(result.body.error).toMatch(/viewer/);
+    await page.reload();
+    expect(await page.content()).toContain('Pier lost in fog; only the teapot outline.');
+    expect(await page.content()).not.toContain('Vandalised');
+  });
+});
+
+describe('sign-in', () => {
+  it('a wrong password shows a clear message on our sign-in page', async () => {
+    await page.context().clearCookies();
+    await page.goto(`${baseUrl}/signin`);
+    await page.getByLabel('E-mail').fill('cocreator@quadrille.test');
+    await page.getByLabel('Password').fill('not-the-password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    // Our message, in an alert (Next's own route announcer is an alert too, so match by text).
+    const alert = page.getByRole('alert').filter({ hasText: 'do not match an account' });
+    await alert.waitFor();
+    expect(await alert.textContent()).toMatch(/e-mail address and password do not match an account/);
+    expect(page.url()).toContain('/signin');
+  });
+
+  it('a script signs in with a cookie jar through next-auth endpoints', async () => {
+    const jar = new Map<string, string>();
+    const cookieHeader = () => [...jar].map(([k, v]) => `${k}=${v}`).join('; ');
+    const keep = (res: Response) => {
+      for (const c of res.headers.getSetCookie()) {
+        const [pair] = c.split(';');
+        const i = pair!.indexOf('=');
+        jar.set(pair!.slice(0, i), pair!.slice(i + 1));
+      }
+    };
+    const csrfRes = await fetch(`${baseUrl}/api/auth/csrf`);
+    keep(csrfRes);
+    const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
+    const login = await fetch(`${baseUrl}/api/auth/callback/credentials`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/x-www-form-urlencoded', cookie: cookieHeader() },
+      body: new URLSearchParams({ csrfToken, email: 'editor@quadrille.test', password: 'kettle-crab-demo', json: 'true' }),
+      redirect: 'manual',
+    });
+    keep(login);
+    expect(login.status).toBe(200);
+    const series = await fetch(`${baseUrl}/api/series`, { headers: { cookie: cookieHeader() } });
+    expect(series.status).toBe(200);
+    expect(await series.json()).toEqual([{ id: 'demo-kettle-crab', title: 'Kettle Crab', role: 'editor' }]);
+    const write = await fetch(`${baseUrl}/api/series/demo-kettle-crab/gags`, {
+      method: 'POST',
+      headers: { cookie: cookieHeader(), 'content-type': 'application/json' },
+      body: JSON.stringify({ title: 'Editor should not' }),
+    });
+    expect(write.status).toBe(403);
+  });
+
+  it('refuses with 429 after 10 failed sign-ins for one address in 15 minutes', async () => {
+    const csrfRes = await fetch(`${baseUrl}/api/auth/csrf`);
+    const cookie = csrfRes.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
+    const attempt = (password: string) =>
+      fetch(`${baseUrl}/api/auth/callback/credentials`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/x-www-form-urlencoded', cookie },
+        body: new URLSearchParams({ csrfToken, email: 'nobody@quadrille.test', password, json: 'true' }),
+        redirect: 'manual',
+      });
+    const statuses: number[] = [];
+    for (let i = 0; i < 10; i++) statuses.push((await attempt(`guess-${i}`)).status);
+    expect(statuses.every((s) => s === 401)).toBe(true);
+    const locked = await attempt('guess-10');
+    expect(locked.status).toBe(429);
+    expect(locked.headers.get('retry-after')).toBe('900');
+
+    // The sign-in page says so in words.
+    await page.goto(`${baseUrl}/signin`);
+    await page.getByLabel('E-mail').fill('nobody@quadrille.test');
+    await page.getByLabel('Password').fill('one more guess');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    const alert = page.getByRole('alert').filter({ hasText: 'Too many failed sign-ins' });
+    await alert.waitFor();
+    expect(await alert.textContent()).toMatch(/Wait 15 minutes/);
+  });
+});
