@@ -26,6 +26,7 @@ const display = localFont({
 export const metadata: Metadata = {
   title: { default: 'Quadrille', template: '%s · Quadrille' },
   description: 'A shared thumbnail board for wordless four-panel gag comics.',
+  icons: { icon: '/icon.svg' },
 };
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1 };

@@ -3,6 +3,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { type BrowserContext, type Page, chromium } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 
 export const DEMO_PASSWORD = 'kettle-crab-demo';
 
@@ -33,13 +34,41 @@ export async function openBrowser(): Promise<{ context: BrowserContext; close: (
   };
 }
 
-/** Signs in through our own sign-in page, as a person would. */
-export async function signIn(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD) {
+/** Fills and sends our own sign-in form, signed out first; the caller checks what follows. */
+export async function submitSignIn(page: Page, baseUrl: string, email: string, password: string) {
   await page.context().clearCookies();
   await page.goto(`${baseUrl}/signin`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/** Signs in through our own sign-in page, as a person would. */
+export async function signIn(page: Page, baseUrl: string, email: string, password = DEMO_PASSWORD) {
+  await submitSignIn(page, baseUrl, email, password);
   await page.waitForURL(`${baseUrl}/series`);
   await page.getByRole('heading', { name: 'My series' }).waitFor();
+}
+
+/**
+ * One Chromium and one page for a test file: opened before its tests, closed
+ * after. Returns the page (a stand-in that forwards to the real one once open).
+ */
+export function usePage(): Page {
+  let browser: Awaited<ReturnType<typeof openBrowser>> | undefined;
+  let real: Page | undefined;
+  beforeAll(async () => {
+    browser = await openBrowser();
+    real = await browser.context.newPage();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return new Proxy({} as Page, {
+    get(_target, prop) {
+      if (!real) throw new Error('The page is opened in beforeAll; use it inside tests and hooks.');
+      const value = Reflect.get(real, prop, real);
+      return typeof value === 'function' ? value.bind(real) : value;
+    },
+  });
 }

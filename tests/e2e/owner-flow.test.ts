@@ -1,21 +1,14 @@
 // The owner works the board: creates a gag, writes its beats (autosaved), renames
 // it, moves its status, finds it in the table view, and deletes it with a confirmation.
-import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { openBrowser, signIn } from './browser';
+import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { signIn, usePage } from './browser';
 
 const baseUrl = inject('baseUrl');
-let browser: Awaited<ReturnType<typeof openBrowser>>;
-let page: Page;
+const page = usePage();
 let gagUrl = '';
 
 beforeAll(async () => {
-  browser = await openBrowser();
-  page = await browser.context.newPage();
   await signIn(page, baseUrl, 'owner@quadrille.test');
-});
-afterAll(async () => {
-  await browser?.close();
 });
 
 async function waitSaved() {

@@ -1,19 +1,9 @@
 // Each demo role signs in through the real sign-in page and sees what the role allows.
-import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { openBrowser, signIn } from './browser';
+import { describe, expect, inject, it } from 'vitest';
+import { signIn, usePage } from './browser';
 
 const baseUrl = inject('baseUrl');
-let browser: Awaited<ReturnType<typeof openBrowser>>;
-let page: Page;
-
-beforeAll(async () => {
-  browser = await openBrowser();
-  page = await browser.context.newPage();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const page = usePage();
 
 const KETTLE = `${baseUrl}/series/demo-kettle-crab`;
 const GAG = `${KETTLE}/gags/demo-gag-07`;

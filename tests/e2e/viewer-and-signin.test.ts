@@ -1,20 +1,10 @@
 // The viewer sees no editing controls and the API refuses their write;
 // sign-in failures get a clear message, and 429 after 10 in 15 minutes.
-import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { openBrowser, signIn } from './browser';
+import { describe, expect, inject, it } from 'vitest';
+import { signIn, submitSignIn, usePage } from './browser';
 
 const baseUrl = inject('baseUrl');
-let browser: Awaited<ReturnType<typeof openBrowser>>;
-let page: Page;
-
-beforeAll(async () => {
-  browser = await openBrowser();
-  page = await browser.context.newPage();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const page = usePage();
 
 describe('viewer', () => {
   it('has no editing controls, and the API refuses a write with 403', async () => {
@@ -43,11 +33,7 @@ describe('viewer', () => {
 
 describe('sign-in', () => {
   it('a wrong password shows a clear message on our sign-in page', async () => {
-    await page.context().clearCookies();
-    await page.goto(`${baseUrl}/signin`);
-    await page.getByLabel('E-mail').fill('cocreator@quadrille.test');
-    await page.getByLabel('Password').fill('not-the-password');
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await submitSignIn(page, baseUrl, 'cocreator@quadrille.test', 'not-the-password');
     // Our message, in an alert (Next's own route announcer is an alert too, so match by text).
     const alert = page.getByRole('alert').filter({ hasText: 'do not match an account' });
     await alert.waitFor();
@@ -106,10 +92,7 @@ describe('sign-in', () => {
     expect(locked.headers.get('retry-after')).toBe('900');
 
     // The sign-in page says so in words.
-    await page.goto(`${baseUrl}/signin`);
-    await page.getByLabel('E-mail').fill('nobody@quadrille.test');
-    await page.getByLabel('Password').fill('one more guess');
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await submitSignIn(page, baseUrl, 'nobody@quadrille.test', 'one more guess');
     const alert = page.getByRole('alert').filter({ hasText: 'Too many failed sign-ins' });
     await alert.waitFor();
     expect(await alert.textContent()).toMatch(/Wait 15 minutes/);
