@@ -1,0 +1,64 @@
+// A stroke's outline polygon (mm), from perfect-freehand. Every renderer — the
+// editor canvas, the SVG thumbnails, later the PDF — and the ink-load findings
+// draw this same polygon, so they all agree.
+import { getStroke } from 'perfect-freehand';
+import type { Point, Stroke, StrokeTool } from './types';
+
+export type Polygon = [number, number][];
+
+const OPTIONS: Record<StrokeTool, Parameters<typeof getStroke>[1]> = {
+  pen: { thinning: 0.6, smoothing: 0.5, streamline: 0.35, simulatePressure: false },
+  // A marker: even width, soft ends.
+  tone: { thinning: 0, smoothing: 0.6, streamline: 0.45, simulatePressure: false },
+};
+
+export function outlineOf(stroke: Pick<Stroke, 'tool' | 'size' | 'points'>, last = true): Polygon {
+  const pts = stroke.points;
+  if (pts.length === 0) return [];
+  return getStroke(pts as Point[], { ...OPTIONS[stroke.tool], size: stroke.size, last }) as Polygon;
+}
+
+const avg = (a: number, b: number) => (a + b) / 2;
+const f = (n: number) => Math.round(n * 1000) / 1000;
+
+/**
+ * An SVG path for a closed outline, with quadratic curves through midpoints
+ * (the rendering perfect-freehand's documentation recommends).
+ */
+export function svgPathFromOutline(poly: Polygon): string {
+  const len = poly.length;
+  if (len < 4) return '';
+  let a = poly[0]!;
+  let b = poly[1]!;
+  const c = poly[2]!;
+  let d = `M${f(a[0])},${f(a[1])} Q${f(b[0])},${f(b[1])} ${f(avg(b[0], c[0]))},${f(avg(b[1], c[1]))} T`;
+  for (let i = 2, max = len - 1; i < max; i++) {
+    a = poly[i]!;
+    b = poly[i + 1]!;
+    d += `${f(avg(a[0], b[0]))},${f(avg(a[1], b[1]))} `;
+  }
+  return `${d}Z`;
+}
+
+/** The same closed curve as a canvas Path2D-compatible sequence of calls. */
+export function traceOutline(ctx: { moveTo(x: number, y: number): void; quadraticCurveTo(cx: number, cy: number, x: number, y: number): void; closePath(): void }, poly: Polygon) {
+  const len = poly.length;
+  if (len < 4) return;
+  let prevMidX = avg(poly[1]![0], poly[2]![0]);
+  let prevMidY = avg(poly[1]![1], poly[2]![1]);
+  ctx.moveTo(poly[0]![0], poly[0]![1]);
+  ctx.quadraticCurveTo(poly[1]![0], poly[1]![1], prevMidX, prevMidY);
+  // SVG's T reflects the previous control point; reproduce that so canvas and SVG match.
+  let ctrlX = poly[1]![0];
+  let ctrlY = poly[1]![1];
+  for (let i = 2; i < len - 1; i++) {
+    const mx = avg(poly[i]![0], poly[i + 1]![0]);
+    const my = avg(poly[i]![1], poly[i + 1]![1]);
+    ctrlX = 2 * prevMidX - ctrlX;
+    ctrlY = 2 * prevMidY - ctrlY;
+    ctx.quadraticCurveTo(ctrlX, ctrlY, mx, my);
+    prevMidX = mx;
+    prevMidY = my;
+  }
+  ctx.closePath();
+}
