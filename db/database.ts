@@ -3,6 +3,7 @@
 import type { ColumnType, Generated, Insertable, Selectable, Updateable } from 'kysely';
 import type { BeatKind, GagStatus } from '@/lib/gags/status';
 import type { Role } from '@/lib/auth/permissions';
+import type { RoomShape, StrokeTool } from '@/lib/strokes/types';
 
 /** ISO-8601 timestamps, stored as TEXT. */
 type Timestamp = string;
@@ -18,6 +19,8 @@ export interface UsersTable {
 export interface SeriesTable {
   id: string;
   title: string;
+  /** JSON of a PageSpec; null means the default spec. */
+  pageSpec: ColumnType<string | null, string | null | undefined, string | null>;
   createdAt: Timestamp;
 }
 
@@ -54,6 +57,98 @@ export interface SignInFailuresTable {
   at: ColumnType<number, number, never>;
 }
 
+export interface PassesTable {
+  id: string;
+  gagId: string;
+  number: number;
+  /** Sequence number of the last accepted batch; 0 for a blank new pass. */
+  seq: number;
+  copiedFrom: number | null;
+  createdBy: string | null;
+  createdAt: Timestamp;
+  updatedAt: Timestamp;
+}
+
+/** One version of a stroke; a stroke id may have several rows over time, one live at most. */
+export interface StrokesTable {
+  rowId: Generated<number>;
+  passId: string;
+  strokeId: string;
+  panel: number;
+  tool: StrokeTool;
+  grey: number;
+  size: number;
+  points: Buffer;
+  pointCount: number;
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+  ox: ColumnType<number, number | undefined, number>;
+  oy: ColumnType<number, number | undefined, number>;
+  addedSeq: number;
+  removedSeq: number | null;
+  addedBy: string | null;
+}
+
+export interface StrokeMovesTable {
+  id: Generated<number>;
+  rowId: number;
+  passId: string;
+  seq: number;
+  dx: number;
+  dy: number;
+}
+
+export interface StrokeTombstonesTable {
+  passId: string;
+  strokeId: string;
+  seq: number;
+}
+
+export interface RoomsTable {
+  rowId: Generated<number>;
+  passId: string;
+  roomId: string;
+  panel: number;
+  shape: RoomShape;
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+  addedSeq: number;
+  removedSeq: number | null;
+}
+
+export interface RoomTombstonesTable {
+  passId: string;
+  roomId: string;
+  seq: number;
+}
+
+export interface PassBatchesTable {
+  passId: string;
+  batchId: string;
+  seq: number;
+  userId: string | null;
+  opCount: number;
+  /** The JSON answered the first time; answered again for a replay. */
+  result: string;
+  createdAt: Timestamp;
+}
+
+export interface RevisionsTable {
+  id: string;
+  passId: string;
+  seq: number;
+  reason: RevisionReason;
+  restoredFrom: string | null;
+  userId: string | null;
+  createdAt: Timestamp;
+}
+
+export type RevisionReason = 'created' | 'copied' | 'pause' | 'steady' | 'before-restore' | 'restore';
+
 export interface Database {
   users: UsersTable;
   series: SeriesTable;
@@ -61,6 +156,14 @@ export interface Database {
   gags: GagsTable;
   beats: BeatsTable;
   signInFailures: SignInFailuresTable;
+  passes: PassesTable;
+  strokes: StrokesTable;
+  strokeMoves: StrokeMovesTable;
+  strokeTombstones: StrokeTombstonesTable;
+  rooms: RoomsTable;
+  roomTombstones: RoomTombstonesTable;
+  passBatches: PassBatchesTable;
+  revisions: RevisionsTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -1,6 +1,7 @@
 // Series and memberships.
 import type { Kysely } from 'kysely';
 import type { Role } from '@/lib/auth/permissions';
+import { DEFAULT_PAGE_SPEC, type PageSpec } from '@/lib/print/geometry';
 import type { Database } from '../database';
 
 export type SeriesDto = { id: string; title: string; role: Role };
@@ -44,4 +45,15 @@ export async function createSeries(
       .execute();
   });
   return { id: input.id, title: input.title, role: 'owner' };
+}
+
+/** The series' page spec, or the default until the owner sets one. */
+export async function pageSpecOf(db: Kysely<Database>, seriesId: string): Promise<PageSpec> {
+  const row = await db.selectFrom('series').select('pageSpec').where('id', '=', seriesId).executeTakeFirst();
+  if (!row?.pageSpec) return { ...DEFAULT_PAGE_SPEC };
+  return { ...DEFAULT_PAGE_SPEC, ...(JSON.parse(row.pageSpec) as Partial<PageSpec>) };
+}
+
+export async function setPageSpec(db: Kysely<Database>, seriesId: string, spec: PageSpec): Promise<void> {
+  await db.updateTable('series').set({ pageSpec: JSON.stringify(spec) }).where('id', '=', seriesId).execute();
 }

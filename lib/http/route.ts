@@ -24,10 +24,18 @@ export function jsonError(status: number, message: string, issues?: unknown): Re
 }
 
 /** Reads and validates a JSON body; malformed or invalid → 422 with the zod issues. */
-export async function parseBody<S extends z.ZodType>(req: Request, schema: S): Promise<z.infer<S>> {
+export async function parseBody<S extends z.ZodType>(
+  req: Request,
+  schema: S,
+  opts: { maxBytes?: number } = {},
+): Promise<z.infer<S>> {
   let raw: unknown;
+  const text = await req.text();
+  if (opts.maxBytes !== undefined && Buffer.byteLength(text) > opts.maxBytes) {
+    throw new HttpError(422, `The body is over ${opts.maxBytes.toLocaleString('en')} bytes; send it in smaller batches.`);
+  }
   try {
-    raw = await req.json();
+    raw = JSON.parse(text);
   } catch {
     throw new HttpError(422, 'The body must be JSON.');
   }

@@ -7,7 +7,15 @@ import * as healthRoute from '@/app/api/health/route';
 import * as gagsRoute from '@/app/api/series/[seriesId]/gags/route';
 import * as seriesRoute from '@/app/api/series/route';
 import * as usersRoute from '@/app/api/users/route';
+import * as passesRoute from '@/app/api/gags/[gagId]/passes/route';
+import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
+import * as restoreRoute from '@/app/api/passes/[passId]/revisions/[revisionId]/restore/route';
+import * as revisionsRoute from '@/app/api/passes/[passId]/revisions/route';
+import * as passRoute from '@/app/api/passes/[passId]/route';
+import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
+import { applyBatch, createPass } from '@/db/queries/passes';
+import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { callRoute } from '../support/call-route';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
 
@@ -22,6 +30,15 @@ async function newGag(): Promise<string> {
   const id = randomUUID();
   await createGag(db, { id, seriesId: DEMO_SERIES_ID, title: 'Matrix gag', premise: '' });
   return id;
+}
+
+/** A pass with one stroke and two revisions (created, then a pause), for pass routes. */
+async function newPass(): Promise<{ passId: string; revisionId: string }> {
+  const { id } = await createPass(db, { gagId: await newGag(), userId: 'demo-user-owner' });
+  const stroke = { id: 'm1', panel: 0, tool: 'pen' as const, grey: 100, size: 1, points: [[10, 10, 0.5], [12, 12, 0.5]] as [number, number, number][] };
+  await applyBatch(db, { passId: id, batchId: 'seed', ops: [{ op: 'add', stroke }], userId: 'demo-user-owner', spec: DEFAULT_PAGE_SPEC });
+  const rev = await db.selectFrom('revisions').select('id').where('passId', '=', id).where('seq', '=', 0).executeTakeFirstOrThrow();
+  return { passId: id, revisionId: rev.id };
 }
 
 type Prepared = { params?: Record<string, string>; body?: unknown };
@@ -76,6 +93,49 @@ const ROUTES: RouteCase[] = [
     prepare: async () => ({ params: { gagId: await newGag() } }),
     expected: row(401, 403, 403, 403, 204, 404),
   },
+  {
+    route: 'GET /api/series/:seriesId/print-spec', handler: specRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'PUT /api/series/:seriesId/print-spec', handler: specRoute.PUT, method: 'PUT',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { ...DEFAULT_PAGE_SPEC, gutter: 3 + Math.random() } }),
+    expected: row(401, 403, 403, 403, 200, 404),
+  },
+  {
+    route: 'GET /api/gags/:gagId/passes', handler: passesRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { gagId: await newGag() } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/gags/:gagId/passes', handler: passesRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { gagId: await newGag() }, body: {} }),
+    expected: row(401, 403, 403, 201, 201, 404),
+  },
+  {
+    route: 'GET /api/passes/:passId', handler: passRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { passId: (await newPass()).passId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/passes/:passId/ops', handler: opsRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { passId: (await newPass()).passId }, body: { batchId: randomUUID(), ops: [{ op: 'remove', strokeId: 'm1' }] } }),
+    expected: row(401, 403, 403, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/passes/:passId/revisions', handler: revisionsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { passId: (await newPass()).passId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/passes/:passId/revisions/:revisionId/restore', handler: restoreRoute.POST, method: 'POST',
+    prepare: async () => {
+      const p = await newPass();
+      return { params: { passId: p.passId, revisionId: p.revisionId } };
+    },
+    expected: row(401, 403, 403, 200, 200, 404),
+  },
 ];
 
 async function snapshot() {
@@ -85,6 +145,9 @@ async function snapshot() {
     memberships: await db.selectFrom('memberships').selectAll().orderBy('seriesId').orderBy('userId').execute(),
     gags: await db.selectFrom('gags').selectAll().orderBy('id').execute(),
     beats: await db.selectFrom('beats').selectAll().orderBy('gagId').orderBy('kind').execute(),
+    passes: await db.selectFrom('passes').selectAll().orderBy('id').execute(),
+    strokes: await db.selectFrom('strokes').select(['rowId', 'passId', 'strokeId', 'ox', 'oy', 'addedSeq', 'removedSeq']).orderBy('rowId').execute(),
+    revisions: await db.selectFrom('revisions').selectAll().orderBy('id').execute(),
   });
 }
 

@@ -1,0 +1,23 @@
+import { seriesOfGag } from '@/db/queries/gags';
+import { OpRefused, createPass, listPasses } from '@/db/queries/passes';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { createPassSchema } from '@/lib/validation/pass';
+
+type Params = { gagId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfGag>[0]) => seriesOfGag(db, p.gagId);
+
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) =>
+  Response.json(await listPasses(db, params.gagId)),
+);
+
+/** A new pass, blank or as a copy of an earlier one: `{ copyFrom?: passNumber }`. */
+export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, user }) => {
+  const input = await parseBody(req, createPassSchema);
+  try {
+    const pass = await createPass(db, { gagId: params.gagId, userId: user.id, copyFrom: input.copyFrom });
+    return Response.json(pass, { status: 201 });
+  } catch (err) {
+    if (err instanceof OpRefused) throw new HttpError(422, err.message, [{ path: ['copyFrom'], message: err.message }]);
+    throw err;
+  }
+});

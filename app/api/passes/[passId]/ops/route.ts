@@ -1,0 +1,23 @@
+// Receives a batch of editor operations; applies it in one transaction, once.
+import { OpRefused, applyBatch, seriesOfPass } from '@/db/queries/passes';
+import { pageSpecOf } from '@/db/queries/series';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { MAX_BATCH_BYTES, type Op } from '@/lib/strokes/types';
+import { batchSchema, checkOpsInside } from '@/lib/validation/pass';
+
+type Params = { passId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+
+export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, user, seriesId }) => {
+  const batch = await parseBody(req, batchSchema, { maxBytes: MAX_BATCH_BYTES });
+  const spec = await pageSpecOf(db, seriesId);
+  const outside = checkOpsInside(batch.ops as Op[], spec);
+  if (outside) throw new HttpError(422, outside);
+  try {
+    const { seq } = await applyBatch(db, { passId: params.passId, batchId: batch.batchId, ops: batch.ops as Op[], userId: user.id, spec });
+    return Response.json({ seq });
+  } catch (err) {
+    if (err instanceof OpRefused) throw new HttpError(422, err.message);
+    throw err;
+  }
+});

@@ -1,0 +1,503 @@
+// Passes and their strokes, kept as an append-only log (shared/STROKES.md).
+// - A stroke id may have several rows over time; at most one is live
+//   (removed_seq null). A client "add" of an id that already has a row or a
+//   tombstone is ignored: adds are idempotent and a removal beats an add.
+// - Moves add one stroke_moves row per stroke and bump the row's offset.
+// - The state at seq K is the rows added at or before K and not removed by K,
+//   each shifted by its moves up to K. Nothing is physically deleted.
+import { randomUUID } from 'node:crypto';
+import type { Kysely, Transaction } from 'kysely';
+import { type PageSpec, bleedBox } from '@/lib/print/geometry';
+import { decodePoints, encodePoints } from '@/lib/strokes/codec';
+import { pointsBounds } from '@/lib/strokes/hit';
+import { type Op, type Room, type Stroke, translatePoints } from '@/lib/strokes/types';
+import type { Database, RevisionReason } from '../database';
+
+type Db = Kysely<Database> | Transaction<Database>;
+
+/** A pause this long between batches leaves a revision behind. */
+export const REVISION_PAUSE_MS = 30_000;
+/** …and so does every this-many batches of steady drawing. */
+export const REVISION_EVERY_BATCHES = 50;
+
+export class OpRefused extends Error {}
+
+export type PassSummary = { id: string; gagId: string; number: number; seq: number; strokeCount: number; copiedFrom: number | null; createdAt: string; updatedAt: string };
+export type PassState = { id: string; gagId: string; number: number; seq: number; strokes: Stroke[]; rooms: Room[] };
+export type PassDelta = {
+  id: string;
+  seq: number;
+  since: number;
+  strokes: Stroke[];
+  removedStrokes: string[];
+  rooms: Room[];
+  removedRooms: string[];
+};
+
+function rowToStroke(row: { strokeId: string; panel: number; tool: Stroke['tool']; grey: number; size: number; points: Buffer | Uint8Array }, ox: number, oy: number): Stroke {
+  return {
+    id: row.strokeId,
+    panel: row.panel,
+    tool: row.tool,
+    grey: row.grey,
+    size: row.size,
+    points: translatePoints(decodePoints(row.points instanceof Uint8Array ? row.points : new Uint8Array(row.points)), ox, oy),
+  };
+}
+
+function rowToRoom(row: { roomId: string; panel: number; shape: Room['shape']; x: number; y: number; w: number; h: number }): Room {
+  return { id: row.roomId, panel: row.panel, shape: row.shape, x: row.x, y: row.y, w: row.w, h: row.h };
+}
+
+function strokeRowValues(passId: string, stroke: Stroke, seq: number, userId: string | null) {
+  const b = pointsBounds(stroke.points);
+  return {
+    passId,
+    strokeId: stroke.id,
+    panel: stroke.panel,
+    tool: stroke.tool,
+    grey: stroke.grey,
+    size: stroke.size,
+    points: Buffer.from(encodePoints(stroke.points)),
+    pointCount: stroke.points.length,
+    minX: b.x,
+    minY: b.y,
+    maxX: b.x + b.w,
+    maxY: b.y + b.h,
+    addedSeq: seq,
+    removedSeq: null,
+    addedBy: userId,
+  };
+}
+
+// ---------- reading ----------
+
+export async function findPass(db: Db, passId: string) {
+  return db.selectFrom('passes').selectAll().where('id', '=', passId).executeTakeFirst();
+}
+
+export async function findPassByNumber(db: Db, gagId: string, number: number) {
+  return db.selectFrom('passes').selectAll().where('gagId', '=', gagId).where('number', '=', number).executeTakeFirst();
+}
+
+export async function seriesOfPass(db: Db, passId: string): Promise<string | null> {
+  const row = await db
+    .selectFrom('passes as p')
+    .innerJoin('gags as g', 'g.id', 'p.gagId')
+    .select('g.seriesId')
+    .where('p.id', '=', passId)
+    .executeTakeFirst();
+  return row?.seriesId ?? null;
+}
+
+export async function listPasses(db: Db, gagId: string): Promise<PassSummary[]> {
+  const rows = await db
+    .selectFrom('passes as p')
+    .leftJoin('strokes as s', (j) => j.onRef('s.passId', '=', 'p.id').on('s.removedSeq', 'is', null))
+    .select((eb) => [
+      'p.id', 'p.gagId', 'p.number', 'p.seq', 'p.copiedFrom', 'p.createdAt', 'p.updatedAt',
+      eb.fn.count<number>('s.rowId').as('strokeCount'),
+    ])
+    .where('p.gagId', '=', gagId)
+    .groupBy('p.id')
+    .orderBy('p.number')
+    .execute();
+  return rows.map((r) => ({ ...r, strokeCount: Number(r.strokeCount) }));
+}
+
+export async function liveStrokes(db: Db, passId: string): Promise<Stroke[]> {
+  const rows = await db
+    .selectFrom('strokes')
+    .select(['strokeId', 'panel', 'tool', 'grey', 'size', 'points', 'ox', 'oy'])
+    .where('passId', '=', passId)
+    .where('removedSeq', 'is', null)
+    .orderBy('addedSeq')
+    .orderBy('rowId')
+    .execute();
+  return rows.map((r) => rowToStroke(r, r.ox, r.oy));
+}
+
+export async function liveRooms(db: Db, passId: string): Promise<Room[]> {
+  const rows = await db
+    .selectFrom('rooms')
+    .selectAll()
+    .where('passId', '=', passId)
+    .where('removedSeq', 'is', null)
+    .orderBy('rowId')
+    .execute();
+  return rows.map(rowToRoom);
+}
+
+export async function passState(db: Db, passId: string): Promise<PassState | undefined> {
+  const pass = await findPass(db, passId);
+  if (!pass) return undefined;
+  return {
+    id: pass.id,
+    gagId: pass.gagId,
+    number: pass.number,
+    seq: pass.seq,
+    strokes: await liveStrokes(db, passId),
+    rooms: await liveRooms(db, passId),
+  };
+}
+
+/** What changed after `since`, as absolute values: apply removals, then replace by id. */
+export async function passDelta(db: Db, passId: string, since: number): Promise<PassDelta | undefined> {
+  const pass = await findPass(db, passId);
+  if (!pass) return undefined;
+  const movedRows = db.selectFrom('strokeMoves').select('rowId').where('passId', '=', passId).where('seq', '>', since);
+  const changed = await db
+    .selectFrom('strokes')
+    .select(['strokeId', 'panel', 'tool', 'grey', 'size', 'points', 'ox', 'oy'])
+    .where('passId', '=', passId)
+    .where('removedSeq', 'is', null)
+    .where((eb) => eb.or([eb('addedSeq', '>', since), eb('rowId', 'in', movedRows)]))
+    .orderBy('addedSeq')
+    .orderBy('rowId')
+    .execute();
+  const removed = await db
+    .selectFrom('strokes')
+    .select('strokeId')
+    .distinct()
+    .where('passId', '=', passId)
+    .where('removedSeq', '>', since)
+    .where('addedSeq', '<=', since)
+    .execute();
+  const changedRooms = await db
+    .selectFrom('rooms')
+    .selectAll()
+    .where('passId', '=', passId)
+    .where('removedSeq', 'is', null)
+    .where('addedSeq', '>', since)
+    .execute();
+  const removedRooms = await db
+    .selectFrom('rooms')
+    .select('roomId')
+    .distinct()
+    .where('passId', '=', passId)
+    .where('removedSeq', '>', since)
+    .where('addedSeq', '<=', since)
+    .execute();
+  const strokes = changed.map((r) => rowToStroke(r, r.ox, r.oy));
+  const rooms = changedRooms.map(rowToRoom);
+  const stillThere = new Set(strokes.map((s) => s.id));
+  const roomsThere = new Set(rooms.map((r) => r.id));
+  return {
+    id: pass.id,
+    seq: pass.seq,
+    since,
+    strokes,
+    removedStrokes: removed.map((r) => r.strokeId).filter((id) => !stillThere.has(id)),
+    rooms,
+    removedRooms: removedRooms.map((r) => r.roomId).filter((id) => !roomsThere.has(id)),
+  };
+}
+
+/** The pass as it stood at `seq`: rows live then, shifted by their moves up to then. */
+export async function stateAt(db: Db, passId: string, seq: number) {
+  const rows = await db
+    .selectFrom('strokes')
+    .selectAll()
+    .where('passId', '=', passId)
+    .where('addedSeq', '<=', seq)
+    .where((eb) => eb.or([eb('removedSeq', 'is', null), eb('removedSeq', '>', seq)]))
+    .orderBy('addedSeq')
+    .orderBy('rowId')
+    .execute();
+  const moves = await db
+    .selectFrom('strokeMoves')
+    .select((eb) => ['rowId', eb.fn.sum<number>('dx').as('dx'), eb.fn.sum<number>('dy').as('dy')])
+    .where('passId', '=', passId)
+    .where('seq', '<=', seq)
+    .groupBy('rowId')
+    .execute();
+  const offsets = new Map(moves.map((m) => [m.rowId, { dx: Number(m.dx), dy: Number(m.dy) }]));
+  const rooms = await db
+    .selectFrom('rooms')
+    .selectAll()
+    .where('passId', '=', passId)
+    .where('addedSeq', '<=', seq)
+    .where((eb) => eb.or([eb('removedSeq', 'is', null), eb('removedSeq', '>', seq)]))
+    .orderBy('rowId')
+    .execute();
+  return {
+    strokes: rows.map((r) => ({ row: r, offset: offsets.get(r.rowId) ?? { dx: 0, dy: 0 } })),
+    rooms,
+  };
+}
+
+// ---------- writing ----------
+
+async function addRevision(trx: Db, passId: string, seq: number, reason: RevisionReason, userId: string | null, restoredFrom: string | null = null) {
+  const id = randomUUID();
+  await trx
+    .insertInto('revisions')
+    .values({ id, passId, seq, reason, restoredFrom, userId, createdAt: new Date().toISOString() })
+    .execute();
+  return id;
+}
+
+export async function createPass(
+  db: Kysely<Database>,
+  input: { gagId: string; userId: string; copyFrom?: number },
+): Promise<{ id: string; number: number }> {
+  return db.transaction().execute(async (trx) => {
+    const last = await trx
+      .selectFrom('passes')
+      .select((eb) => eb.fn.max('number').as('max'))
+      .where('gagId', '=', input.gagId)
+      .executeTakeFirst();
+    const number = Number(last?.max ?? 0) + 1;
+    const id = randomUUID();
+    const now = new Date().toISOString();
+    let source: Stroke[] = [];
+    let sourceRooms: Room[] = [];
+    if (input.copyFrom !== undefined) {
+      const from = await findPassByNumber(trx, input.gagId, input.copyFrom);
+      if (!from) throw new OpRefused(`There is no pass ${input.copyFrom} to copy.`);
+      source = await liveStrokes(trx, from.id);
+      sourceRooms = await liveRooms(trx, from.id);
+    }
+    const seq = input.copyFrom !== undefined ? 1 : 0;
+    await trx
+      .insertInto('passes')
+      .values({ id, gagId: input.gagId, number, seq, copiedFrom: input.copyFrom ?? null, createdBy: input.userId, createdAt: now, updatedAt: now })
+      .execute();
+    for (const s of source) await trx.insertInto('strokes').values(strokeRowValues(id, s, 1, input.userId)).execute();
+    for (const r of sourceRooms) {
+      await trx.insertInto('rooms').values({ passId: id, roomId: r.id, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: 1, removedSeq: null }).execute();
+    }
+    await addRevision(trx, id, seq, input.copyFrom !== undefined ? 'copied' : 'created', input.userId);
+    return { id, number };
+  });
+}
+
+async function liveStrokeRow(trx: Db, passId: string, strokeId: string) {
+  return trx
+    .selectFrom('strokes')
+    .select(['rowId', 'minX', 'minY', 'maxX', 'maxY', 'ox', 'oy'])
+    .where('passId', '=', passId)
+    .where('strokeId', '=', strokeId)
+    .where('removedSeq', 'is', null)
+    .executeTakeFirst();
+}
+
+async function applyOp(trx: Transaction<Database>, passId: string, seq: number, op: Op, userId: string, spec: PageSpec) {
+  switch (op.op) {
+    case 'add': {
+      const seen =
+        (await trx.selectFrom('strokes').select('rowId').where('passId', '=', passId).where('strokeId', '=', op.stroke.id).executeTakeFirst()) ??
+        (await trx.selectFrom('strokeTombstones').select('seq').where('passId', '=', passId).where('strokeId', '=', op.stroke.id).executeTakeFirst());
+      if (seen) return; // already added, or removed: the removal wins
+      await trx.insertInto('strokes').values(strokeRowValues(passId, op.stroke, seq, userId)).execute();
+      return;
+    }
+    case 'remove': {
+      await trx
+        .insertInto('strokeTombstones')
+        .values({ passId, strokeId: op.strokeId, seq })
+        .onConflict((oc) => oc.doNothing())
+        .execute();
+      await trx
+        .updateTable('strokes')
+        .set({ removedSeq: seq })
+        .where('passId', '=', passId)
+        .where('strokeId', '=', op.strokeId)
+        .where('removedSeq', 'is', null)
+        .execute();
+      return;
+    }
+    case 'move': {
+      if (op.dx === 0 && op.dy === 0) return;
+      const b = bleedBox(spec);
+      for (const strokeId of op.strokeIds) {
+        const row = await liveStrokeRow(trx, passId, strokeId);
+        if (!row) continue; // removed meanwhile: the move has nothing to act on
+        const ox = row.ox + op.dx;
+        const oy = row.oy + op.dy;
+        if (row.minX + ox < b.x - 1e-9 || row.minY + oy < b.y - 1e-9 || row.maxX + ox > b.x + b.w + 1e-9 || row.maxY + oy > b.y + b.h + 1e-9) {
+          throw new OpRefused(`Moving stroke ${strokeId} by (${op.dx}, ${op.dy}) mm would take it outside the bleed box.`);
+        }
+        await trx.insertInto('strokeMoves').values({ rowId: row.rowId, passId, seq, dx: op.dx, dy: op.dy }).execute();
+        await trx.updateTable('strokes').set({ ox, oy }).where('rowId', '=', row.rowId).execute();
+      }
+      return;
+    }
+    case 'room': {
+      const r = op.room;
+      const gone = await trx.selectFrom('roomTombstones').select('seq').where('passId', '=', passId).where('roomId', '=', r.id).executeTakeFirst();
+      if (gone) return;
+      const live = await trx
+        .selectFrom('rooms')
+        .selectAll()
+        .where('passId', '=', passId)
+        .where('roomId', '=', r.id)
+        .where('removedSeq', 'is', null)
+        .executeTakeFirst();
+      if (live && live.panel === r.panel && live.shape === r.shape && live.x === r.x && live.y === r.y && live.w === r.w && live.h === r.h) return;
+      if (live) await trx.updateTable('rooms').set({ removedSeq: seq }).where('rowId', '=', live.rowId).execute();
+      await trx
+        .insertInto('rooms')
+        .values({ passId, roomId: r.id, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: seq, removedSeq: null })
+        .execute();
+      return;
+    }
+    case 'unroom': {
+      await trx.insertInto('roomTombstones').values({ passId, roomId: op.roomId, seq }).onConflict((oc) => oc.doNothing()).execute();
+      await trx
+        .updateTable('rooms')
+        .set({ removedSeq: seq })
+        .where('passId', '=', passId)
+        .where('roomId', '=', op.roomId)
+        .where('removedSeq', 'is', null)
+        .execute();
+      return;
+    }
+  }
+}
+
+/**
+ * Applies one batch in one transaction and answers `{ seq }`. A batch id seen
+ * before answers what it answered then and changes nothing.
+ */
+export async function applyBatch(
+  db: Kysely<Database>,
+  input: { passId: string; batchId: string; ops: Op[]; userId: string; spec: PageSpec; now?: Date },
+): Promise<{ seq: number; replayed: boolean }> {
+  return db.transaction().execute(async (trx) => {
+    const seen = await trx
+      .selectFrom('passBatches')
+      .select('result')
+      .where('passId', '=', input.passId)
+      .where('batchId', '=', input.batchId)
+      .executeTakeFirst();
+    if (seen) return { ...(JSON.parse(seen.result) as { seq: number }), replayed: true };
+
+    const pass = await trx.selectFrom('passes').select(['seq', 'updatedAt']).where('id', '=', input.passId).executeTakeFirstOrThrow();
+    const now = input.now ?? new Date();
+    const seq = pass.seq + 1;
+    for (const op of input.ops) await applyOp(trx, input.passId, seq, op, input.userId, input.spec);
+
+    // Revisions: the state before a pause, and a steady one every N batches.
+    const lastRev = await trx
+      .selectFrom('revisions')
+      .select((eb) => eb.fn.max('seq').as('seq'))
+      .where('passId', '=', input.passId)
+      .executeTakeFirst();
+    const lastRevSeq = Number(lastRev?.seq ?? 0);
+    if (pass.seq > lastRevSeq && now.getTime() - Date.parse(pass.updatedAt) >= REVISION_PAUSE_MS) {
+      await addRevision(trx, input.passId, pass.seq, 'pause', input.userId);
+    } else if (seq - lastRevSeq >= REVISION_EVERY_BATCHES) {
+      await addRevision(trx, input.passId, seq, 'steady', input.userId);
+    }
+
+    const result = { seq };
+    await trx.updateTable('passes').set({ seq, updatedAt: now.toISOString() }).where('id', '=', input.passId).execute();
+    await trx
+      .insertInto('passBatches')
+      .values({ passId: input.passId, batchId: input.batchId, seq, userId: input.userId, opCount: input.ops.length, result: JSON.stringify(result), createdAt: now.toISOString() })
+      .execute();
+    return { ...result, replayed: false };
+  });
+}
+
+export type RevisionDto = { id: string; seq: number; reason: RevisionReason; restoredFrom: string | null; createdAt: string; by: string | null };
+
+export async function listRevisions(db: Db, passId: string): Promise<RevisionDto[]> {
+  return db
+    .selectFrom('revisions as r')
+    .leftJoin('users as u', 'u.id', 'r.userId')
+    .select(['r.id', 'r.seq', 'r.reason', 'r.restoredFrom', 'r.createdAt', 'u.name as by'])
+    .where('r.passId', '=', passId)
+    .orderBy('r.seq', 'desc')
+    .orderBy('r.createdAt', 'desc')
+    .execute();
+}
+
+/**
+ * Makes the pass look as it did at a revision, by writing a new batch: rows
+ * that differ are tombstoned (removed_seq) and re-added from the revision.
+ * The state just before is kept as a revision, so restoring it undoes this.
+ */
+export async function restoreRevision(
+  db: Kysely<Database>,
+  input: { passId: string; revisionId: string; userId: string },
+): Promise<{ seq: number; revisionId: string } | null> {
+  return db.transaction().execute(async (trx) => {
+    const rev = await trx
+      .selectFrom('revisions')
+      .selectAll()
+      .where('id', '=', input.revisionId)
+      .where('passId', '=', input.passId)
+      .executeTakeFirst();
+    if (!rev) return null;
+    const pass = await trx.selectFrom('passes').select(['seq']).where('id', '=', input.passId).executeTakeFirstOrThrow();
+    const seq = pass.seq + 1;
+    const hasCurrent = await trx
+      .selectFrom('revisions')
+      .select('id')
+      .where('passId', '=', input.passId)
+      .where('seq', '=', pass.seq)
+      .executeTakeFirst();
+    if (!hasCurrent) await addRevision(trx, input.passId, pass.seq, 'before-restore', input.userId);
+
+    const target = await stateAt(trx, input.passId, rev.seq);
+    const live = await trx.selectFrom('strokes').selectAll().where('passId', '=', input.passId).where('removedSeq', 'is', null).execute();
+    const liveById = new Map(live.map((r) => [r.strokeId, r]));
+    const targetIds = new Set(target.strokes.map((t) => t.row.strokeId));
+
+    for (const row of live) {
+      if (!targetIds.has(row.strokeId)) await trx.updateTable('strokes').set({ removedSeq: seq }).where('rowId', '=', row.rowId).execute();
+    }
+    for (const { row, offset } of target.strokes) {
+      const now = liveById.get(row.strokeId);
+      if (now && now.rowId === row.rowId) {
+        const dx = offset.dx - now.ox;
+        const dy = offset.dy - now.oy;
+        if (Math.abs(dx) > 1e-9 || Math.abs(dy) > 1e-9) {
+          await trx.insertInto('strokeMoves').values({ rowId: row.rowId, passId: input.passId, seq, dx, dy }).execute();
+          await trx.updateTable('strokes').set({ ox: offset.dx, oy: offset.dy }).where('rowId', '=', row.rowId).execute();
+        }
+        continue;
+      }
+      if (now) await trx.updateTable('strokes').set({ removedSeq: seq }).where('rowId', '=', now.rowId).execute();
+      const stroke = rowToStroke(row, offset.dx, offset.dy);
+      await trx.insertInto('strokes').values(strokeRowValues(input.passId, stroke, seq, input.userId)).execute();
+    }
+
+    const liveRoomsRows = await trx.selectFrom('rooms').selectAll().where('passId', '=', input.passId).where('removedSeq', 'is', null).execute();
+    const targetRoomRows = new Set(target.rooms.map((r) => r.rowId));
+    const liveRoomByRow = new Set(liveRoomsRows.map((r) => r.rowId));
+    for (const r of liveRoomsRows) {
+      if (!targetRoomRows.has(r.rowId)) await trx.updateTable('rooms').set({ removedSeq: seq }).where('rowId', '=', r.rowId).execute();
+    }
+    for (const r of target.rooms) {
+      if (liveRoomByRow.has(r.rowId)) continue;
+      await trx
+        .insertInto('rooms')
+        .values({ passId: input.passId, roomId: r.roomId, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: seq, removedSeq: null })
+        .execute();
+    }
+
+    const now = new Date().toISOString();
+    await trx.updateTable('passes').set({ seq, updatedAt: now }).where('id', '=', input.passId).execute();
+    const revisionId = await addRevision(trx, input.passId, seq, 'restore', input.userId, rev.id);
+    const result = { seq };
+    await trx
+      .insertInto('passBatches')
+      .values({ passId: input.passId, batchId: `restore-${revisionId}`, seq, userId: input.userId, opCount: 0, result: JSON.stringify(result), createdAt: now })
+      .execute();
+    return { seq, revisionId };
+  });
+}
+
+/** Bytes stored for a pass's live strokes (points BLOBs), for the benchmark and tests. */
+export async function storedPointBytes(db: Db, passId: string): Promise<number> {
+  const row = await db
+    .selectFrom('strokes')
+    .select((eb) => eb.fn.sum<number>(eb.fn('length', ['points'])).as('bytes'))
+    .where('passId', '=', passId)
+    .where('removedSeq', 'is', null)
+    .executeTakeFirst();
+  return Number(row?.bytes ?? 0);
+}
