@@ -1,0 +1,208 @@
+// Keeps one pass in step with the server: applies local operations at once
+// (optimistic), saves them through the persistent outbox, sends batches one at
+// a time, and polls for everyone else's changes every second.
+import { nanoid } from 'nanoid';
+import { Outbox } from '@/lib/strokes/outbox';
+import { type PassDoc, applyDelta, applyOp, docFrom } from '@/lib/strokes/pass-model';
+import type { Op, Room, Stroke } from '@/lib/strokes/types';
+
+export type SyncState = 'saved' | 'saving' | 'offline' | 'refused';
+export type SyncStatus = { state: SyncState; waiting: number; message: string | null };
+export type DocChange = { panels: Set<number>; full: boolean; rooms: boolean };
+
+type ServerState = { seq: number; strokes: Stroke[]; rooms: Room[] };
+type ServerDelta = ServerState & { removedStrokes: string[]; removedRooms: string[] };
+
+const POLL_MS = 1000;
+const SEAL_AFTER_MS = 150;
+
+export class PassSync {
+  doc: PassDoc;
+  seq: number;
+  private outbox: Outbox;
+  private unsynced: { seq: number; ops: Op[] }[] = [];
+  private sending = false;
+  /** Bumped whenever a send starts: a poll that overlapped a send is thrown away. */
+  private sendEpoch = 0;
+  private failures = 0;
+  private status: SyncStatus = { state: 'saved', waiting: 0, message: null };
+  private docListeners = new Set<(c: DocChange) => void>();
+  private statusListeners = new Set<(s: SyncStatus) => void>();
+  private timers: ReturnType<typeof setTimeout>[] = [];
+  private sealTimer: ReturnType<typeof setTimeout> | null = null;
+  private retryTimer: ReturnType<typeof setTimeout> | null = null;
+  private pollTimer: ReturnType<typeof setInterval> | null = null;
+  private stopped = false;
+  private readonly onOnline = () => void this.kick();
+
+  constructor(
+    private passId: string,
+    initial: ServerState,
+    storage: Storage,
+    private readOnly = false,
+  ) {
+    this.doc = docFrom(initial.strokes, initial.rooms);
+    this.seq = initial.seq;
+    this.outbox = new Outbox(storage, `quadrille.outbox.${passId}`, () => nanoid());
+  }
+
+  start() {
+    // Work that was drawn but not acknowledged before a reload: show it, then send it.
+    const pending = this.outbox.pendingOps();
+    for (const op of pending) applyOp(this.doc, op);
+    this.emitDoc({ panels: new Set([0, 1, 2, 3]), full: true, rooms: true });
+    if (!this.readOnly) {
+      this.outbox.seal();
+      window.addEventListener('online', this.onOnline);
+      void this.kick();
+    }
+    this.pollTimer = setInterval(() => void this.poll(), POLL_MS);
+    this.updateStatus();
+  }
+
+  stop() {
+    this.stopped = true;
+    if (this.pollTimer) clearInterval(this.pollTimer);
+    if (this.sealTimer) clearTimeout(this.sealTimer);
+    if (this.retryTimer) clearTimeout(this.retryTimer);
+    this.timers.forEach(clearTimeout);
+    window.removeEventListener('online', this.onOnline);
+  }
+
+  onDoc(fn: (c: DocChange) => void) {
+    this.docListeners.add(fn);
+    return () => this.docListeners.delete(fn);
+  }
+
+  onStatus(fn: (s: SyncStatus) => void) {
+    this.statusListeners.add(fn);
+    fn(this.status);
+    return () => this.statusListeners.delete(fn);
+  }
+
+  /** Applies local operations now and queues them for the server. Returns the panels touched. */
+  commit(ops: Op[], opts: { emit?: boolean } = {}): Set<number> {
+    if (this.readOnly || ops.length === 0) return new Set();
+    const touched = new Set<number>();
+    let rooms = false;
+    for (const op of ops) {
+      applyOp(this.doc, op, touched);
+      if (op.op === 'room' || op.op === 'unroom') rooms = true;
+    }
+    this.outbox.push(...ops);
+    if (opts.emit !== false) this.emitDoc({ panels: touched, full: false, rooms });
+    if (this.sealTimer) clearTimeout(this.sealTimer);
+    this.sealTimer = setTimeout(() => this.flush(), SEAL_AFTER_MS);
+    this.updateStatus();
+    return touched;
+  }
+
+  /** Seals what is open and starts sending. */
+  flush() {
+    if (this.sealTimer) clearTimeout(this.sealTimer);
+    this.sealTimer = null;
+    this.outbox.seal();
+    void this.kick();
+  }
+
+  private emitDoc(c: DocChange) {
+    for (const fn of this.docListeners) fn(c);
+  }
+
+  private updateStatus(patch: Partial<SyncStatus> = {}) {
+    const waiting = this.outbox.waiting;
+    let state: SyncState = this.status.state === 'refused' ? 'refused' : waiting > 0 ? (this.failures > 0 ? 'offline' : 'saving') : 'saved';
+    if (patch.state) state = patch.state;
+    this.status = { state, waiting, message: patch.message !== undefined ? patch.message : this.status.message };
+    for (const fn of this.statusListeners) fn(this.status);
+  }
+
+  private async kick() {
+    if (this.sending || this.stopped || this.readOnly) return;
+    this.sending = true;
+    try {
+      for (let batch = this.outbox.next(); batch && !this.stopped; batch = this.outbox.next()) {
+        let res: Response;
+        this.sendEpoch += 1;
+        try {
+          res = await fetch(`/api/passes/${this.passId}/ops`, {
+            method: 'POST',
+            headers: { 'content-type': 'application/json' },
+            body: JSON.stringify(batch),
+          });
+        } catch {
+          this.scheduleRetry();
+          return;
+        }
+        if (res.ok) {
+          const { seq } = (await res.json()) as { seq: number };
+          this.outbox.ack(batch.batchId);
+          this.unsynced.push({ seq, ops: batch.ops });
+          this.failures = 0;
+          this.updateStatus({ message: null });
+          continue;
+        }
+        const body = (await res.json().catch(() => ({}))) as { error?: string };
+        if (res.status === 422 || res.status === 413) {
+          // The server will refuse this batch every time: drop it, say so, and show the truth.
+          this.outbox.ack(batch.batchId);
+          this.updateStatus({ message: `A change was refused: ${body.error ?? res.status}` });
+          await this.resync();
+          continue;
+        }
+        if (res.status === 401 || res.status === 403 || res.status === 404) {
+          this.updateStatus({ state: 'refused', message: body.error ?? 'You can no longer save to this pass.' });
+          return;
+        }
+        this.scheduleRetry();
+        return;
+      }
+    } finally {
+      this.sending = false;
+    }
+  }
+
+  private scheduleRetry() {
+    this.failures += 1;
+    this.updateStatus();
+    const wait = Math.min(10_000, 500 * 2 ** Math.min(this.failures, 5));
+    if (this.retryTimer) clearTimeout(this.retryTimer);
+    this.retryTimer = setTimeout(() => void this.kick(), wait);
+  }
+
+  private unseenOps(serverSeq: number): Op[] {
+    return [...this.unsynced.filter((u) => u.seq > serverSeq).flatMap((u) => u.ops), ...this.outbox.pendingOps()];
+  }
+
+  async poll() {
+    // While a batch is in flight we cannot tell whether a delta includes it; wait.
+    if (this.stopped || this.sending) return;
+    const epoch = this.sendEpoch;
+    let delta: ServerDelta;
+    try {
+      const res = await fetch(`/api/passes/${this.passId}?since=${this.seq}`, { cache: 'no-store' });
+      if (!res.ok) return;
+      delta = (await res.json()) as ServerDelta;
+    } catch {
+      return;
+    }
+    if (delta.seq <= this.seq || this.sending || epoch !== this.sendEpoch) return;
+    const touched = applyDelta(this.doc, delta, this.unseenOps(delta.seq));
+    this.seq = delta.seq;
+    this.unsynced = this.unsynced.filter((u) => u.seq > delta.seq);
+    const rooms = delta.rooms.length > 0 || delta.removedRooms.length > 0;
+    if (touched.size || rooms) this.emitDoc({ panels: touched, full: false, rooms });
+  }
+
+  /** Reloads the whole pass (after a refusal or a restore) and re-applies local work. */
+  async resync() {
+    const res = await fetch(`/api/passes/${this.passId}`, { cache: 'no-store' }).catch(() => null);
+    if (!res?.ok) return;
+    const state = (await res.json()) as ServerState;
+    this.doc = docFrom(state.strokes, state.rooms);
+    this.seq = state.seq;
+    this.unsynced = [];
+    for (const op of this.outbox.pendingOps()) applyOp(this.doc, op);
+    this.emitDoc({ panels: new Set([0, 1, 2, 3]), full: true, rooms: true });
+  }
+}
