@@ -4,7 +4,9 @@ import 'server-only';
 import { notFound, redirect } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { findGag, listGags } from '@/db/queries/gags';
-import { findSeries, listSeriesForUser } from '@/db/queries/series';
+import { findPassByNumber, listPasses, passState } from '@/db/queries/passes';
+import { findSeries, listSeriesForUser, pageSpecOf } from '@/db/queries/series';
+import { passToSvg } from '@/lib/strokes/svg';
 import { authorizeSeries } from '@/lib/auth/guard';
 import { type SessionUser, currentUser } from '@/lib/auth/session';
 
@@ -38,4 +40,37 @@ export async function loadGag(seriesId: string, gagId: string) {
   const gag = await findGag(await getDb(), gagId);
   if (!gag || gag.seriesId !== seriesId) notFound();
   return { ...base, gag };
+}
+
+export async function loadPassEditor(seriesId: string, gagId: string, passNo: number) {
+  const base = await loadGag(seriesId, gagId);
+  const db = await getDb();
+  if (!Number.isInteger(passNo) || passNo < 1) notFound();
+  const pass = await findPassByNumber(db, gagId, passNo);
+  if (!pass) notFound();
+  const state = await passState(db, pass.id);
+  if (!state) notFound();
+  const passes = await listPasses(db, gagId);
+  return { ...base, pass: state, spec: await pageSpecOf(db, seriesId), passNumbers: passes.map((p) => p.number) };
+}
+
+/** Every pass of a gag as a small SVG page (rendered here, on the server). */
+export async function loadPassThumbnails(seriesId: string, gagId: string) {
+  const db = await getDb();
+  const spec = await pageSpecOf(db, seriesId);
+  const passes = await listPasses(db, gagId);
+  const out = [];
+  for (const p of passes) {
+    const state = await passState(db, p.id);
+    if (!state) continue;
+    out.push({
+      id: p.id,
+      number: p.number,
+      seq: p.seq,
+      strokeCount: p.strokeCount,
+      updatedAt: p.updatedAt,
+      svg: passToSvg(spec, state.strokes, state.rooms, { idPrefix: `pass${p.number}`, title: `Pass ${p.number}` }),
+    });
+  }
+  return { spec, passes: out };
 }

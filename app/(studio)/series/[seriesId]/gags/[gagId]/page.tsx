@@ -1,6 +1,8 @@
 import type { Metadata } from 'next';
 import { GagDetail } from '@/components/gag/gag-detail';
-import { loadGag } from '@/lib/data/studio';
+import { PassStrip } from '@/components/gag/pass-strip';
+import { can } from '@/lib/auth/permissions';
+import { loadGag, loadPassThumbnails } from '@/lib/data/studio';
 
 export const metadata: Metadata = { title: 'Gag' };
 export const dynamic = 'force-dynamic';
@@ -8,5 +10,11 @@ export const dynamic = 'force-dynamic';
 export default async function GagPage({ params }: { params: Promise<{ seriesId: string; gagId: string }> }) {
   const { seriesId, gagId } = await params;
   const { series, role, gag } = await loadGag(seriesId, gagId);
-  return <GagDetail key={gag.id} seriesId={series.id} seriesTitle={series.title} role={role} initial={gag} />;
+  const { passes } = await loadPassThumbnails(series.id, gag.id);
+  return (
+    <div className="space-y-8">
+      <GagDetail key={gag.id} seriesId={series.id} seriesTitle={series.title} role={role} initial={gag} />
+      <PassStrip seriesId={series.id} gagId={gag.id} passes={passes} beats={gag.beats} canEdit={can(role, 'edit')} />
+    </div>
+  );
 }
