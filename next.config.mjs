@@ -3,6 +3,8 @@ const nextConfig = {
   // better-sqlite3 is a native addon; it must stay a plain Node require on the server.
   serverExternalPackages: ['better-sqlite3'],
   poweredByHeader: false,
+  // Let the dev server be opened as 127.0.0.1 as well as localhost.
+  allowedDevOrigins: ['127.0.0.1'],
   // A separate build folder lets the browser tests build without disturbing `next dev`.
   distDir: process.env.NEXT_DIST_DIR || '.next',
 };

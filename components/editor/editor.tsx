@@ -734,7 +734,7 @@ export default function Editor(props: EditorProps) {
         openHelp={() => setHelpOpen(true)}
       />
       <div className="relative min-h-0 min-w-0 flex-1">
-        <div className="absolute left-2 top-2 z-10 flex flex-wrap items-center gap-2">
+        <div className="absolute bottom-2 left-2 z-10 flex flex-wrap items-center gap-2">
           <SyncBadge status={status} readOnly={!canDraw} />
           {selection.length > 0 && canDraw && (
             <div className="panel flex flex-wrap items-center gap-1 px-2 py-1 text-sm" role="group" aria-label="Selection">

@@ -3,7 +3,6 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { type BrowserContext, type Page, chromium } from 'playwright-core';
-import { afterAll, beforeAll } from 'vitest';
 
 export const DEMO_PASSWORD = 'kettle-crab-demo';
 
@@ -50,25 +49,3 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
   await page.getByRole('heading', { name: 'My series' }).waitFor();
 }
 
-/**
- * One Chromium and one page for a test file: opened before its tests, closed
- * after. Returns the page (a stand-in that forwards to the real one once open).
- */
-export function usePage(): Page {
-  let browser: Awaited<ReturnType<typeof openBrowser>> | undefined;
-  let real: Page | undefined;
-  beforeAll(async () => {
-    browser = await openBrowser();
-    real = await browser.context.newPage();
-  });
-  afterAll(async () => {
-    await browser?.close();
-  });
-  return new Proxy({} as Page, {
-    get(_target, prop) {
-      if (!real) throw new Error('The page is opened in beforeAll; use it inside tests and hooks.');
-      const value = Reflect.get(real, prop, real);
-      return typeof value === 'function' ? value.bind(real) : value;
-    },
-  });
-}

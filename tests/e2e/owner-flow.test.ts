@@ -1,7 +1,8 @@
 // The owner works the board: creates a gag, writes its beats (autosaved), renames
 // it, moves its status, finds it in the table view, and deletes it with a confirmation.
 import { beforeAll, describe, expect, inject, it } from 'vitest';
-import { signIn, usePage } from './browser';
+import { signIn } from './browser';
+import { usePage } from './page-fixture';
 
 const baseUrl = inject('baseUrl');
 const page = usePage();

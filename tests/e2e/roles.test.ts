@@ -1,6 +1,7 @@
 // Each demo role signs in through the real sign-in page and sees what the role allows.
 import { describe, expect, inject, it } from 'vitest';
-import { signIn, usePage } from './browser';
+import { signIn } from './browser';
+import { usePage } from './page-fixture';
 
 const baseUrl = inject('baseUrl');
 const page = usePage();

@@ -1,7 +1,8 @@
 // The viewer sees no editing controls and the API refuses their write;
 // sign-in failures get a clear message, and 429 after 10 in 15 minutes.
 import { describe, expect, inject, it } from 'vitest';
-import { signIn, submitSignIn, usePage } from './browser';
+import { signIn, submitSignIn } from './browser';
+import { usePage } from './page-fixture';
 
 const baseUrl = inject('baseUrl');
 const page = usePage();
