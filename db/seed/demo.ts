@@ -8,6 +8,14 @@ import type { BeatKind, GagStatus } from '@/lib/gags/status';
 import { BEAT_KINDS } from '@/lib/gags/status';
 import { hashPassword } from '@/lib/auth/password';
 import type { Database } from '../database';
+import { encodePoints } from '@/lib/strokes/codec';
+import { pointsBounds } from '@/lib/strokes/hit';
+import { demoSketch } from './demo-sketches';
+
+/** How many passes each demo status has drawn so far. */
+const PASSES_BY_STATUS: Record<GagStatus, number> = {
+  idea: 0, thumbnailing: 1, in_review: 2, ready_to_ink: 3, inked: 2, scanned: 2, placed: 2,
+};
 
 export const DEMO_PASSWORD = 'kettle-crab-demo';
 export const DEMO_SERIES_ID = 'demo-kettle-crab';
@@ -137,6 +145,7 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
       .execute();
     let i = 0;
     for (const g of DEMO_GAGS) {
+      const passes = PASSES_BY_STATUS[g.status];
       i += 1;
       const created = at(24 * i);
       const changed = at(24 * i + 30 + ((i * 7) % 11) * 5);
@@ -150,6 +159,34 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
         .values(BEAT_KINDS.map((kind) => ({ gagId: g.id, kind, note: g.notes[kind] ?? '', updatedAt: changed })))
         .onConflict((oc) => oc.doNothing())
         .execute();
+      for (let n = 1; n <= passes; n++) {
+        const passId = `${g.id}-pass-${n}`;
+        const exists = await trx.selectFrom('passes').select('id').where('id', '=', passId).executeTakeFirst();
+        if (exists) continue;
+        const { strokes, rooms } = demoSketch(i, n);
+        await trx
+          .insertInto('passes')
+          .values({ id: passId, gagId: g.id, number: n, seq: 1, copiedFrom: null, createdBy: 'demo-user-owner', createdAt: changed, updatedAt: changed })
+          .execute();
+        for (const s of strokes) {
+          const b = pointsBounds(s.points);
+          await trx
+            .insertInto('strokes')
+            .values({
+              passId, strokeId: s.id, panel: s.panel, tool: s.tool, grey: s.grey, size: s.size,
+              points: Buffer.from(encodePoints(s.points)), pointCount: s.points.length,
+              minX: b.x, minY: b.y, maxX: b.x + b.w, maxY: b.y + b.h, addedSeq: 1, removedSeq: null, addedBy: 'demo-user-owner',
+            })
+            .execute();
+        }
+        for (const r of rooms) {
+          await trx.insertInto('rooms').values({ passId, roomId: r.id, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: 1, removedSeq: null }).execute();
+        }
+        await trx
+          .insertInto('revisions')
+          .values({ id: `${passId}-rev-1`, passId, seq: 1, reason: 'created', restoredFrom: null, userId: 'demo-user-owner', createdAt: changed })
+          .execute();
+      }
     }
   });
 }

@@ -7,7 +7,7 @@ import { usePage } from './page-fixture';
 
 const baseUrl = inject('baseUrl');
 const page = usePage();
-const GAG = `${baseUrl}/series/demo-kettle-crab/gags/demo-gag-10`;
+const GAG = `${baseUrl}/series/demo-kettle-crab/gags/demo-gag-12`;
 let passUrl = '';
 let passId = '';
 

@@ -43,6 +43,22 @@ describe.each([
     expect(await page.getByRole('button', { name: 'Delete gag' }).count()).toBe(canDelete ? 1 : 0);
     // The notes are readable either way.
     expect(await page.content()).toContain('Kettle carries it home above his head like a trophy.');
+    // Passes are shown as thumbnails; only drafting roles may start one.
+    expect(await page.getByRole('link', { name: /Open pass 1/ }).count()).toBe(1);
+    expect(await page.getByRole('button', { name: 'New pass' }).count()).toBe(canEdit ? 1 : 0);
+  });
+
+  it(`the sketch editor ${canEdit ? 'offers the drawing tools' : 'opens read-only'}`, async () => {
+    await page.goto(`${GAG}/passes/1`);
+    const canvas = page.getByTestId('sketch-canvas');
+    await canvas.waitFor();
+    expect(Number(await canvas.getAttribute('data-stroke-count'))).toBeGreaterThan(10);
+    expect(await page.getByRole('button', { name: 'Pen (1)' }).count()).toBe(canEdit ? 1 : 0);
+    expect(await page.getByRole('button', { name: 'Hand (pan) (6)' }).count()).toBe(1);
+    if (!canEdit) {
+      await page.getByText('Read-only').waitFor();
+      expect(await page.getByRole('button', { name: 'Restore' }).count()).toBe(0);
+    }
   });
 });
 

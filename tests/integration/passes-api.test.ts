@@ -47,20 +47,20 @@ async function rowCounts() {
 
 describe('passes', () => {
   it('numbers passes 1, 2, 3… and lists them', async () => {
-    const a = await newPass('demo-gag-10');
-    const b = await newPass('demo-gag-10');
+    const a = await newPass('demo-gag-11');
+    const b = await newPass('demo-gag-11');
     expect([a.number, b.number]).toEqual([1, 2]);
-    const list = await callRoute(passesRoute.GET, { as: 'editor', params: { gagId: 'demo-gag-10' } });
+    const list = await callRoute(passesRoute.GET, { as: 'editor', params: { gagId: 'demo-gag-11' } });
     expect(list.body.map((p: { number: number }) => p.number)).toEqual([1, 2]);
   });
 
   it('a new pass can start as a copy of an earlier one', async () => {
-    const p1 = await newPass('demo-gag-08');
+    const p1 = await newPass('demo-gag-12');
     await send(p1.id, 'copy-src', [{ op: 'add', stroke: stroke('s1') }, { op: 'add', stroke: stroke('s2', 3, 90, 100) }]);
-    const p2 = await newPass('demo-gag-08', { copyFrom: 1 });
+    const p2 = await newPass('demo-gag-12', { copyFrom: 1 });
     expect(p2.number).toBe(2);
     expect(ids(await state(p2.id))).toEqual(['s1', 's2']);
-    const missing = await callRoute(passesRoute.POST, { method: 'POST', as: 'owner', params: { gagId: 'demo-gag-08' }, body: { copyFrom: 9 } });
+    const missing = await callRoute(passesRoute.POST, { method: 'POST', as: 'owner', params: { gagId: 'demo-gag-12' }, body: { copyFrom: 9 } });
     expect(missing.status).toBe(422);
   });
 });

@@ -12,9 +12,12 @@ beforeAll(async () => {
 });
 
 async function counts() {
-  const n = async (t: 'users' | 'series' | 'memberships' | 'gags' | 'beats') =>
+  const n = async (t: 'users' | 'series' | 'memberships' | 'gags' | 'beats' | 'passes' | 'strokes') =>
     Number((await db.selectFrom(t).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
-  return { users: await n('users'), series: await n('series'), memberships: await n('memberships'), gags: await n('gags'), beats: await n('beats') };
+  return {
+    users: await n('users'), series: await n('series'), memberships: await n('memberships'), gags: await n('gags'),
+    beats: await n('beats'), passes: await n('passes'), strokes: await n('strokes'),
+  };
 }
 
 describe('migrations and the demo seed', () => {
@@ -29,6 +32,14 @@ describe('migrations and the demo seed', () => {
     expect(c.beats).toBe(DEMO_GAGS.length * 4);
     const statuses = await db.selectFrom('gags').select('status').where('seriesId', '=', 'demo-kettle-crab').distinct().execute();
     expect(new Set(statuses.map((s) => s.status))).toEqual(new Set(GAG_STATUSES));
+  });
+
+  it('gives drafted gags several passes of strokes, and ideas none', async () => {
+    const passes = await db.selectFrom('passes').select(['gagId', 'number']).execute();
+    const of = (gagId: string) => passes.filter((p) => p.gagId === gagId).length;
+    expect(of('demo-gag-11')).toBe(0); // an idea
+    expect(of('demo-gag-05')).toBe(3); // ready to ink after three passes
+    expect((await counts()).strokes).toBeGreaterThan(100);
   });
 
   it('is idempotent, and leaves edited rows alone', async () => {
