@@ -1,0 +1,104 @@
+// npm run bench: speed goals of the sketch editor and its storage, each printed
+// as a ratio of two measurements taken side by side in this one run.
+import { execFileSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { build } from 'esbuild';
+import { closeDb, getDb } from '@/db/client';
+import { createPass, applyBatch, storedPointBytes } from '@/db/queries/passes';
+import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
+import { openBrowser } from '../e2e/browser';
+import { benchStrokes } from './strokes-fixture';
+
+const root = path.resolve(__dirname, '../..');
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+
+async function clientFigures(): Promise<Record<string, number>> {
+  const bundle = await build({
+    entryPoints: [path.join(root, 'tests/bench/client-bench.ts')],
+    bundle: true,
+    write: false,
+    format: 'iife',
+    platform: 'browser',
+    target: 'es2022',
+    tsconfig: path.join(root, 'tsconfig.json'),
+    logLevel: 'error',
+  });
+  const browser = await openBrowser();
+  try {
+    const page = await browser.context.newPage();
+    await page.setContent('<!doctype html><html><body></body></html>');
+    await page.addScriptTag({ content: bundle.outputFiles[0]!.text });
+    return await page.evaluate(() => (window as unknown as { quadrilleBench: { runClientBench: () => Record<string, number> } }).quadrilleBench.runClientBench());
+  } finally {
+    await browser.close();
+  }
+}
+
+async function serverFigures() {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-bench-'));
+  process.env.DATABASE_URL = `file:${path.join(dir, 'bench.sqlite')}`;
+  const db = await getDb();
+  const now = new Date().toISOString();
+  await db.insertInto('users').values({ id: 'u', email: 'bench@quadrille.test', name: 'Bench', passwordHash: 'x', createdAt: now }).execute();
+  await db.insertInto('series').values({ id: 's', title: 'Bench', createdAt: now }).execute();
+  for (const g of ['g0', 'g1']) {
+    await db.insertInto('gags').values({ id: g, seriesId: 's', title: g, premise: '', status: 'idea', position: 1, createdAt: now, updatedAt: now }).execute();
+  }
+  const empty = await createPass(db, { gagId: 'g0', userId: 'u' });
+  const big = await createPass(db, { gagId: 'g1', userId: 'u' });
+  const strokes = benchStrokes(5000);
+  for (let i = 0; i < strokes.length; i += 500) {
+    await applyBatch(db, { passId: big.id, batchId: `fill${i}`, ops: strokes.slice(i, i + 500).map((stroke) => ({ op: 'add', stroke })), userId: 'u', spec: DEFAULT_PAGE_SPEC });
+  }
+  const extra = benchStrokes(200, 42);
+  const one = async (passId: string, i: number) => {
+    const t = performance.now();
+    await applyBatch(db, { passId, batchId: `one-${passId}-${i}`, ops: [{ op: 'add', stroke: { ...extra[i]!, id: `x-${passId}-${i}` } }], userId: 'u', spec: DEFAULT_PAGE_SPEC });
+    return performance.now() - t;
+  };
+  const e: number[] = [];
+  const b: number[] = [];
+  for (let i = 0; i < 100; i++) {
+    e.push(await one(empty.id, i));
+    b.push(await one(big.id, i));
+  }
+  const blob = await storedPointBytes(db, big.id);
+  // The same points as plain JSON, already rounded to what is stored (0.01 mm, pressure to 3 places).
+  const asJson = (ss: typeof extra) =>
+    Buffer.byteLength(JSON.stringify(ss.map((st) => st.points.map(([x, y, p]) => [Math.round(x * 100) / 100, Math.round(y * 100) / 100, Math.round(p * 1000) / 1000]))));
+  const jsonBytes = asJson(benchStrokes(5000)) + asJson(extra.slice(0, 100));
+  await closeDb();
+  fs.rmSync(dir, { recursive: true, force: true });
+  return { serverEmptyMs: median(e), serverBigMs: median(b), blobBytes: blob, jsonBytes };
+}
+
+function row(goal: string, ratio: number, limit: number, detail: string, limitText = String(limit)) {
+  const ok = ratio <= limit;
+  console.log(`${ok ? 'ok  ' : 'FAIL'}  ${goal.padEnd(58)} ${ratio.toFixed(2).padStart(6)}  (goal ≤ ${limitText})  ${detail}`);
+  return ok;
+}
+
+async function main() {
+  execFileSync('bash', [path.join(root, 'tests/ensure-chromium.sh')], { stdio: 'inherit' });
+  console.log('Quadrille bench — 5,000 strokes of 60 points, headless Chromium (software raster) and SQLite\n');
+  const c = await clientFigures();
+  const s = await serverFigures();
+  const ms = (n: number) => `${n.toFixed(2)} ms`;
+  const results = [
+    row('Full re-raster, panel bitmaps ÷ plain Canvas 2D', c.fullRasterOursMs! / c.fullRasterPlainMs!, 1.2, `${ms(c.fullRasterOursMs!)} vs ${ms(c.fullRasterPlainMs!)}`),
+    row('New stroke shown and queued, 5,000 ÷ 0 strokes (client)', c.commitBigMs! / c.commitEmptyMs!, 1.5, `${ms(c.commitBigMs!)} vs ${ms(c.commitEmptyMs!)}`),
+    row('New stroke stored, 5,000 ÷ 0 strokes (server)', s.serverBigMs / s.serverEmptyMs, 1.5, `${ms(s.serverBigMs)} vs ${ms(s.serverEmptyMs)}`),
+    row('Pan/zoom frame, 5,000 ÷ 0 strokes', c.panBigMs! / c.panEmptyMs!, 1.5, `${ms(c.panBigMs!)} vs ${ms(c.panEmptyMs!)}`),
+    row('Panels re-rastered to erase one stroke (of 4)', c.erasePanels!, 1, `${c.eraseHits} stroke(s) hit, ${ms(c.eraseMs!)}`),
+    row('Stored point bytes ÷ plain JSON', s.blobBytes / s.jsonBytes, 1 / 3, `${s.blobBytes.toLocaleString('en')} B vs ${s.jsonBytes.toLocaleString('en')} B`, '1/3'),
+  ];
+  console.log(`\n${results.filter(Boolean).length} passed, ${results.filter((r) => !r).length} failed`);
+  process.exitCode = results.every(Boolean) ? 0 : 1;
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});
