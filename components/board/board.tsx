@@ -169,6 +169,17 @@ export function Board({
 function GagCard({ seriesId, gag }: { seriesId: string; gag: GagDto }) {
   return (
     <article className="panel relative p-3 transition-colors focus-within:border-ink hover:border-ink">
+      {gag.latestPass && (
+        // eslint-disable-next-line @next/next/no-img-element -- a private, per-pass SVG served by our own route
+        <img
+          src={`/api/passes/${gag.latestPass.id}/thumbnail.svg?v=${gag.latestPass.seq}`}
+          alt={`Pass ${gag.latestPass.number} of “${gag.title}”`}
+          width={120}
+          height={120}
+          loading="lazy"
+          className="mb-2 aspect-square w-full rounded border border-paper-edge bg-white"
+        />
+      )}
       <h3 className="font-sans text-base font-bold leading-snug">
         <Link href={`/series/${seriesId}/gags/${gag.id}`} className="after:absolute after:inset-0 focus:outline-none">
           {gag.title}

@@ -454,7 +454,7 @@ export default function Editor(props: EditorProps) {
   const deleteSelection = useCallback(() => {
     const sync = syncRef.current;
     if (!sync) return;
-    if (selectedRoom) {
+    if (selectedRoom && tool === 'room') {
       const room = sync.doc.rooms.get(selectedRoom);
       if (room) {
         commit([{ op: 'unroom', roomId: room.id }]);
@@ -470,7 +470,7 @@ export default function Editor(props: EditorProps) {
       setSelection([]);
     }
     refreshUndo();
-  }, [commit, selectedRoom, selectionStrokes]);
+  }, [commit, selectedRoom, selectionStrokes, tool]);
 
   const copySelectionTo = useCallback((target: number) => {
     const strokes = selectionStrokes();
@@ -530,6 +530,11 @@ export default function Editor(props: EditorProps) {
     tr.nodes(node && tool === 'room' ? [node] : []);
     tr.getLayer()?.batchDraw();
   }, [selectedRoom, rooms, tool]);
+
+  useEffect(() => {
+    if (tool !== 'room') setSelectedRoom(null);
+    if (tool !== 'lasso') setSelection([]);
+  }, [tool]);
 
   // ---------- keyboard ----------
 

@@ -16,6 +16,8 @@ export type GagDto = {
   updatedAt: string;
   beats: BeatDto[];
   beatsWritten: number;
+  /** The newest pass, for the board's thumbnail. */
+  latestPass: { id: string; number: number; seq: number } | null;
 };
 
 type Db = Kysely<Database> | Transaction<Database>;
@@ -24,8 +26,22 @@ function beatOrder(kind: BeatKind): number {
   return BEAT_KINDS.indexOf(kind);
 }
 
-async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten'>[]): Promise<GagDto[]> {
+async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten' | 'latestPass'>[]): Promise<GagDto[]> {
   if (gags.length === 0) return [];
+  const passes = await db
+    .selectFrom('passes')
+    .select(['id', 'gagId', 'number', 'seq'])
+    .where(
+      'gagId',
+      'in',
+      gags.map((g) => g.id),
+    )
+    .execute();
+  const latest = new Map<string, { id: string; number: number; seq: number }>();
+  for (const p of passes) {
+    const cur = latest.get(p.gagId);
+    if (!cur || p.number > cur.number) latest.set(p.gagId, { id: p.id, number: p.number, seq: p.seq });
+  }
   const beats = await db
     .selectFrom('beats')
     .select(['gagId', 'kind', 'note', 'updatedAt'])
@@ -43,7 +59,7 @@ async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten'>[
   }
   return gags.map((g) => {
     const list = (byGag.get(g.id) ?? []).sort((a, b) => beatOrder(a.kind) - beatOrder(b.kind));
-    return { ...g, beats: list, beatsWritten: list.filter((b) => b.note.trim() !== '').length };
+    return { ...g, beats: list, beatsWritten: list.filter((b) => b.note.trim() !== '').length, latestPass: latest.get(g.id) ?? null };
   });
 }
 

@@ -32,7 +32,8 @@ async function seriesAccess(seriesId: string, returnTo: string) {
 
 export async function loadBoard(seriesId: string) {
   const base = await seriesAccess(seriesId, `/series/${seriesId}`);
-  return { ...base, gags: await listGags(await getDb(), seriesId) };
+  const db = await getDb();
+  return { ...base, gags: await listGags(db, seriesId), spec: await pageSpecOf(db, seriesId) };
 }
 
 export async function loadGag(seriesId: string, gagId: string) {

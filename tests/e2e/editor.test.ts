@@ -109,6 +109,37 @@ describe('sketch editor', () => {
   });
 });
 
+describe('lasso', () => {
+  it('selects a stroke, copies it to another panel, and deletes the copy', async () => {
+    await page.keyboard.press('1');
+    await drawStroke(page, 0.27, 0.22, 5);
+    const before = await strokeCount(page);
+    await page.keyboard.press('4');
+    const box = (await page.getByTestId('sketch-canvas').boundingBox())!;
+    const at = (fx: number, fy: number) => [box.x + box.width * fx, box.y + box.height * fy] as const;
+    const loop = [at(0.24, 0.17), at(0.4, 0.17), at(0.4, 0.28), at(0.24, 0.28), at(0.24, 0.17)];
+    await page.mouse.move(...loop[0]!);
+    await page.mouse.down();
+    for (let i = 1; i < loop.length; i++) {
+      const [x0, y0] = loop[i - 1]!;
+      const [x1, y1] = loop[i]!;
+      for (let k = 1; k <= 5; k++) await page.mouse.move(x0 + ((x1 - x0) * k) / 5, y0 + ((y1 - y0) * k) / 5);
+    }
+    await page.mouse.up();
+    const selection = page.getByRole('group', { name: 'Selection' });
+    await selection.getByText('1 selected').waitFor();
+    await selection.getByRole('button', { name: '4 Payoff' }).click();
+    await expect.poll(() => strokeCount(page)).toBe(before + 1);
+    await page.locator('[data-sync-state="saved"]').waitFor();
+    const copies = (await serverStrokes(page)) as unknown as { panel: number }[];
+    expect(copies.filter((s) => s.panel === 3).length).toBeGreaterThanOrEqual(1);
+    await page.keyboard.press('Delete');
+    await expect.poll(() => strokeCount(page)).toBe(before);
+    await page.locator('[data-sync-state="saved"]').waitFor();
+    expect((await serverStrokes(page)).length).toBe(before);
+  });
+});
+
 describe('two people in one pass', () => {
   let other: Awaited<ReturnType<typeof openBrowser>>;
   let page2: Page;
@@ -126,15 +157,16 @@ describe('two people in one pass', () => {
     await page2.goto(passUrl);
     await page.getByTestId('sketch-canvas').waitFor();
     await page2.getByTestId('sketch-canvas').waitFor();
-    await expect.poll(() => strokeCount(page2)).toBe(3);
+    const start = await strokeCount(page);
+    await expect.poll(() => strokeCount(page2)).toBe(start);
     await page.keyboard.press('1');
     await Promise.all([drawStroke(page, 0.3, 0.45), drawStroke(page2, 0.65, 0.45)]);
     await drawStroke(page2, 0.65, 0.8);
-    await expect.poll(() => strokeCount(page), { timeout: 5_000 }).toBe(6);
-    await expect.poll(() => strokeCount(page2), { timeout: 5_000 }).toBe(6);
+    await expect.poll(() => strokeCount(page), { timeout: 5_000 }).toBe(start + 3);
+    await expect.poll(() => strokeCount(page2), { timeout: 5_000 }).toBe(start + 3);
     const a = (await serverStrokes(page)).map((s) => s.id).sort();
     const b = (await serverStrokes(page2)).map((s) => s.id).sort();
     expect(a).toEqual(b);
-    expect(a).toHaveLength(6);
+    expect(a).toHaveLength(start + 3);
   });
 });

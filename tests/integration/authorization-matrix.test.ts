@@ -12,6 +12,7 @@ import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as restoreRoute from '@/app/api/passes/[passId]/revisions/[revisionId]/restore/route';
 import * as revisionsRoute from '@/app/api/passes/[passId]/revisions/route';
 import * as passRoute from '@/app/api/passes/[passId]/route';
+import * as thumbRoute from '@/app/api/passes/[passId]/thumbnail.svg/route';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
 import { applyBatch, createPass } from '@/db/queries/passes';
@@ -115,6 +116,11 @@ const ROUTES: RouteCase[] = [
   },
   {
     route: 'GET /api/passes/:passId', handler: passRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { passId: (await newPass()).passId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/passes/:passId/thumbnail.svg', handler: thumbRoute.GET, method: 'GET',
     prepare: async () => ({ params: { passId: (await newPass()).passId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },

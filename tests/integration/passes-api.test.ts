@@ -4,6 +4,7 @@ import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as restoreRoute from '@/app/api/passes/[passId]/revisions/[revisionId]/restore/route';
 import * as revisionsRoute from '@/app/api/passes/[passId]/revisions/route';
 import * as passRoute from '@/app/api/passes/[passId]/route';
+import * as thumbRoute from '@/app/api/passes/[passId]/thumbnail.svg/route';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { applyBatch, storedPointBytes } from '@/db/queries/passes';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
@@ -169,6 +170,19 @@ describe('operations', () => {
     await send(p.id, 'json-size', strokes.map((s) => ({ op: 'add', stroke: s })));
     const json = JSON.stringify((await state(p.id)).strokes.map((s) => s.points)).length;
     expect((await storedPointBytes(db, p.id)) * 3).toBeLessThanOrEqual(json);
+  });
+});
+
+describe('thumbnails', () => {
+  it('an SVG page with one clipped path per live stroke', async () => {
+    const p = await newPass();
+    await send(p.id, 't-1', [{ op: 'add', stroke: stroke('t1', 0) }, { op: 'add', stroke: stroke('t2', 3, 90, 100) }, { op: 'add', stroke: stroke('t3', 1, 80) }]);
+    await send(p.id, 't-2', [{ op: 'remove', strokeId: 't3' }]);
+    const r = await callRoute(thumbRoute.GET, { as: 'viewer', params: { passId: p.id } });
+    expect(r.status).toBe(200);
+    expect(r.body).toMatch(/^<svg /);
+    expect(r.body.match(/<path /g)).toHaveLength(2);
+    expect(r.body).toContain('clip-path="url(#p-c3)"');
   });
 });
 

@@ -27,5 +27,6 @@ export async function callRoute(
   const req = new Request(`http://localhost${opts.url ?? '/'}`, { method: opts.method ?? 'GET', headers, body });
   const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
   const text = await res.text();
-  return { status: res.status, body: text ? JSON.parse(text) : null };
+  const json = (res.headers.get('content-type') ?? '').includes('json');
+  return { status: res.status, body: text && json ? JSON.parse(text) : text || null };
 }

@@ -1,5 +1,7 @@
 import type { Metadata } from 'next';
 import { Board } from '@/components/board/board';
+import { PageSpecForm } from '@/components/series/page-spec-form';
+import { can } from '@/lib/auth/permissions';
 import { loadBoard } from '@/lib/data/studio';
 
 export const metadata: Metadata = { title: 'Board' };
@@ -7,6 +9,11 @@ export const dynamic = 'force-dynamic';
 
 export default async function BoardPage({ params }: { params: Promise<{ seriesId: string }> }) {
   const { seriesId } = await params;
-  const { series, role, gags } = await loadBoard(seriesId);
-  return <Board seriesId={series.id} seriesTitle={series.title} role={role} initialGags={gags} />;
+  const { series, role, gags, spec } = await loadBoard(seriesId);
+  return (
+    <div className="space-y-6">
+      <Board seriesId={series.id} seriesTitle={series.title} role={role} initialGags={gags} />
+      <PageSpecForm seriesId={series.id} initial={spec} canEdit={can(role, 'manage')} />
+    </div>
+  );
 }
