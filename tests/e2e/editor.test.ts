@@ -106,6 +106,19 @@ describe('sketch editor', () => {
     const rooms = await page.evaluate(async (id) => (await (await fetch(`/api/passes/${id}`)).json()).rooms, passId);
     expect(rooms).toHaveLength(1);
     expect(rooms[0].panel).toBe(1);
+
+    // Drag the room by its middle: it moves, and the move is saved.
+    const box = (await page.getByTestId('sketch-canvas').boundingBox())!;
+    const cx = box.x + box.width * 0.55 + 45;
+    const cy = box.y + box.height * 0.25 + 20;
+    await page.mouse.move(cx, cy);
+    await page.mouse.down();
+    for (let i = 1; i <= 6; i++) await page.mouse.move(cx + i * 5, cy + i * 2);
+    await page.mouse.up();
+    await expect
+      .poll(async () => (await page.evaluate(async (id) => (await (await fetch(`/api/passes/${id}`)).json()).rooms, passId))[0].x, { timeout: 5_000 })
+      .toBeGreaterThan(rooms[0].x + 3);
+    expect(Number(await page.getByTestId('sketch-canvas').getAttribute('data-room-count'))).toBe(1);
   });
 });
 
