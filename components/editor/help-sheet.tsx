@@ -1,6 +1,6 @@
 'use client';
-import { useEffect, useRef } from 'react';
 import { Button } from '@/components/ui/button';
+import { Modal } from '@/components/ui/modal';
 
 // Quadrille's own shortcut map: tools on the number keys in toolbar order.
 export const SHORTCUTS: [string, string][] = [
@@ -21,43 +21,26 @@ export const SHORTCUTS: [string, string][] = [
 ];
 
 export function HelpSheet({ open, onClose }: { open: boolean; onClose: () => void }) {
-  const ref = useRef<HTMLDialogElement>(null);
-  useEffect(() => {
-    const d = ref.current;
-    if (!d) return;
-    if (open && !d.open) d.showModal();
-    if (!open && d.open) d.close();
-  }, [open]);
   return (
-    <dialog
-      ref={ref}
-      aria-labelledby="help-title"
-      onCancel={(e) => {
-        e.preventDefault();
-        onClose();
-      }}
-      className="w-[min(34rem,94vw)] rounded-lg border border-paper-edge bg-paper p-0 text-graphite backdrop:bg-graphite/40"
-    >
-      <div className="space-y-3 p-5">
-        <h2 id="help-title" className="text-xl font-extrabold">
-          Keyboard shortcuts
-        </h2>
-        <table className="w-full text-sm">
-          <tbody>
-            {SHORTCUTS.map(([keys, what]) => (
-              <tr key={keys} className="border-b border-paper-edge/60 last:border-0">
-                <th scope="row" className="whitespace-nowrap py-1 pr-4 text-left font-mono text-xs">
-                  {keys}
-                </th>
-                <td className="py-1">{what}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-        <div className="flex justify-end">
-          <Button onClick={onClose}>Close</Button>
-        </div>
+    <Modal open={open} onClose={onClose} labelledBy="help-title" width="34rem">
+      <h2 id="help-title" className="text-xl font-extrabold">
+        Keyboard shortcuts
+      </h2>
+      <table className="w-full text-sm">
+        <tbody>
+          {SHORTCUTS.map(([keys, what]) => (
+            <tr key={keys} className="border-b border-paper-edge/60 last:border-0">
+              <th scope="row" className="whitespace-nowrap py-1 pr-4 text-left font-mono text-xs">
+                {keys}
+              </th>
+              <td className="py-1">{what}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <div className="flex justify-end">
+        <Button onClick={onClose}>Close</Button>
       </div>
-    </dialog>
+    </Modal>
   );
 }
