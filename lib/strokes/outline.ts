@@ -12,10 +12,19 @@ const OPTIONS: Record<StrokeTool, Parameters<typeof getStroke>[1]> = {
   tone: { thinning: 0, smoothing: 0.6, streamline: 0.45, simulatePressure: false },
 };
 
+/**
+ * perfect-freehand works in screen-pixel-like units (it pads a single point by
+ * one unit, for instance), so outlines are computed at 100 units per mm and
+ * scaled back: a dot of size d comes out a disc of diameter d.
+ */
+const UNITS_PER_MM = 100;
+
 export function outlineOf(stroke: Pick<Stroke, 'tool' | 'size' | 'points'>, last = true): Polygon {
   const pts = stroke.points;
   if (pts.length === 0) return [];
-  return getStroke(pts as Point[], { ...OPTIONS[stroke.tool], size: stroke.size, last }) as Polygon;
+  const scaled = pts.map(([x, y, p]) => [x * UNITS_PER_MM, y * UNITS_PER_MM, p] as Point);
+  const outline = getStroke(scaled, { ...OPTIONS[stroke.tool], size: stroke.size * UNITS_PER_MM, last });
+  return outline.map(([x, y]) => [x! / UNITS_PER_MM, y! / UNITS_PER_MM]);
 }
 
 const avg = (a: number, b: number) => (a + b) / 2;
