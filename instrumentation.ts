@@ -1,7 +1,18 @@
-// Runs once when the server starts: apply pending migrations before any request.
+// Runs once when the server starts: apply pending migrations before any request,
+// and, without SMTP_URL, start the local SMTP fake that /dev/mail reads.
 export async function register() {
-  if (process.env.NEXT_RUNTIME === 'nodejs') {
-    const { getDb } = await import('./db/client');
-    await getDb();
+  if (process.env.NEXT_RUNTIME !== 'nodejs') return;
+  const { getDb } = await import('./db/client');
+  await getDb();
+  if (!process.env.SMTP_URL && process.env.MAIL_FAKE !== 'off') {
+    const { startFakeSmtp } = await import('./lib/mail/fake-server');
+    const port = Number(process.env.MAIL_FAKE_PORT || 2525);
+    try {
+      await startFakeSmtp(port);
+      console.log(`[mail] local SMTP fake on 127.0.0.1:${port}; caught mail at /dev/mail`);
+    } catch (err) {
+      const code = (err as { code?: string }).code;
+      console.log(code === 'EADDRINUSE' ? `[mail] port ${port} busy: using the SMTP fake already there` : `[mail] SMTP fake not started: ${String(err)}`);
+    }
   }
 }

@@ -13,6 +13,8 @@ export interface UsersTable {
   email: string;
   name: string;
   passwordHash: string;
+  /** 1 = send me e-mail notifications (mentions, stamps on my gags). */
+  notifyEmail: ColumnType<number, number | undefined, number>;
   createdAt: Timestamp;
 }
 
@@ -21,6 +23,8 @@ export interface SeriesTable {
   title: string;
   /** JSON of a PageSpec; null means the default spec. */
   pageSpec: ColumnType<string | null, string | null | undefined, string | null>;
+  /** Ink load above this share of a panel is flagged (default 0.35). */
+  inkThreshold: ColumnType<number, number | undefined, number>;
   createdAt: Timestamp;
 }
 
@@ -39,6 +43,8 @@ export interface GagsTable {
   status: GagStatus;
   /** Order on the board; fractional so a move rewrites one row. */
   position: number;
+  /** Who started the gag: told when it is stamped. */
+  createdBy: ColumnType<string | null, string | null | undefined, string | null>;
   createdAt: Timestamp;
   updatedAt: Timestamp;
 }
@@ -149,6 +155,99 @@ export interface RevisionsTable {
 
 export type RevisionReason = 'created' | 'copied' | 'pause' | 'steady' | 'before-restore' | 'restore';
 
+export interface ChecklistItemsTable {
+  id: string;
+  seriesId: string;
+  text: string;
+  position: number;
+  createdAt: Timestamp;
+  removedAt: Timestamp | null;
+}
+
+export interface ChecklistTicksTable {
+  passId: string;
+  itemId: string;
+  userId: string;
+  tickedAt: Timestamp;
+}
+
+export type StampDecision = 'ready' | 'again';
+
+export interface StampsTable {
+  id: string;
+  passId: string;
+  gagId: string;
+  decision: StampDecision;
+  note: string;
+  /** The pass's sequence number the stamp approved. */
+  passSeq: number;
+  userId: string;
+  createdAt: Timestamp;
+  clearedAt: Timestamp | null;
+  clearedSeq: number | null;
+}
+
+export type CommentTarget = 'gag' | 'pass' | 'panel' | 'beat' | 'point';
+
+export interface CommentsTable {
+  id: string;
+  gagId: string;
+  parentId: string | null;
+  target: CommentTarget;
+  passId: string | null;
+  panel: number | null;
+  beat: BeatKind | null;
+  x: number | null;
+  y: number | null;
+  body: string;
+  authorId: string;
+  createdAt: Timestamp;
+  editedAt: Timestamp | null;
+  resolvedAt: Timestamp | null;
+  resolvedBy: string | null;
+}
+
+export interface ActivityTable {
+  id: Generated<number>;
+  seriesId: string;
+  gagId: string | null;
+  passId: string | null;
+  userId: string | null;
+  kind: string;
+  summary: string;
+  createdAt: Timestamp;
+}
+
+export interface InvitationsTable {
+  id: string;
+  tokenHash: string;
+  seriesId: string;
+  email: string;
+  role: Role;
+  invitedBy: string;
+  createdAt: Timestamp;
+  expiresAt: Timestamp;
+  acceptedAt: Timestamp | null;
+  acceptedBy: string | null;
+  revokedAt: Timestamp | null;
+}
+
+export interface MailLogTable {
+  id: Generated<number>;
+  to: string;
+  subject: string;
+  kind: string;
+  messageId: string | null;
+  error: string | null;
+  createdAt: Timestamp;
+}
+
+export interface PresenceTable {
+  scope: string;
+  userId: string;
+  seenAt: Timestamp;
+}
+
 export interface Database {
   users: UsersTable;
   series: SeriesTable;
@@ -164,6 +263,14 @@ export interface Database {
   roomTombstones: RoomTombstonesTable;
   passBatches: PassBatchesTable;
   revisions: RevisionsTable;
+  checklistItems: ChecklistItemsTable;
+  checklistTicks: ChecklistTicksTable;
+  stamps: StampsTable;
+  comments: CommentsTable;
+  activity: ActivityTable;
+  invitations: InvitationsTable;
+  mailLog: MailLogTable;
+  presence: PresenceTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -3,6 +3,7 @@
 import type { Kysely, Transaction } from 'kysely';
 import { BEAT_KINDS, type BeatKind, type GagStatus } from '@/lib/gags/status';
 import type { Database } from '../database';
+import { recordActivity } from './activity';
 
 export type BeatDto = { kind: BeatKind; note: string; updatedAt: string };
 export type GagDto = {
@@ -99,7 +100,7 @@ export async function seriesOfGag(db: Db, gagId: string): Promise<string | null>
 /** Appends a gag at the end of the board with four empty beats. */
 export async function createGag(
   db: Kysely<Database>,
-  input: { id: string; seriesId: string; title: string; premise: string; status?: GagStatus; notes?: Partial<Record<BeatKind, string>>; now?: string },
+  input: { id: string; seriesId: string; title: string; premise: string; status?: GagStatus; notes?: Partial<Record<BeatKind, string>>; now?: string; createdBy?: string },
 ): Promise<GagDto> {
   const now = input.now ?? new Date().toISOString();
   await db.transaction().execute(async (trx) => {
@@ -118,10 +119,14 @@ export async function createGag(
         premise: input.premise,
         status: input.status ?? 'idea',
         position,
+        createdBy: input.createdBy ?? null,
         createdAt: now,
         updatedAt: now,
       })
       .execute();
+    if (input.createdBy) {
+      await recordActivity(trx, { seriesId: input.seriesId, gagId: input.id, userId: input.createdBy, kind: 'gag.created', summary: `added the gag “${input.title}”` });
+    }
     await trx
       .insertInto('beats')
       .values(BEAT_KINDS.map((kind) => ({ gagId: input.id, kind, note: input.notes?.[kind] ?? '', updatedAt: now })))
@@ -138,6 +143,16 @@ export async function updateGag(
   patch: { title?: string; premise?: string; status?: GagStatus; beats?: { kind: BeatKind; note: string }[] },
 ): Promise<void> {
   const now = new Date().toISOString();
+  if (patch.status && ['idea', 'thumbnailing', 'in_review'].includes(patch.status)) {
+    // Pulled back to drafting by hand: a standing "ready to ink" stamp no longer holds.
+    await trx
+      .updateTable('stamps')
+      .set({ clearedAt: now })
+      .where('gagId', '=', gagId)
+      .where('decision', '=', 'ready')
+      .where('clearedAt', 'is', null)
+      .execute();
+  }
   const { beats, ...fields } = patch;
   for (const beat of beats ?? []) {
     await trx

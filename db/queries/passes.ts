@@ -12,6 +12,8 @@ import { decodePoints, encodePoints } from '@/lib/strokes/codec';
 import { pointsBounds } from '@/lib/strokes/hit';
 import { type Op, type Room, type Stroke, translatePoints } from '@/lib/strokes/types';
 import type { Database, RevisionReason } from '../database';
+import { recordActivity } from './activity';
+import { clearStampOnChange } from './stamps';
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -268,6 +270,15 @@ export async function createPass(
       await trx.insertInto('rooms').values({ passId: id, roomId: r.id, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: 1, removedSeq: null }).execute();
     }
     await addRevision(trx, id, seq, input.copyFrom !== undefined ? 'copied' : 'created', input.userId);
+    const gag = await trx.selectFrom('gags').select(['seriesId', 'title']).where('id', '=', input.gagId).executeTakeFirstOrThrow();
+    await recordActivity(trx, {
+      seriesId: gag.seriesId,
+      gagId: input.gagId,
+      passId: id,
+      userId: input.userId,
+      kind: 'pass.created',
+      summary: `started pass ${number} of “${gag.title}”${input.copyFrom !== undefined ? ` from pass ${input.copyFrom}` : ''}`,
+    });
     return { id, number };
   });
 }
@@ -391,6 +402,7 @@ export async function applyBatch(
       await addRevision(trx, input.passId, seq, 'steady', input.userId);
     }
 
+    await clearStampOnChange(trx, input.passId, seq, input.userId);
     const result = { seq };
     await trx.updateTable('passes').set({ seq, updatedAt: now.toISOString() }).where('id', '=', input.passId).execute();
     await trx
@@ -481,7 +493,22 @@ export async function restoreRevision(
 
     const now = new Date().toISOString();
     await trx.updateTable('passes').set({ seq, updatedAt: now }).where('id', '=', input.passId).execute();
+    await clearStampOnChange(trx, input.passId, seq, input.userId);
     const revisionId = await addRevision(trx, input.passId, seq, 'restore', input.userId, rev.id);
+    const info = await trx
+      .selectFrom('passes as p')
+      .innerJoin('gags as g', 'g.id', 'p.gagId')
+      .select(['g.seriesId', 'g.id as gagId', 'g.title', 'p.number'])
+      .where('p.id', '=', input.passId)
+      .executeTakeFirstOrThrow();
+    await recordActivity(trx, {
+      seriesId: info.seriesId,
+      gagId: info.gagId,
+      passId: input.passId,
+      userId: input.userId,
+      kind: 'pass.restored',
+      summary: `restored pass ${info.number} of “${info.title}” to revision #${rev.seq}`,
+    });
     const result = { seq };
     await trx
       .insertInto('passBatches')

@@ -151,7 +151,7 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
       const changed = at(24 * i + 30 + ((i * 7) % 11) * 5);
       await trx
         .insertInto('gags')
-        .values({ id: g.id, seriesId: g.seriesId, title: g.title, premise: g.premise, status: g.status, position: i, createdAt: created, updatedAt: changed })
+        .values({ id: g.id, seriesId: g.seriesId, title: g.title, premise: g.premise, status: g.status, position: i, createdBy: g.seriesId === DEMO_SERIES_ID ? 'demo-user-owner' : 'demo-user-outsider', createdAt: created, updatedAt: changed })
         .onConflict((oc) => oc.doNothing())
         .execute();
       await trx

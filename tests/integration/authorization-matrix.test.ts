@@ -13,6 +13,8 @@ import * as restoreRoute from '@/app/api/passes/[passId]/revisions/[revisionId]/
 import * as revisionsRoute from '@/app/api/passes/[passId]/revisions/route';
 import * as passRoute from '@/app/api/passes/[passId]/route';
 import * as thumbRoute from '@/app/api/passes/[passId]/thumbnail.svg/route';
+import * as stampRoute from '@/app/api/passes/[passId]/stamp/route';
+import * as activityRoute from '@/app/api/series/[seriesId]/activity/route';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
 import { applyBatch, createPass } from '@/db/queries/passes';
@@ -120,6 +122,16 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
+    route: 'POST /api/passes/:passId/stamp', handler: stampRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { passId: (await newPass()).passId }, body: { decision: 'ready', note: 'Reads.' } }),
+    expected: row(401, 403, 201, 403, 201, 404),
+  },
+  {
+    route: 'GET /api/series/:seriesId/activity', handler: activityRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
     route: 'GET /api/passes/:passId/thumbnail.svg', handler: thumbRoute.GET, method: 'GET',
     prepare: async () => ({ params: { passId: (await newPass()).passId } }),
     expected: row(401, 200, 200, 200, 200, 404),
@@ -154,6 +166,7 @@ async function snapshot() {
     passes: await db.selectFrom('passes').selectAll().orderBy('id').execute(),
     strokes: await db.selectFrom('strokes').select(['rowId', 'passId', 'strokeId', 'ox', 'oy', 'addedSeq', 'removedSeq']).orderBy('rowId').execute(),
     revisions: await db.selectFrom('revisions').selectAll().orderBy('id').execute(),
+    stamps: await db.selectFrom('stamps').selectAll().orderBy('id').execute(),
   });
 }
 

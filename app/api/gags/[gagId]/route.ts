@@ -1,3 +1,4 @@
+import { recordActivity } from '@/db/queries/activity';
 import { deleteGag, findGag, seriesOfGag, updateGag } from '@/db/queries/gags';
 import { checkManualMove } from '@/lib/gags/status';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
@@ -28,7 +29,11 @@ export const PATCH = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, 
 });
 
 /** Owners only: deleting is part of "manage". */
-export const DELETE = withSeriesRole<Params>('manage', seriesOf, async ({ db, params }) => {
-  await deleteGag(db, params.gagId);
+export const DELETE = withSeriesRole<Params>('manage', seriesOf, async ({ db, params, seriesId, user }) => {
+  const gag = await findGag(db, params.gagId);
+  await db.transaction().execute(async (trx) => {
+    await deleteGag(trx, params.gagId);
+    await recordActivity(trx, { seriesId, userId: user.id, kind: 'gag.deleted', summary: `deleted the gag “${gag?.title ?? ''}”` });
+  });
   return new Response(null, { status: 204 });
 });

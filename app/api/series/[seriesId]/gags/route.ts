@@ -11,8 +11,8 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesI
   Response.json(await listGags(db, seriesId)),
 );
 
-export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, seriesId }) => {
+export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, seriesId, user }) => {
   const input = await parseBody(req, createGagSchema);
-  const gag = await createGag(db, { id: randomUUID(), seriesId, title: input.title, premise: input.premise });
+  const gag = await createGag(db, { id: randomUUID(), seriesId, title: input.title, premise: input.premise, createdBy: user.id });
   return Response.json(gag, { status: 201 });
 });

@@ -1,0 +1,21 @@
+import { seriesOfPass } from '@/db/queries/passes';
+import { StampRefused, stampPass } from '@/db/queries/stamps';
+import { notifyStamp } from '@/lib/mail/notify';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { stampSchema } from '@/lib/validation/review';
+
+type Params = { passId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+
+/** Editors and owners: `{ decision: "ready" | "again", note }`. */
+export const POST = withSeriesRole<Params>('stamp', seriesOf, async ({ req, db, params, user }) => {
+  const input = await parseBody(req, stampSchema);
+  try {
+    const stamp = await stampPass(db, { passId: params.passId, userId: user.id, decision: input.decision, note: input.note });
+    await notifyStamp(db, { stampId: stamp.id, by: user });
+    return Response.json(stamp, { status: 201 });
+  } catch (err) {
+    if (err instanceof StampRefused) throw new HttpError(409, err.message);
+    throw err;
+  }
+});

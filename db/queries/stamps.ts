@@ -1,0 +1,132 @@
+// The editor's stamp on a pass: "ready to ink" names the exact pass and its
+// sequence number; any later change to that pass clears it and puts the gag
+// back "in review".
+import { randomUUID } from 'node:crypto';
+import type { Kysely, Transaction } from 'kysely';
+import type { Database, StampDecision } from '../database';
+import { recordActivity } from './activity';
+
+type Db = Kysely<Database> | Transaction<Database>;
+
+export class StampRefused extends Error {}
+
+export type StampDto = {
+  id: string;
+  passId: string;
+  passNumber: number;
+  decision: StampDecision;
+  note: string;
+  passSeq: number;
+  by: string;
+  createdAt: string;
+  clearedAt: string | null;
+  clearedSeq: number | null;
+};
+
+const STAMPABLE = new Set(['idea', 'thumbnailing', 'in_review', 'ready_to_ink']);
+
+export async function stampPass(
+  db: Kysely<Database>,
+  input: { passId: string; userId: string; decision: StampDecision; note: string },
+): Promise<StampDto> {
+  const id = await db.transaction().execute(async (trx) => {
+    const pass = await trx
+      .selectFrom('passes as p')
+      .innerJoin('gags as g', 'g.id', 'p.gagId')
+      .select(['p.id', 'p.number', 'p.seq', 'p.gagId', 'g.status', 'g.seriesId', 'g.title'])
+      .where('p.id', '=', input.passId)
+      .executeTakeFirstOrThrow();
+    if (!STAMPABLE.has(pass.status)) {
+      throw new StampRefused(`This gag is already past "ready to ink" (it is ${pass.status.replace(/_/g, ' ')}); move it back before stamping a pass.`);
+    }
+    const now = new Date().toISOString();
+    // A new stamp supersedes any "ready" stamp still standing on this gag.
+    await trx
+      .updateTable('stamps')
+      .set({ clearedAt: now })
+      .where('gagId', '=', pass.gagId)
+      .where('decision', '=', 'ready')
+      .where('clearedAt', 'is', null)
+      .execute();
+    const stampId = randomUUID();
+    await trx
+      .insertInto('stamps')
+      .values({ id: stampId, passId: pass.id, gagId: pass.gagId, decision: input.decision, note: input.note, passSeq: pass.seq, userId: input.userId, createdAt: now, clearedAt: null, clearedSeq: null })
+      .execute();
+    await trx
+      .updateTable('gags')
+      .set({ status: input.decision === 'ready' ? 'ready_to_ink' : 'thumbnailing', updatedAt: now })
+      .where('id', '=', pass.gagId)
+      .execute();
+    await recordActivity(trx, {
+      seriesId: pass.seriesId,
+      gagId: pass.gagId,
+      passId: pass.id,
+      userId: input.userId,
+      kind: input.decision === 'ready' ? 'stamp.ready' : 'stamp.again',
+      summary:
+        input.decision === 'ready'
+          ? `stamped pass ${pass.number} of “${pass.title}” ready to ink`
+          : `asked for another pass of “${pass.title}” (after pass ${pass.number})`,
+    });
+    return stampId;
+  });
+  return (await stampById(db, id))!;
+}
+
+async function stampById(db: Db, id: string): Promise<StampDto | undefined> {
+  return db
+    .selectFrom('stamps as s')
+    .innerJoin('passes as p', 'p.id', 's.passId')
+    .innerJoin('users as u', 'u.id', 's.userId')
+    .select(['s.id', 's.passId', 'p.number as passNumber', 's.decision', 's.note', 's.passSeq', 'u.name as by', 's.createdAt', 's.clearedAt', 's.clearedSeq'])
+    .where('s.id', '=', id)
+    .executeTakeFirst();
+}
+
+export async function stampsOfGag(db: Db, gagId: string): Promise<StampDto[]> {
+  return db
+    .selectFrom('stamps as s')
+    .innerJoin('passes as p', 'p.id', 's.passId')
+    .innerJoin('users as u', 'u.id', 's.userId')
+    .select(['s.id', 's.passId', 'p.number as passNumber', 's.decision', 's.note', 's.passSeq', 'u.name as by', 's.createdAt', 's.clearedAt', 's.clearedSeq'])
+    .where('s.gagId', '=', gagId)
+    .orderBy('s.createdAt', 'desc')
+    .execute();
+}
+
+/**
+ * Called in the transaction of every change to a pass: a "ready" stamp that
+ * approved an earlier state of this pass is cleared, and the gag goes back to
+ * "in review". One indexed lookup per batch.
+ */
+export async function clearStampOnChange(trx: Transaction<Database>, passId: string, seq: number, userId: string | null): Promise<boolean> {
+  const stamp = await trx
+    .selectFrom('stamps')
+    .select(['id', 'gagId', 'passSeq'])
+    .where('passId', '=', passId)
+    .where('decision', '=', 'ready')
+    .where('clearedAt', 'is', null)
+    .executeTakeFirst();
+  if (!stamp || stamp.passSeq >= seq) return false;
+  const now = new Date().toISOString();
+  await trx.updateTable('stamps').set({ clearedAt: now, clearedSeq: seq }).where('id', '=', stamp.id).execute();
+  const gag = await trx
+    .selectFrom('gags as g')
+    .innerJoin('passes as p', 'p.gagId', 'g.id')
+    .select(['g.id', 'g.status', 'g.seriesId', 'g.title', 'p.number'])
+    .where('p.id', '=', passId)
+    .executeTakeFirstOrThrow();
+  if (gag.status === 'ready_to_ink') {
+    await trx.updateTable('gags').set({ status: 'in_review', updatedAt: now }).where('id', '=', gag.id).execute();
+  }
+  await recordActivity(trx, {
+    seriesId: gag.seriesId,
+    gagId: gag.id,
+    passId,
+    userId,
+    kind: 'stamp.cleared',
+    summary: `changed pass ${gag.number} of “${gag.title}” after its “ready to ink” stamp: the stamp is cleared and the gag is back in review`,
+  });
+  return true;
+}

@@ -1,0 +1,56 @@
+// Review-loop input: stamps, checklist ticks and items, comments.
+import { z } from 'zod';
+import { BEAT_KINDS } from '@/lib/gags/status';
+
+export const stampSchema = z
+  .object({
+    decision: z.enum(['ready', 'again'], { error: 'The decision is "ready" or "again".' }),
+    note: z.string().trim().max(1000, 'Keep the note under 1,000 characters.').default(''),
+  })
+  .strict();
+
+export const checklistPutSchema = z
+  .object({
+    /** Items ticked on this pass; anything not listed is unticked. */
+    ticked: z.array(z.string().min(1).max(64)).max(100),
+  })
+  .strict();
+
+export const checklistItemsSchema = z
+  .object({
+    items: z
+      .array(z.object({ id: z.string().min(1).max(64).optional(), text: z.string().trim().min(1, 'An item needs words.').max(200) }))
+      .max(40, 'At most 40 items.'),
+  })
+  .strict();
+
+export const commentCreateSchema = z
+  .object({
+    body: z.string().trim().min(1, 'Write something first.').max(4000, 'Keep a comment under 4,000 characters.'),
+    parentId: z.string().min(1).max(64).optional(),
+    target: z.enum(['gag', 'pass', 'panel', 'beat', 'point']).default('gag'),
+    passId: z.string().min(1).max(64).optional(),
+    panel: z.number().int().min(0).max(3).optional(),
+    beat: z.enum(BEAT_KINDS).optional(),
+    x: z.number().optional(),
+    y: z.number().optional(),
+  })
+  .strict()
+  .superRefine((c, ctx) => {
+    const need = (cond: boolean, message: string) => {
+      if (!cond) ctx.addIssue({ code: 'custom', message });
+    };
+    if (c.parentId) return; // a reply takes its thread's pin
+    if (c.target === 'pass' || c.target === 'panel' || c.target === 'point') need(!!c.passId, `A ${c.target} comment names its pass.`);
+    if (c.target === 'panel' || c.target === 'point') need(c.panel !== undefined, `A ${c.target} comment names its panel (0–3).`);
+    if (c.target === 'point') need(c.x !== undefined && c.y !== undefined, 'A point comment gives x and y in mm.');
+    if (c.target === 'beat') need(!!c.beat, 'A beat comment names its beat.');
+  });
+
+export const commentPatchSchema = z
+  .object({
+    body: z.string().trim().min(1).max(4000).optional(),
+    resolved: z.boolean().optional(),
+  })
+  .strict()
+  .refine((v) => v.body !== undefined || v.resolved !== undefined, 'Send a new body or resolved: true/false.');

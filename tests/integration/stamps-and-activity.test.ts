@@ -1,0 +1,100 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import * as gagRoute from '@/app/api/gags/[gagId]/route';
+import * as passesRoute from '@/app/api/gags/[gagId]/passes/route';
+import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
+import * as restoreRoute from '@/app/api/passes/[passId]/revisions/[revisionId]/restore/route';
+import * as stampRoute from '@/app/api/passes/[passId]/stamp/route';
+import * as activityRoute from '@/app/api/series/[seriesId]/activity/route';
+import { listRevisions } from '@/db/queries/passes';
+import { callRoute } from '../support/call-route';
+import { startMailFake } from '../support/mail-fake';
+import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
+
+let db: Awaited<ReturnType<typeof freshDb>>;
+let mail: Awaited<ReturnType<typeof startMailFake>>;
+beforeAll(async () => {
+  mail = await startMailFake();
+  db = await freshDb();
+});
+afterAll(async () => {
+  await mail?.stop();
+});
+
+const line = (id: string) => ({ id, panel: 0, tool: 'pen', grey: 100, size: 0.6, points: [[10, 10, 0.5], [20, 12, 0.5]] });
+
+async function gagWithPass(gagId: string) {
+  const p = await callRoute(passesRoute.POST, { method: 'POST', as: 'cocreator', params: { gagId }, body: {} });
+  await callRoute(opsRoute.POST, { method: 'POST', as: 'cocreator', params: { passId: p.body.id }, body: { batchId: `first-${gagId}`, ops: [{ op: 'add', stroke: line('a') }] } });
+  return p.body.id as string;
+}
+const gagStatus = async (gagId: string) => (await callRoute(gagRoute.GET, { as: 'owner', params: { gagId } })).body.status;
+const stamp = (passId: string, as: Persona, decision: string, note = '') =>
+  callRoute(stampRoute.POST, { method: 'POST', as, params: { passId }, body: { decision, note } });
+
+describe('the stamp', () => {
+  it('an editor stamps a pass ready to ink: the gag is ready, naming the pass and its seq', async () => {
+    const passId = await gagWithPass('demo-gag-07');
+    const r = await stamp(passId, 'editor', 'ready', 'Reads at a glance.');
+    expect(r.status).toBe(201);
+    expect(r.body).toMatchObject({ decision: 'ready', passSeq: 1, passNumber: 3, by: 'Ivo Sand', clearedAt: null });
+    expect(await gagStatus('demo-gag-07')).toBe('ready_to_ink');
+  });
+
+  it('the gag’s author gets the stamp by e-mail, through the SMTP fake', async () => {
+    await expect.poll(async () => (await mail.read()).map((m) => m.subject)).toContain('“Sugar Cube” is ready to ink');
+    const m = (await mail.read()).find((x) => x.subject === '“Sugar Cube” is ready to ink')!;
+    expect(m.to).toBe('owner@quadrille.test');
+    expect(m.text).toContain('Ivo Sand stamped pass 3 of “Sugar Cube”: is ready to ink.');
+    expect(m.html).toContain('Reads at a glance.');
+  });
+
+  it('a later change to that pass clears the stamp and puts the gag back in review', async () => {
+    const passId = await gagWithPass('demo-gag-08');
+    await stamp(passId, 'owner', 'ready');
+    expect(await gagStatus('demo-gag-08')).toBe('ready_to_ink');
+    await callRoute(opsRoute.POST, { method: 'POST', as: 'cocreator', params: { passId }, body: { batchId: 'later', ops: [{ op: 'add', stroke: line('b') }] } });
+    expect(await gagStatus('demo-gag-08')).toBe('in_review');
+    const stamps = await db.selectFrom('stamps').selectAll().where('passId', '=', passId).execute();
+    expect(stamps[0]).toMatchObject({ clearedSeq: 2 });
+    const feed = await callRoute(activityRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } });
+    expect(feed.body.items[0]).toMatchObject({ kind: 'stamp.cleared', by: 'Tam Quill' });
+  });
+
+  it('a restore is a change too', async () => {
+    const passId = await gagWithPass('demo-gag-09');
+    const [created] = (await listRevisions(db, passId)).filter((r) => r.reason === 'created');
+    await stamp(passId, 'editor', 'ready');
+    await callRoute(restoreRoute.POST, { method: 'POST', as: 'owner', params: { passId, revisionId: created!.id } });
+    expect(await gagStatus('demo-gag-09')).toBe('in_review');
+  });
+
+  it('"needs another pass" sends the gag back to thumbnailing', async () => {
+    const passId = await gagWithPass('demo-gag-10');
+    const r = await stamp(passId, 'editor', 'again', 'Panel 3 does not turn.');
+    expect(r.status).toBe(201);
+    expect(await gagStatus('demo-gag-10')).toBe('thumbnailing');
+  });
+
+  it('co-creators and viewers cannot stamp; bad decisions are 422; inked gags are 409', async () => {
+    const passId = await gagWithPass('demo-gag-12');
+    expect((await stamp(passId, 'cocreator', 'ready')).status).toBe(403);
+    expect((await stamp(passId, 'viewer', 'ready')).status).toBe(403);
+    expect((await stamp(passId, 'editor', 'maybe')).status).toBe(422);
+    expect(await db.selectFrom('stamps').select('id').where('passId', '=', passId).execute()).toEqual([]);
+    const inked = await db.selectFrom('passes').select('id').where('gagId', '=', 'demo-gag-04').executeTakeFirstOrThrow();
+    expect((await stamp(inked.id, 'owner', 'ready')).status).toBe(409);
+  });
+});
+
+describe('activity feed', () => {
+  it('is paginated newest first', async () => {
+    const first = await callRoute(activityRoute.GET, { as: 'editor', params: { seriesId: DEMO_SERIES_ID }, url: '/x?limit=3' });
+    expect(first.body.items).toHaveLength(3);
+    const ids = first.body.items.map((i: { id: number }) => i.id);
+    expect([...ids].sort((a, b) => b - a)).toEqual(ids);
+    const next = await callRoute(activityRoute.GET, { as: 'editor', params: { seriesId: DEMO_SERIES_ID }, url: `/x?limit=3&before=${first.body.nextBefore}` });
+    expect(next.body.items[0].id).toBeLessThan(ids[2]);
+    const kinds = new Set([...first.body.items, ...next.body.items].map((i: { kind: string }) => i.kind));
+    expect(kinds.size).toBeGreaterThan(1);
+  });
+});
