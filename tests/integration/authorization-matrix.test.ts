@@ -15,9 +15,13 @@ import * as passRoute from '@/app/api/passes/[passId]/route';
 import * as thumbRoute from '@/app/api/passes/[passId]/thumbnail.svg/route';
 import * as stampRoute from '@/app/api/passes/[passId]/stamp/route';
 import * as activityRoute from '@/app/api/series/[seriesId]/activity/route';
+import * as checklistRoute from '@/app/api/passes/[passId]/checklist/route';
+import * as findingsRoute from '@/app/api/passes/[passId]/findings/route';
+import * as itemsRoute from '@/app/api/series/[seriesId]/checklist/route';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
 import { applyBatch, createPass } from '@/db/queries/passes';
+import { checklistItems } from '@/db/queries/review';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { callRoute } from '../support/call-route';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
@@ -127,6 +131,35 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 201, 403, 201, 404),
   },
   {
+    route: 'GET /api/passes/:passId/checklist', handler: checklistRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { passId: (await newPass()).passId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'PUT /api/passes/:passId/checklist', handler: checklistRoute.PUT, method: 'PUT',
+    prepare: async () => {
+      const { passId } = await newPass();
+      const [item] = await checklistItems(db, DEMO_SERIES_ID);
+      return { params: { passId }, body: { ticked: [item!.id] } };
+    },
+    expected: row(401, 403, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/passes/:passId/findings', handler: findingsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { passId: (await newPass()).passId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/series/:seriesId/checklist', handler: itemsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'PUT /api/series/:seriesId/checklist', handler: itemsRoute.PUT, method: 'PUT',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { items: [{ text: `Reads without words ${randomUUID()}` }] } }),
+    expected: row(401, 403, 403, 403, 200, 404),
+  },
+  {
     route: 'GET /api/series/:seriesId/activity', handler: activityRoute.GET, method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
@@ -167,6 +200,8 @@ async function snapshot() {
     strokes: await db.selectFrom('strokes').select(['rowId', 'passId', 'strokeId', 'ox', 'oy', 'addedSeq', 'removedSeq']).orderBy('rowId').execute(),
     revisions: await db.selectFrom('revisions').selectAll().orderBy('id').execute(),
     stamps: await db.selectFrom('stamps').selectAll().orderBy('id').execute(),
+    ticks: await db.selectFrom('checklistTicks').selectAll().orderBy('passId').orderBy('itemId').execute(),
+    items: await db.selectFrom('checklistItems').selectAll().orderBy('id').execute(),
   });
 }
 

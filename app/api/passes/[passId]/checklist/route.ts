@@ -1,0 +1,20 @@
+import { seriesOfPass } from '@/db/queries/passes';
+import { passChecklist, setTicks } from '@/db/queries/review';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { checklistPutSchema } from '@/lib/validation/review';
+
+type Params = { passId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+
+/** The silent-read checklist of this pass: `[{ id, text, ticked, by, at }]`. */
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params, seriesId }) =>
+  Response.json(await passChecklist(db, seriesId, params.passId)),
+);
+
+/** `{ ticked: [itemId] }`: exactly these items are ticked on this pass. Anyone who may comment. */
+export const PUT = withSeriesRole<Params>('comment', seriesOf, async ({ req, db, params, seriesId, user }) => {
+  const input = await parseBody(req, checklistPutSchema);
+  const problem = await setTicks(db, seriesId, params.passId, user.id, input.ticked);
+  if (problem) throw new HttpError(422, problem);
+  return Response.json(await passChecklist(db, seriesId, params.passId));
+});

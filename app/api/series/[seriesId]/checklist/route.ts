@@ -1,0 +1,15 @@
+import { findSeries } from '@/db/queries/series';
+import { checklistItems, setChecklistItems } from '@/db/queries/review';
+import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { checklistItemsSchema } from '@/lib/validation/review';
+
+type Params = { seriesId: string };
+const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await checklistItems(db, seriesId)));
+
+/** Owners: `{ items: [{ id?, text }] }` replaces the list (reword, reorder, add, remove). */
+export const PUT = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId }) => {
+  const input = await parseBody(req, checklistItemsSchema);
+  return Response.json(await setChecklistItems(db, seriesId, input.items));
+});
