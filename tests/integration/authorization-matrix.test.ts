@@ -18,6 +18,9 @@ import * as activityRoute from '@/app/api/series/[seriesId]/activity/route';
 import * as checklistRoute from '@/app/api/passes/[passId]/checklist/route';
 import * as findingsRoute from '@/app/api/passes/[passId]/findings/route';
 import * as itemsRoute from '@/app/api/series/[seriesId]/checklist/route';
+import * as commentsRoute from '@/app/api/gags/[gagId]/comments/route';
+import * as commentRoute from '@/app/api/comments/[commentId]/route';
+import { createComment } from '@/db/queries/comments';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
 import { applyBatch, createPass } from '@/db/queries/passes';
@@ -160,6 +163,26 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 403, 403, 200, 404),
   },
   {
+    route: 'GET /api/gags/:gagId/comments', handler: commentsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { gagId: await newGag() } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/gags/:gagId/comments', handler: commentsRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { gagId: await newGag() }, body: { body: 'Panel 3 reads late.' } }),
+    expected: row(401, 403, 201, 201, 201, 404),
+  },
+  {
+    // Resolving a thread: anyone who may comment (editing the body is the author's alone).
+    route: 'PATCH /api/comments/:commentId', handler: commentRoute.PATCH, method: 'PATCH',
+    prepare: async () => {
+      const gagId = await newGag();
+      const c = await createComment(db, { gagId, seriesId: DEMO_SERIES_ID, authorId: 'demo-user-editor', body: 'Hm.', target: 'gag' });
+      return { params: { commentId: c.id }, body: { resolved: true } };
+    },
+    expected: row(401, 403, 200, 200, 200, 404),
+  },
+  {
     route: 'GET /api/series/:seriesId/activity', handler: activityRoute.GET, method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
@@ -202,6 +225,7 @@ async function snapshot() {
     stamps: await db.selectFrom('stamps').selectAll().orderBy('id').execute(),
     ticks: await db.selectFrom('checklistTicks').selectAll().orderBy('passId').orderBy('itemId').execute(),
     items: await db.selectFrom('checklistItems').selectAll().orderBy('id').execute(),
+    comments: await db.selectFrom('comments').selectAll().orderBy('id').execute(),
   });
 }
 

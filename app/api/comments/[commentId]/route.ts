@@ -1,0 +1,16 @@
+import { findComment, seriesOfComment, updateComment } from '@/db/queries/comments';
+import { jsonError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { commentPatchSchema } from '@/lib/validation/review';
+
+type Params = { commentId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfComment>[0]) => seriesOfComment(db, p.commentId);
+
+/** `{ body }` edits your own comment; `{ resolved: true | false }` resolves or reopens a thread. */
+export const PATCH = withSeriesRole<Params>('comment', seriesOf, async ({ req, db, params, user }) => {
+  const patch = await parseBody(req, commentPatchSchema);
+  const c = await findComment(db, params.commentId);
+  if (!c) return jsonError(404, 'Not found.');
+  if (patch.body !== undefined && c.authorId !== user.id) return jsonError(403, 'You can edit only your own comments.');
+  if (patch.resolved !== undefined && c.parentId) return jsonError(422, 'Resolve the thread, not a reply.');
+  return Response.json(await updateComment(db, params.commentId, patch, user.id));
+});

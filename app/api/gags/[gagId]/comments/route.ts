@@ -1,0 +1,26 @@
+import { CommentRefused, createComment, listThreads, mentionedMembers } from '@/db/queries/comments';
+import { findGag, seriesOfGag } from '@/db/queries/gags';
+import { notifyMentions } from '@/lib/mail/notify';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { commentCreateSchema } from '@/lib/validation/review';
+
+type Params = { gagId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfGag>[0]) => seriesOfGag(db, p.gagId);
+
+/** Threads, oldest first, each with its replies. */
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => Response.json(await listThreads(db, params.gagId)));
+
+/** A new thread or a reply; @name mentions a member, who is told by e-mail. */
+export const POST = withSeriesRole<Params>('comment', seriesOf, async ({ req, db, params, user, seriesId }) => {
+  const input = await parseBody(req, commentCreateSchema);
+  try {
+    const comment = await createComment(db, { ...input, gagId: params.gagId, seriesId, authorId: user.id });
+    const gag = await findGag(db, params.gagId);
+    const mentioned = await mentionedMembers(db, seriesId, input.body);
+    if (gag && mentioned.length) await notifyMentions(db, { userIds: mentioned, author: user, gag: { id: gag.id, seriesId, title: gag.title }, body: input.body });
+    return Response.json({ ...comment, mentioned }, { status: 201 });
+  } catch (err) {
+    if (err instanceof CommentRefused) throw new HttpError(422, err.message);
+    throw err;
+  }
+});

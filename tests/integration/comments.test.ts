@@ -1,0 +1,74 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import * as commentRoute from '@/app/api/comments/[commentId]/route';
+import * as commentsRoute from '@/app/api/gags/[gagId]/comments/route';
+import { callRoute } from '../support/call-route';
+import { startMailFake } from '../support/mail-fake';
+import { freshDb } from '../support/test-db';
+
+let db: Awaited<ReturnType<typeof freshDb>>;
+let mail: Awaited<ReturnType<typeof startMailFake>>;
+const GAG = 'demo-gag-07';
+beforeAll(async () => {
+  mail = await startMailFake();
+  db = await freshDb();
+});
+afterAll(async () => {
+  await mail?.stop();
+});
+
+const post = (as: 'editor' | 'cocreator' | 'owner' | 'viewer', body: Record<string, unknown>) =>
+  callRoute(commentsRoute.POST, { method: 'POST', as, params: { gagId: GAG }, body });
+
+describe('comments', () => {
+  it('pins a thread to a panel of a pass, and a reply takes its pin', async () => {
+    const pass = await db.selectFrom('passes').select('id').where('gagId', '=', GAG).where('number', '=', 2).executeTakeFirstOrThrow();
+    const t = await post('editor', { body: 'The turn is hidden behind the wave.', target: 'panel', passId: pass.id, panel: 2 });
+    expect(t.status).toBe(201);
+    expect(t.body).toMatchObject({ target: 'panel', passNumber: 2, panel: 2, author: 'Ivo Sand' });
+    const reply = await post('cocreator', { body: 'Raising the horizon.', parentId: t.body.id });
+    expect(reply.body).toMatchObject({ target: 'panel', passId: pass.id, panel: 2, parentId: t.body.id });
+    const threads = await callRoute(commentsRoute.GET, { as: 'viewer', params: { gagId: GAG } });
+    expect(threads.body).toHaveLength(1);
+    expect(threads.body[0].replies.map((r: { body: string }) => r.body)).toEqual(['Raising the horizon.']);
+  });
+
+  it('beats and points need what they point at; a pass of another gag is refused', async () => {
+    expect((await post('editor', { body: 'x', target: 'beat' })).status).toBe(422);
+    expect((await post('editor', { body: 'x', target: 'point', passId: 'p', panel: 1 })).status).toBe(422);
+    const other = await db.selectFrom('passes').select('id').where('gagId', '=', 'demo-gag-05').executeTakeFirstOrThrow();
+    expect((await post('editor', { body: 'x', target: 'pass', passId: other.id })).status).toBe(422);
+    expect((await post('editor', { body: 'Needs a clearer turn.', target: 'beat', beat: 'turn' })).status).toBe(201);
+  });
+
+  it('viewers cannot comment', async () => {
+    expect((await post('viewer', { body: 'Love it' })).status).toBe(403);
+  });
+
+  it('@mentions a member, who gets an e-mail', async () => {
+    const r = await post('editor', { body: '@Tam Quill can you look at the payoff? @owner too.' });
+    expect(r.body.mentioned.sort()).toEqual(['demo-user-cocreator', 'demo-user-owner']);
+    await expect.poll(async () => (await mail.read()).filter((m) => m.subject === 'Ivo Sand mentioned you on “Sugar Cube”').length).toBe(2);
+    const to = (await mail.read()).map((m) => m.to).sort();
+    expect(to).toEqual(['cocreator@quadrille.test', 'owner@quadrille.test']);
+  });
+
+  it('nobody who turned notifications off is mailed', async () => {
+    await db.updateTable('users').set({ notifyEmail: 0 }).where('id', '=', 'demo-user-cocreator').execute();
+    const before = (await mail.read()).length;
+    await post('owner', { body: 'Thanks @Tam Quill' });
+    await new Promise((r) => setTimeout(r, 300));
+    expect((await mail.read()).length).toBe(before);
+  });
+
+  it('edit your own only; resolve and reopen a thread', async () => {
+    const c = await post('editor', { body: 'First thought' });
+    const own = await callRoute(commentRoute.PATCH, { method: 'PATCH', as: 'editor', params: { commentId: c.body.id }, body: { body: 'Second thought' } });
+    expect(own.body).toMatchObject({ body: 'Second thought', editedAt: expect.any(String) });
+    const other = await callRoute(commentRoute.PATCH, { method: 'PATCH', as: 'owner', params: { commentId: c.body.id }, body: { body: 'Hijack' } });
+    expect(other.status).toBe(403);
+    const resolved = await callRoute(commentRoute.PATCH, { method: 'PATCH', as: 'owner', params: { commentId: c.body.id }, body: { resolved: true } });
+    expect(resolved.body).toMatchObject({ resolvedBy: 'Nell Harrow' });
+    const reopened = await callRoute(commentRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { commentId: c.body.id }, body: { resolved: false } });
+    expect(reopened.body.resolvedAt).toBeNull();
+  });
+});
