@@ -21,6 +21,13 @@ import * as itemsRoute from '@/app/api/series/[seriesId]/checklist/route';
 import * as commentsRoute from '@/app/api/gags/[gagId]/comments/route';
 import * as commentRoute from '@/app/api/comments/[commentId]/route';
 import { createComment } from '@/db/queries/comments';
+import * as invitationsRoute from '@/app/api/series/[seriesId]/invitations/route';
+import * as membersRoute from '@/app/api/series/[seriesId]/members/route';
+import * as memberRoute from '@/app/api/series/[seriesId]/members/[userId]/route';
+import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
+import * as meRoute from '@/app/api/me/route';
+import { createInvitation } from '@/db/queries/members';
+import { createSeries } from '@/db/queries/series';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
 import { applyBatch, createPass } from '@/db/queries/passes';
@@ -49,6 +56,21 @@ async function newPass(): Promise<{ passId: string; revisionId: string }> {
   await applyBatch(db, { passId: id, batchId: 'seed', ops: [{ op: 'add', stroke }], userId: 'demo-user-owner', spec: DEFAULT_PAGE_SPEC });
   const rev = await db.selectFrom('revisions').select('id').where('passId', '=', id).where('seq', '=', 0).executeTakeFirstOrThrow();
   return { passId: id, revisionId: rev.id };
+}
+
+/** A plain member of Kettle Crab to change or remove. */
+async function newMember(): Promise<string> {
+  const id = randomUUID();
+  await db.insertInto('users').values({ id, email: `${id}@pier.test`, name: 'Temp', passwordHash: 'x', createdAt: new Date().toISOString() }).execute();
+  await db.insertInto('memberships').values({ seriesId: DEMO_SERIES_ID, userId: id, role: 'viewer', createdAt: new Date().toISOString() }).execute();
+  return id;
+}
+
+/** An invitation to a series none of the personas belongs to. */
+async function newInvitationToken(): Promise<string> {
+  const ownerId = await newMember();
+  const { id } = await createSeries(db, { id: randomUUID(), title: 'Elsewhere', ownerId });
+  return (await createInvitation(db, { seriesId: id, email: `${randomUUID()}@pier.test`, role: 'viewer', invitedBy: ownerId })).token;
 }
 
 type Prepared = { params?: Record<string, string>; body?: unknown };
@@ -183,6 +205,43 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 200, 200, 200, 404),
   },
   {
+    route: 'GET /api/series/:seriesId/members', handler: membersRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'PATCH /api/series/:seriesId/members/:userId', handler: memberRoute.PATCH, method: 'PATCH',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID, userId: await newMember() }, body: { role: 'editor' } }),
+    expected: row(401, 403, 403, 403, 200, 404),
+  },
+  {
+    route: 'DELETE /api/series/:seriesId/members/:userId', handler: memberRoute.DELETE, method: 'DELETE',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID, userId: await newMember() } }),
+    expected: row(401, 403, 403, 403, 204, 404),
+  },
+  {
+    route: 'GET /api/series/:seriesId/invitations', handler: invitationsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
+    expected: row(401, 403, 403, 403, 200, 404),
+  },
+  {
+    route: 'POST /api/series/:seriesId/invitations', handler: invitationsRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { email: `${randomUUID()}@pier.test`, role: 'viewer' } }),
+    expected: row(401, 403, 403, 403, 201, 404),
+  },
+  {
+    route: 'POST /api/invitations/:token/accept', handler: acceptRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { token: await newInvitationToken() } }),
+    expected: row(401, 200, 200, 200, 200, 200),
+  },
+  { route: 'GET /api/me', handler: meRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
+  {
+    route: 'PATCH /api/me', handler: meRoute.PATCH, method: 'PATCH',
+    // Each person starts with notifications on, and each is asked once: turning them off is a change.
+    prepare: async () => ({ body: { notifyEmail: false } }),
+    expected: row(401, 200, 200, 200, 200, 200),
+  },
+  {
     route: 'GET /api/series/:seriesId/activity', handler: activityRoute.GET, method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
@@ -226,6 +285,8 @@ async function snapshot() {
     ticks: await db.selectFrom('checklistTicks').selectAll().orderBy('passId').orderBy('itemId').execute(),
     items: await db.selectFrom('checklistItems').selectAll().orderBy('id').execute(),
     comments: await db.selectFrom('comments').selectAll().orderBy('id').execute(),
+    invitations: await db.selectFrom('invitations').selectAll().orderBy('id').execute(),
+    notify: await db.selectFrom('users').select(['id', 'notifyEmail']).orderBy('id').execute(),
   });
 }
 

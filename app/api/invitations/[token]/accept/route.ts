@@ -1,0 +1,12 @@
+import { MemberRefused, acceptInvitation } from '@/db/queries/members';
+import { HttpError, withUser } from '@/lib/http/route';
+
+/** The signed-in person joins the series with the invited role. 410 when used or expired. */
+export const POST = withUser<{ token: string }>(async ({ db, params, user }) => {
+  try {
+    return Response.json(await acceptInvitation(db, params.token, user.id));
+  } catch (err) {
+    if (err instanceof MemberRefused) throw new HttpError(err.status, err.message);
+    throw err;
+  }
+});

@@ -1,0 +1,25 @@
+import { MemberRefused, changeRole, listMembers, removeMember } from '@/db/queries/members';
+import { findSeries } from '@/db/queries/series';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { roleSchema } from '@/lib/validation/members';
+
+type Params = { seriesId: string; userId: string };
+const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+
+function refused(err: unknown): never {
+  if (err instanceof MemberRefused) throw new HttpError(err.status, err.message);
+  throw err;
+}
+
+/** Owners change a member's role (`{ role }`); the last owner stays an owner. */
+export const PATCH = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId, params }) => {
+  const { role } = await parseBody(req, roleSchema);
+  await changeRole(db, seriesId, params.userId, role).catch(refused);
+  return Response.json((await listMembers(db, seriesId)).find((m) => m.userId === params.userId));
+});
+
+/** Owners remove a member; never the last owner. */
+export const DELETE = withSeriesRole<Params>('manage', seriesOf, async ({ db, seriesId, params }) => {
+  await removeMember(db, seriesId, params.userId).catch(refused);
+  return new Response(null, { status: 204 });
+});

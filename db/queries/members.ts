@@ -1,0 +1,118 @@
+// Members and invitations. An invitation link carries a random token; only its
+// SHA-256 is stored. It works once and for 7 days.
+import { createHash, randomBytes, randomUUID } from 'node:crypto';
+import type { Kysely } from 'kysely';
+import type { Role } from '@/lib/auth/permissions';
+import type { Database } from '../database';
+import { recordActivity } from './activity';
+
+export const INVITATION_DAYS = 7;
+
+export class MemberRefused extends Error {
+  constructor(
+    public status: number,
+    message: string,
+  ) {
+    super(message);
+  }
+}
+
+export const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
+
+export type MemberDto = { userId: string; name: string; email: string; role: Role; since: string };
+
+export async function listMembers(db: Kysely<Database>, seriesId: string): Promise<MemberDto[]> {
+  return db
+    .selectFrom('memberships as m')
+    .innerJoin('users as u', 'u.id', 'm.userId')
+    .select(['u.id as userId', 'u.name', 'u.email', 'm.role', 'm.createdAt as since'])
+    .where('m.seriesId', '=', seriesId)
+    .orderBy('m.createdAt')
+    .execute();
+}
+
+export async function listInvitations(db: Kysely<Database>, seriesId: string, now = new Date()) {
+  return db
+    .selectFrom('invitations as i')
+    .innerJoin('users as u', 'u.id', 'i.invitedBy')
+    .select(['i.id', 'i.email', 'i.role', 'i.createdAt', 'i.expiresAt', 'u.name as invitedBy'])
+    .where('i.seriesId', '=', seriesId)
+    .where('i.acceptedAt', 'is', null)
+    .where('i.revokedAt', 'is', null)
+    .where('i.expiresAt', '>', now.toISOString())
+    .orderBy('i.createdAt', 'desc')
+    .execute();
+}
+
+export async function createInvitation(
+  db: Kysely<Database>,
+  input: { seriesId: string; email: string; role: Role; invitedBy: string },
+  now = new Date(),
+): Promise<{ id: string; token: string; expiresAt: Date }> {
+  const already = await db
+    .selectFrom('memberships as m')
+    .innerJoin('users as u', 'u.id', 'm.userId')
+    .select('u.id')
+    .where('m.seriesId', '=', input.seriesId)
+    .where('u.email', '=', input.email)
+    .executeTakeFirst();
+  if (already) throw new MemberRefused(409, `${input.email} is already a member of this series.`);
+  const token = randomBytes(24).toString('base64url');
+  const id = randomUUID();
+  const expiresAt = new Date(now.getTime() + INVITATION_DAYS * 24 * 3600 * 1000);
+  await db
+    .insertInto('invitations')
+    .values({ id, tokenHash: hashToken(token), seriesId: input.seriesId, email: input.email, role: input.role, invitedBy: input.invitedBy, createdAt: now.toISOString(), expiresAt: expiresAt.toISOString(), acceptedAt: null, acceptedBy: null, revokedAt: null })
+    .execute();
+  return { id, token, expiresAt };
+}
+
+/** What an invitation link shows before it is accepted; null when unknown. */
+export async function invitationByToken(db: Kysely<Database>, token: string) {
+  return db
+    .selectFrom('invitations as i')
+    .innerJoin('series as s', 's.id', 'i.seriesId')
+    .innerJoin('users as u', 'u.id', 'i.invitedBy')
+    .select(['i.id', 'i.seriesId', 's.title as seriesTitle', 'i.email', 'i.role', 'i.expiresAt', 'i.acceptedAt', 'i.revokedAt', 'u.name as invitedBy'])
+    .where('i.tokenHash', '=', hashToken(token))
+    .executeTakeFirst();
+}
+
+export async function acceptInvitation(db: Kysely<Database>, token: string, userId: string, now = new Date()) {
+  return db.transaction().execute(async (trx) => {
+    const inv = await trx.selectFrom('invitations').selectAll().where('tokenHash', '=', hashToken(token)).executeTakeFirst();
+    if (!inv || inv.revokedAt) throw new MemberRefused(404, 'This invitation does not exist.');
+    if (inv.acceptedAt) throw new MemberRefused(410, 'This invitation has already been used.');
+    if (Date.parse(inv.expiresAt) <= now.getTime()) throw new MemberRefused(410, 'This invitation has expired. Ask the owner for a new one.');
+    const existing = await trx.selectFrom('memberships').select('role').where('seriesId', '=', inv.seriesId).where('userId', '=', userId).executeTakeFirst();
+    if (existing) throw new MemberRefused(409, 'You are already a member of this series.');
+    await trx.insertInto('memberships').values({ seriesId: inv.seriesId, userId, role: inv.role, createdAt: now.toISOString() }).execute();
+    await trx.updateTable('invitations').set({ acceptedAt: now.toISOString(), acceptedBy: userId }).where('id', '=', inv.id).execute();
+    const u = await trx.selectFrom('users').select('name').where('id', '=', userId).executeTakeFirstOrThrow();
+    await recordActivity(trx, { seriesId: inv.seriesId, userId, kind: 'member.joined', summary: `${u.name} joined as ${inv.role}` });
+    return { seriesId: inv.seriesId, role: inv.role };
+  });
+}
+
+async function ownerCount(db: Kysely<Database>, seriesId: string) {
+  const r = await db.selectFrom('memberships').select((eb) => eb.fn.countAll<number>().as('n')).where('seriesId', '=', seriesId).where('role', '=', 'owner').executeTakeFirstOrThrow();
+  return Number(r.n);
+}
+
+export async function changeRole(db: Kysely<Database>, seriesId: string, userId: string, role: Role) {
+  const m = await db.selectFrom('memberships').select('role').where('seriesId', '=', seriesId).where('userId', '=', userId).executeTakeFirst();
+  if (!m) throw new MemberRefused(404, 'Not a member of this series.');
+  if (m.role === 'owner' && role !== 'owner' && (await ownerCount(db, seriesId)) <= 1) {
+    throw new MemberRefused(409, 'A series keeps at least one owner: make someone else owner first.');
+  }
+  await db.updateTable('memberships').set({ role }).where('seriesId', '=', seriesId).where('userId', '=', userId).execute();
+}
+
+export async function removeMember(db: Kysely<Database>, seriesId: string, userId: string) {
+  const m = await db.selectFrom('memberships').select('role').where('seriesId', '=', seriesId).where('userId', '=', userId).executeTakeFirst();
+  if (!m) throw new MemberRefused(404, 'Not a member of this series.');
+  if (m.role === 'owner' && (await ownerCount(db, seriesId)) <= 1) {
+    throw new MemberRefused(409, 'The last owner cannot be removed.');
+  }
+  await db.deleteFrom('memberships').where('seriesId', '=', seriesId).where('userId', '=', userId).execute();
+}
