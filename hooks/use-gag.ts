@@ -8,7 +8,9 @@ export function useGag(gagId: string | null, fallbackData?: GagDto) {
   const { data, error, isLoading, mutate } = useSWR<GagDto>(gagId ? `/api/gags/${gagId}` : null, fetcher, {
     fallbackData,
     // Local edits are the truth while someone types; don't overwrite them on focus.
+    // The status can change under us (a stamp, a change that clears it): check every few seconds.
     revalidateOnFocus: false,
+    refreshInterval: 3000,
   });
   async function update(patch: UpdateGagInput) {
     const gag = await api<GagDto>(`/api/gags/${gagId}`, { method: 'PATCH', json: patch });

@@ -10,7 +10,7 @@ import { Field } from '@/components/ui/field';
 import { ApiError, api } from '@/lib/http/client';
 import { type SignUpInput, signUpSchema } from '@/lib/validation/account';
 
-export function SignUpForm() {
+export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const { register, handleSubmit, formState } = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema) });
@@ -28,7 +28,7 @@ export function SignUpForm() {
       router.push('/signin');
       return;
     }
-    router.push('/series');
+    router.push(callbackUrl && callbackUrl.startsWith('/') && !callbackUrl.startsWith('//') ? callbackUrl : '/series');
     router.refresh();
   });
 

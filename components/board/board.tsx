@@ -63,7 +63,10 @@ export function Board({
           <h1 className="text-3xl font-extrabold">{seriesTitle}</h1>
           <p className="text-sm text-graphite-soft">
             Your role: <strong data-testid="my-role">{ROLE_LABELS[role]}</strong>
-            {!canEdit && ' — you can read the board; editing is for co-creators and owners.'}
+            {!canEdit && ' — you can read the board; editing is for co-creators and owners.'}{' '}
+            <Link href={`/series/${seriesId}/members`} className="font-bold text-ink hover:underline">
+              Members
+            </Link>
           </p>
         </div>
         <div role="group" aria-label="View" className="inline-flex rounded-md border border-paper-edge bg-white p-0.5">

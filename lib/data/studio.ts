@@ -30,6 +30,10 @@ async function seriesAccess(seriesId: string, returnTo: string) {
   return { user, role: access.role, series };
 }
 
+export async function loadSeriesPage(seriesId: string, returnTo: string) {
+  return seriesAccess(seriesId, returnTo);
+}
+
 export async function loadBoard(seriesId: string) {
   const base = await seriesAccess(seriesId, `/series/${seriesId}`);
   const db = await getDb();

@@ -3,6 +3,7 @@ import { SignUpForm } from '@/components/auth/signup-form';
 
 export const metadata: Metadata = { title: 'Create an account' };
 
-export default function SignUpPage() {
-  return <SignUpForm />;
+export default async function SignUpPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
+  const { callbackUrl } = await searchParams;
+  return <SignUpForm callbackUrl={callbackUrl} />;
 }

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { ActivityFeed } from '@/components/board/activity-feed';
 import { Board } from '@/components/board/board';
 import { PageSpecForm } from '@/components/series/page-spec-form';
 import { can } from '@/lib/auth/permissions';
@@ -13,7 +14,10 @@ export default async function BoardPage({ params }: { params: Promise<{ seriesId
   return (
     <div className="space-y-6">
       <Board seriesId={series.id} seriesTitle={series.title} role={role} initialGags={gags} />
-      <PageSpecForm seriesId={series.id} initial={spec} canEdit={can(role, 'manage')} />
+      <div className="grid gap-6 lg:grid-cols-2">
+        <ActivityFeed seriesId={series.id} />
+        <PageSpecForm seriesId={series.id} initial={spec} canEdit={can(role, 'manage')} />
+      </div>
     </div>
   );
 }

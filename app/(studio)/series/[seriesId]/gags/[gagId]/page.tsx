@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { GagDetail } from '@/components/gag/gag-detail';
 import { PassStrip } from '@/components/gag/pass-strip';
+import { ReviewSection } from '@/components/review/review-section';
 import { can } from '@/lib/auth/permissions';
 import { loadGag, loadPassThumbnails } from '@/lib/data/studio';
 
@@ -9,12 +10,13 @@ export const dynamic = 'force-dynamic';
 
 export default async function GagPage({ params }: { params: Promise<{ seriesId: string; gagId: string }> }) {
   const { seriesId, gagId } = await params;
-  const { series, role, gag } = await loadGag(seriesId, gagId);
+  const { series, role, gag, user } = await loadGag(seriesId, gagId);
   const { passes } = await loadPassThumbnails(series.id, gag.id);
   return (
     <div className="space-y-8">
       <GagDetail key={gag.id} seriesId={series.id} seriesTitle={series.title} role={role} initial={gag} />
       <PassStrip seriesId={series.id} gagId={gag.id} passes={passes} beats={gag.beats} canEdit={can(role, 'edit')} />
+      <ReviewSection seriesId={series.id} gagId={gag.id} role={role} meId={user.id} passes={passes.map((p) => ({ id: p.id, number: p.number, seq: p.seq }))} />
     </div>
   );
 }

@@ -1,0 +1,23 @@
+import type { Metadata } from 'next';
+import { notFound } from 'next/navigation';
+import { AcceptInvitation } from '@/components/members/accept-invitation';
+import { getDb } from '@/db/client';
+import { invitationByToken } from '@/db/queries/members';
+import { ROLE_LABELS } from '@/lib/auth/permissions';
+import { currentUser } from '@/lib/auth/session';
+
+export const metadata: Metadata = { title: 'Invitation' };
+export const dynamic = 'force-dynamic';
+
+export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
+  const { token } = await params;
+  const inv = await invitationByToken(await getDb(), token);
+  if (!inv || inv.revokedAt) notFound();
+  const problem = inv.acceptedAt
+    ? 'This invitation has already been used.'
+    : Date.parse(inv.expiresAt) <= Date.now()
+      ? 'This invitation has expired. Ask the owner for a new one.'
+      : null;
+  const user = await currentUser();
+  return <AcceptInvitation token={token} signedIn={!!user} seriesTitle={inv.seriesTitle} role={ROLE_LABELS[inv.role].toLowerCase()} invitedBy={inv.invitedBy} problem={problem} />;
+}

@@ -1,0 +1,46 @@
+'use client';
+import Link from 'next/link';
+import { useRouter } from 'next/navigation';
+import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { ApiError, api } from '@/lib/http/client';
+
+export function AcceptInvitation({ token, signedIn, seriesTitle, role, invitedBy, problem }: { token: string; signedIn: boolean; seriesTitle: string; role: string; invitedBy: string; problem: string | null }) {
+  const router = useRouter();
+  const [error, setError] = useState<string | null>(problem);
+  const back = encodeURIComponent(`/invite/${token}`);
+  return (
+    <div className="panel space-y-4 p-6">
+      <h1 className="text-2xl font-extrabold">Join “{seriesTitle}”</h1>
+      <p className="text-graphite-soft">
+        {invitedBy} invites you as <strong>{role}</strong>.
+      </p>
+      {error && <p role="alert" className="rounded-md border border-stamp/40 bg-stamp-light px-3 py-2 text-sm text-stamp">{error}</p>}
+      {!problem &&
+        (signedIn ? (
+          <Button
+            onClick={async () => {
+              setError(null);
+              try {
+                const r = await api<{ seriesId: string }>(`/api/invitations/${token}/accept`, { method: 'POST' });
+                router.push(`/series/${r.seriesId}`);
+              } catch (err) {
+                setError(err instanceof ApiError ? err.message : 'Could not accept.');
+              }
+            }}
+          >
+            Accept the invitation
+          </Button>
+        ) : (
+          <p className="flex flex-wrap gap-3">
+            <Link href={`/signin?callbackUrl=${back}`} className="rounded-md bg-ink px-3 py-2 text-sm font-bold text-white">
+              Sign in to accept
+            </Link>
+            <Link href={`/signup?callbackUrl=${back}`} className="rounded-md border border-paper-edge bg-white px-3 py-2 text-sm font-bold">
+              Create an account
+            </Link>
+          </p>
+        ))}
+    </div>
+  );
+}

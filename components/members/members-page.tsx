@@ -1,0 +1,151 @@
+'use client';
+// Members, roles and invitations of a series. Owners manage; others see who is in.
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import useSWR from 'swr';
+import type { z } from 'zod';
+import { Button } from '@/components/ui/button';
+import { Field } from '@/components/ui/field';
+import type { MemberDto } from '@/db/queries/members';
+import { useMembers } from '@/hooks/use-review';
+import { ROLES, ROLE_LABELS, type Role } from '@/lib/auth/permissions';
+import { ApiError, api, fetcher } from '@/lib/http/client';
+import { inviteSchema } from '@/lib/validation/members';
+
+type Invitation = { id: string; email: string; role: Role; expiresAt: string; invitedBy: string };
+
+export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { seriesId: string; seriesTitle: string; canManage: boolean; meId: string }) {
+  const { data: members, mutate } = useMembers(seriesId);
+  const invitations = useSWR<Invitation[]>(canManage ? `/api/series/${seriesId}/invitations` : null, fetcher);
+  const me = useSWR<{ notifyEmail: boolean }>('/api/me', fetcher);
+  const [message, setMessage] = useState<string | null>(null);
+  const form = useForm<z.input<typeof inviteSchema>>({ resolver: zodResolver(inviteSchema), defaultValues: { email: '', role: 'viewer' } });
+
+  const act = async (fn: () => Promise<unknown>, ok: string) => {
+    setMessage(null);
+    try {
+      await fn();
+      setMessage(ok);
+      await mutate();
+      await invitations.mutate();
+    } catch (err) {
+      setMessage(err instanceof ApiError ? err.message : 'That did not work.');
+    }
+  };
+
+  const invite = form.handleSubmit((v) =>
+    act(async () => {
+      await api(`/api/series/${seriesId}/invitations`, { method: 'POST', json: v });
+      form.reset({ email: '', role: v.role });
+    }, `Invitation sent to ${v.email}.`),
+  );
+
+  return (
+    <div className="space-y-6">
+      <div>
+        <p className="text-sm text-graphite-faint">{seriesTitle} / members</p>
+        <h1 className="text-3xl font-extrabold">Members</h1>
+      </div>
+      {message && (
+        <p role="status" className="rounded-md bg-ink-light px-3 py-2 text-sm text-ink">
+          {message}
+        </p>
+      )}
+      <section className="panel overflow-x-auto">
+        <table className="w-full min-w-[560px] text-left text-sm">
+          <thead className="border-b border-paper-edge bg-paper-deep/60">
+            <tr>
+              <th className="px-3 py-2">Name</th>
+              <th className="px-3 py-2">E-mail</th>
+              <th className="px-3 py-2">Role</th>
+              {canManage && <th className="px-3 py-2"><span className="sr-only">Actions</span></th>}
+            </tr>
+          </thead>
+          <tbody>
+            {(members ?? []).map((m: MemberDto) => (
+              <tr key={m.userId} className="border-b border-paper-edge/60 last:border-0">
+                <td className="px-3 py-2 font-bold">{m.name}{m.userId === meId ? ' (you)' : ''}</td>
+                <td className="px-3 py-2">{m.email}</td>
+                <td className="px-3 py-2">
+                  {canManage ? (
+                    <select
+                      aria-label={`Role of ${m.name}`}
+                      className="field w-auto py-1"
+                      value={m.role}
+                      onChange={(e) => void act(() => api(`/api/series/${seriesId}/members/${m.userId}`, { method: 'PATCH', json: { role: e.target.value } }), `${m.name} is now ${ROLE_LABELS[e.target.value as Role]}.`)}
+                    >
+                      {ROLES.map((r) => (
+                        <option key={r} value={r}>
+                          {ROLE_LABELS[r]}
+                        </option>
+                      ))}
+                    </select>
+                  ) : (
+                    ROLE_LABELS[m.role]
+                  )}
+                </td>
+                {canManage && (
+                  <td className="px-3 py-2 text-right">
+                    <Button variant="ghost" className="text-stamp" onClick={() => void act(() => api(`/api/series/${seriesId}/members/${m.userId}`, { method: 'DELETE' }), `${m.name} was removed.`)}>
+                      Remove
+                    </Button>
+                  </td>
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </section>
+
+      {canManage && (
+        <section className="panel space-y-3 p-4" aria-labelledby="invite-title">
+          <h2 id="invite-title" className="text-xl font-extrabold">
+            Invite someone
+          </h2>
+          <form onSubmit={invite} noValidate className="flex flex-wrap items-end gap-3">
+            <Field id="invite-email" label="E-mail" error={form.formState.errors.email?.message}>
+              <input id="invite-email" type="email" className="field w-72" {...form.register('email')} />
+            </Field>
+            <Field id="invite-role" label="Role">
+              <select id="invite-role" className="field w-auto" {...form.register('role')}>
+                {ROLES.map((r) => (
+                  <option key={r} value={r}>
+                    {ROLE_LABELS[r]}
+                  </option>
+                ))}
+              </select>
+            </Field>
+            <Button type="submit" disabled={form.formState.isSubmitting}>
+              Send invitation
+            </Button>
+          </form>
+          <p className="text-xs text-graphite-faint">The link works once and for 7 days.</p>
+          {(invitations.data ?? []).length > 0 && (
+            <ul className="space-y-1 text-sm">
+              {invitations.data!.map((i) => (
+                <li key={i.id}>
+                  {i.email} as {ROLE_LABELS[i.role]} — invited by {i.invitedBy}, until <span suppressHydrationWarning>{new Date(i.expiresAt).toLocaleDateString()}</span>
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+      )}
+
+      <section className="panel p-4" aria-labelledby="notify-title">
+        <h2 id="notify-title" className="text-xl font-extrabold">
+          Notifications
+        </h2>
+        <label className="mt-2 flex items-center gap-2 text-sm">
+          <input
+            type="checkbox"
+            checked={me.data?.notifyEmail ?? true}
+            onChange={(e) => void act(async () => { await api('/api/me', { method: 'PATCH', json: { notifyEmail: e.target.checked } }); await me.mutate(); }, e.target.checked ? 'E-mail notifications on.' : 'E-mail notifications off.')}
+          />
+          E-mail me when I am mentioned or a gag I started is stamped
+        </label>
+      </section>
+    </div>
+  );
+}

@@ -1,0 +1,69 @@
+'use client';
+// The review of a gag: pick a pass; its checklist, findings and stamp; the
+// comment threads; who else is here; a way into the comparison.
+import Link from 'next/link';
+import { useState } from 'react';
+import { type Role, can } from '@/lib/auth/permissions';
+import { CommentsPanel } from './comments-panel';
+import { PresenceBar } from './presence-bar';
+import { ChecklistCard, FindingsCard, StampCard } from './review-cards';
+
+export function ReviewSection({
+  seriesId,
+  gagId,
+  role,
+  meId,
+  passes,
+}: {
+  seriesId: string;
+  gagId: string;
+  role: Role;
+  meId: string;
+  passes: { id: string; number: number; seq: number }[];
+}) {
+  const [passId, setPassId] = useState(passes[passes.length - 1]?.id ?? '');
+  const pass = passes.find((p) => p.id === passId);
+  return (
+    <section aria-labelledby="review-title" className="space-y-3">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h2 id="review-title" className="text-xl font-extrabold">
+            Review
+          </h2>
+          <PresenceBar gagId={gagId} where="page" meId={meId} />
+        </div>
+        {passes.length > 0 && (
+          <div className="flex flex-wrap items-end gap-3">
+            <label className="text-sm font-bold text-graphite-soft">
+              Pass under review
+              <select className="field mt-1 w-auto py-1.5" value={passId} onChange={(e) => setPassId(e.target.value)}>
+                {passes.map((p) => (
+                  <option key={p.id} value={p.id}>
+                    Pass {p.number}
+                  </option>
+                ))}
+              </select>
+            </label>
+            <Link href={`/series/${seriesId}/gags/${gagId}/compare`} className="rounded-md border border-paper-edge bg-white px-3 py-2 text-sm font-bold hover:bg-paper-deep">
+              Compare passes
+            </Link>
+          </div>
+        )}
+      </div>
+      <div className="grid gap-4 lg:grid-cols-2">
+        <div className="space-y-4">
+          {pass ? (
+            <>
+              <StampCard gagId={gagId} passId={pass.id} passNumber={pass.number} canStamp={can(role, 'stamp')} />
+              <FindingsCard passId={pass.id} seq={pass.seq} />
+              <ChecklistCard passId={pass.id} canTick={can(role, 'comment')} />
+            </>
+          ) : (
+            <p className="panel p-4 text-sm text-graphite-soft">The checklist, findings and stamp come with the first pass.</p>
+          )}
+        </div>
+        <CommentsPanel gagId={gagId} seriesId={seriesId} meId={meId} canComment={can(role, 'comment')} passes={passes} />
+      </div>
+    </section>
+  );
+}
