@@ -6,7 +6,10 @@
 import type Konva from 'konva';
 import { nanoid } from 'nanoid';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import { Ellipse, Image as KImage, Layer, Rect, Shape, Stage, Text, Transformer } from 'react-konva';
+import { Circle, Ellipse, Group, Image as KImage, Layer, Rect, Shape, Stage, Text, Transformer } from 'react-konva';
+import { CommentsPanel } from '@/components/review/comments-panel';
+import { PresenceBar } from '@/components/review/presence-bar';
+import { useComments, useFindings } from '@/hooks/use-review';
 import { type PageSpec, type Rect as MmRect, bleedBox, panelAt, panelRects, safeBox } from '@/lib/print/geometry';
 import { type View, fitView, toPage, zoomAt } from '@/lib/print/view';
 import { pointsBounds, rectsOverlap, strokeInLasso, strokeTouches } from '@/lib/strokes/hit';
@@ -26,7 +29,12 @@ import { UndoStack, addedStrokes, movedStrokes, removedStrokes, roomChanged, roo
 export type EditorProps = {
   passId: string;
   passNumber: number;
+  gagId: string;
+  seriesId: string;
+  meId: string;
+  passes: { id: string; number: number }[];
   canDraw: boolean;
+  canComment: boolean;
   canRestore: boolean;
   spec: PageSpec;
   beats: { kind: BeatKind; note: string }[];
@@ -104,6 +112,16 @@ export default function Editor(props: EditorProps) {
   const [strokeCount, setStrokeCount] = useState(props.initial.strokes.length);
   const [status, setStatus] = useState<SyncStatus>({ state: 'saved', waiting: 0, message: null });
   const [helpOpen, setHelpOpen] = useState(false);
+  const [pointPin, setPointPin] = useState<{ panel: number; x: number; y: number } | null>(null);
+  const [highlight, setHighlight] = useState(true);
+  const [seqSeen, setSeqSeen] = useState(props.initial.seq);
+  const { data: findings } = useFindings(props.passId, seqSeen);
+  const { data: threads } = useComments(props.gagId);
+  const flaggedRef = useRef(new Set<string>());
+  flaggedRef.current = new Set(
+    highlight && findings ? findings.panels.flatMap((p) => [...p.roomIntrusionIds, ...p.outsideSafeIds]) : [],
+  );
+  const pins = (threads ?? []).filter((t) => t.passId === props.passId && !t.resolvedAt && (t.target === 'panel' || t.target === 'point'));
   const [, setFrame] = useState(0);
   const [undoState, setUndoState] = useState({ canUndo: false, canRedo: false });
 
@@ -132,6 +150,7 @@ export default function Editor(props: EditorProps) {
       strokesLayerRef.current?.batchDraw();
       if (change.rooms) setRooms([...sync.doc.rooms.values()]);
       setStrokeCount(sync.doc.strokes.size);
+      setSeqSeen(sync.seq);
       setSelection((sel) => sel.filter((id) => sync.doc.strokes.has(id)));
     });
     const offStatus = sync.onStatus(setStatus);
@@ -256,6 +275,12 @@ export default function Editor(props: EditorProps) {
           return;
         }
         if (penOnly && tool !== 'pan') return; // a resting palm draws nothing
+      }
+      if (tool === 'pin' && e.button === 0) {
+        const panel = nearestPanel(spec, mm.x, mm.y);
+        const p = clampToBox(mm, panels[panel]!);
+        setPointPin({ panel, x: Math.round(p.x * 10) / 10, y: Math.round(p.y * 10) / 10 });
+        return;
       }
       if (e.button === 1 || tool === 'pan' || !canDraw) {
         gesture.current = { kind: 'pan', pointerId: e.pointerId, last: pt };
@@ -536,6 +561,10 @@ export default function Editor(props: EditorProps) {
     if (tool !== 'lasso') setSelection([]);
   }, [tool]);
 
+  useEffect(() => {
+    overlayLayerRef.current?.batchDraw();
+  }, [findings, highlight]);
+
   // ---------- keyboard ----------
 
   const fit = useCallback(() => setView(fitView(bleed.x, bleed.y - 6, bleed.w, bleed.h + 14, size.w, size.h, 16)), [bleed, size]);
@@ -556,10 +585,11 @@ export default function Editor(props: EditorProps) {
         return;
       }
       if (mod) return;
-      const tools: Tool[] = ['pen', 'tone', 'eraser', 'lasso', 'room', 'pan'];
+      const tools: Tool[] = ['pen', 'tone', 'eraser', 'lasso', 'room', 'pan', 'pin'];
       const n = Number(e.key);
-      if (canDraw && n >= 1 && n <= 6) {
-        setTool(tools[n - 1]!);
+      if (n >= 1 && n <= 7 && e.key.length === 1) {
+        const t = tools[n - 1]!;
+        if (t === 'pan' || (t === 'pin' ? props.canComment : canDraw)) setTool(t);
         return;
       }
       const pan = 40;
@@ -631,7 +661,7 @@ export default function Editor(props: EditorProps) {
     };
     window.addEventListener('keydown', onKey);
     return () => window.removeEventListener('keydown', onKey);
-  }, [canDraw, deleteSelection, fit, runUndo, size, tool]);
+  }, [canDraw, deleteSelection, fit, runUndo, size, tool, props.canComment]);
 
   // ---------- drawing the overlay (live stroke, lasso, selection, eraser) ----------
 
@@ -691,6 +721,18 @@ export default function Editor(props: EditorProps) {
       c.strokeRect(b.x, b.y, b.w, b.h);
       c.restore();
     }
+    if (flaggedRef.current.size) {
+      const doc = syncRef.current?.doc;
+      const r = rastersRef.current;
+      c.save();
+      c.strokeStyle = '#b8321f';
+      c.lineWidth = 2 * px;
+      for (const id of flaggedRef.current) {
+        const s = doc?.strokes.get(id);
+        if (s && r) c.stroke(r.pathOf(s));
+      }
+      c.restore();
+    }
     if (tool === 'eraser' && cursor.current) {
       c.save();
       c.beginPath();
@@ -713,6 +755,7 @@ export default function Editor(props: EditorProps) {
     <div className="flex h-[calc(100vh-8.5rem)] min-h-[520px] flex-col gap-2 lg:flex-row">
       <EditorToolbar
         canDraw={canDraw}
+        canComment={props.canComment}
         tool={tool}
         setTool={setTool}
         penSize={penSize}
@@ -839,13 +882,55 @@ export default function Editor(props: EditorProps) {
                   <Rect key={`${room.id}-${room.x}-${room.y}-${room.w}-${room.h}`} x={room.x} y={room.y} width={room.w} height={room.h} cornerRadius={1} {...common} />
                 );
               })}
+              {pins.map((t, i) => {
+                const r = panels[t.panel ?? 0]!;
+                const x = t.target === 'point' && t.x !== null ? t.x : r.x + 3;
+                const y = t.target === 'point' && t.y !== null ? t.y : r.y + 3;
+                const rad = 9 / view.scale;
+                return (
+                  <Group key={t.id} x={x} y={y} listening={false} name="comment-pin">
+                    <Circle radius={rad} fill="#1d4e6e" stroke="#ffffff" strokeWidth={1.5} strokeScaleEnabled={false} />
+                    <Text text={String(i + 1)} fontSize={11 / view.scale} fill="#ffffff" width={2 * rad} height={2 * rad} offsetX={rad} offsetY={rad} align="center" verticalAlign="middle" fontStyle="bold" />
+                  </Group>
+                );
+              })}
+              {pointPin && (
+                <Circle x={pointPin.x} y={pointPin.y} radius={6 / view.scale} fill="#b8321f" stroke="#ffffff" strokeWidth={1.5} strokeScaleEnabled={false} listening={false} />
+              )}
               <Transformer ref={transformerRef} rotateEnabled={false} ignoreStroke keepRatio={false} />
               <Shape sceneFunc={drawLive} listening={false} />
             </Layer>
           </Stage>
         </div>
       </div>
-      <aside className="flex w-full shrink-0 flex-col gap-3 overflow-y-auto lg:w-72" aria-label="Beats and revisions">
+      <aside className="flex w-full shrink-0 flex-col gap-3 overflow-y-auto lg:w-80" aria-label="Beats, review and revisions">
+        <div className="panel px-3 py-2">
+          <PresenceBar gagId={props.gagId} where={`pass:${props.passNumber}`} meId={props.meId} />
+        </div>
+        {findings && (
+          <section className="panel p-3 text-sm" aria-labelledby="editor-findings">
+            <div className="mb-1 flex items-center justify-between">
+              <h2 id="editor-findings" className="font-display text-lg font-extrabold">
+                Findings
+              </h2>
+              <label className="inline-flex items-center gap-1 text-xs">
+                <input type="checkbox" checked={highlight} onChange={(e) => setHighlight(e.target.checked)} /> Highlight
+              </label>
+            </div>
+            <ul className="space-y-0.5" data-testid="editor-findings">
+              {findings.panels.map((p) => (
+                <li key={p.panel} className={p.inkHeavy || p.roomIntrusions || p.outsideSafe || p.empty ? 'text-stamp' : ''}>
+                  {p.panel + 1} {BEAT_LABELS[BEAT_KINDS[p.panel]!]}: ink {Math.round(p.inkLoad * 100)}%
+                  {p.inkHeavy ? ' (heavy)' : ''}
+                  {p.roomIntrusions ? ` · ${p.roomIntrusions} in balloon room` : ''}
+                  {p.outsideSafe ? ` · ${p.outsideSafe} past safe area` : ''}
+                  {p.empty ? ' · empty' : ''}
+                </li>
+              ))}
+            </ul>
+            {findings.beatsMissing.length > 0 && <p className="mt-1 text-stamp">No note: {findings.beatsMissing.map((k) => BEAT_LABELS[k]).join(', ')}</p>}
+          </section>
+        )}
         <section className="panel p-3">
           <h2 className="mb-2 font-display text-lg font-extrabold">Beats</h2>
           <ol className="space-y-2 text-sm">
@@ -859,6 +944,24 @@ export default function Editor(props: EditorProps) {
             ))}
           </ol>
         </section>
+        {pointPin && props.canComment && (
+          <p className="panel px-3 py-2 text-sm">
+            New pin at panel {pointPin.panel + 1}, {pointPin.x} × {pointPin.y} mm: choose “Pinned point” below and write.{' '}
+            <button type="button" className="text-ink underline" onClick={() => setPointPin(null)}>
+              Drop pin
+            </button>
+          </p>
+        )}
+        <CommentsPanel
+          gagId={props.gagId}
+          seriesId={props.seriesId}
+          meId={props.meId}
+          canComment={props.canComment}
+          passes={props.passes}
+          onlyPassId={props.passId}
+          point={pointPin ? { passId: props.passId, ...pointPin } : undefined}
+          onPosted={() => setPointPin(null)}
+        />
         <RevisionsPanel passId={props.passId} canRestore={props.canRestore} onRestored={() => void syncRef.current?.resync()} />
       </aside>
       <HelpSheet open={helpOpen} onClose={() => setHelpOpen(false)} />

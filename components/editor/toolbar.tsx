@@ -1,9 +1,9 @@
 'use client';
-import { Circle, Eraser, Hand, Highlighter, Keyboard, Lasso, PenLine, Redo2, Square, SquareDashed, Undo2, ZoomIn, ZoomOut, Maximize } from 'lucide-react';
+import { Circle, Eraser, Hand, Highlighter, Keyboard, Lasso, MapPin, PenLine, Redo2, Square, SquareDashed, Undo2, ZoomIn, ZoomOut, Maximize } from 'lucide-react';
 import { TONE_GREYS, type RoomShape, greyToCss } from '@/lib/strokes/types';
 import type { Guides } from './editor';
 
-export type Tool = 'pen' | 'tone' | 'eraser' | 'lasso' | 'room' | 'pan';
+export type Tool = 'pen' | 'tone' | 'eraser' | 'lasso' | 'room' | 'pan' | 'pin';
 
 export const TOOL_INFO: { tool: Tool; label: string; key: string; Icon: typeof PenLine }[] = [
   { tool: 'pen', label: 'Pen', key: '1', Icon: PenLine },
@@ -12,6 +12,7 @@ export const TOOL_INFO: { tool: Tool; label: string; key: string; Icon: typeof P
   { tool: 'lasso', label: 'Lasso', key: '4', Icon: Lasso },
   { tool: 'room', label: 'Balloon room', key: '5', Icon: SquareDashed },
   { tool: 'pan', label: 'Hand (pan)', key: '6', Icon: Hand },
+  { tool: 'pin', label: 'Pin a comment', key: '7', Icon: MapPin },
 ];
 
 function IconButton({ label, pressed, onClick, disabled, children }: { label: string; pressed?: boolean; onClick: () => void; disabled?: boolean; children: React.ReactNode }) {
@@ -32,6 +33,7 @@ function IconButton({ label, pressed, onClick, disabled, children }: { label: st
 
 export function EditorToolbar(p: {
   canDraw: boolean;
+  canComment: boolean;
   tool: Tool;
   setTool: (t: Tool) => void;
   penSize: number;
@@ -57,7 +59,7 @@ export function EditorToolbar(p: {
   fit: () => void;
   openHelp: () => void;
 }) {
-  const tools = p.canDraw ? TOOL_INFO : TOOL_INFO.filter((t) => t.tool === 'pan');
+  const tools = TOOL_INFO.filter((t) => (t.tool === 'pan' ? true : t.tool === 'pin' ? p.canComment : p.canDraw));
   return (
     <div className="panel flex shrink-0 flex-row flex-wrap items-start gap-3 p-2 lg:w-48 lg:flex-col lg:flex-nowrap lg:overflow-y-auto" role="toolbar" aria-label="Sketch tools">
       <div className="flex flex-wrap gap-1" role="group" aria-label="Tool">

@@ -2,7 +2,7 @@
 // Comment threads of a gag: pinned to the gag, a pass, a panel, a beat or a
 // point; replies; edit your own; resolve and reopen; @name mentions a member.
 import { MessageSquare } from 'lucide-react';
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import type { ThreadDto } from '@/db/queries/comments';
 import { useComments, useMembers } from '@/hooks/use-review';
@@ -25,7 +25,7 @@ export function pinLabel(c: Pick<ThreadDto, 'target' | 'passNumber' | 'panel' | 
   }
 }
 
-type Pin = { target: 'gag' | 'pass' | 'panel' | 'beat'; passId?: string; panel?: number; beat?: BeatKind };
+type Pin = { target: 'gag' | 'pass' | 'panel' | 'beat' | 'point'; passId?: string; panel?: number; beat?: BeatKind; x?: number; y?: number };
 
 export function CommentsPanel({
   gagId,
@@ -34,6 +34,8 @@ export function CommentsPanel({
   canComment,
   passes,
   onlyPassId,
+  point,
+  onPosted,
 }: {
   gagId: string;
   seriesId: string;
@@ -42,6 +44,9 @@ export function CommentsPanel({
   passes: { id: string; number: number }[];
   /** In the editor: only this pass's threads (and the gag's own). */
   onlyPassId?: string;
+  /** A point picked on the canvas, offered as a pin. */
+  point?: { passId: string; panel: number; x: number; y: number };
+  onPosted?: () => void;
 }) {
   const { data, post, patch } = useComments(gagId);
   const { data: members } = useMembers(seriesId);
@@ -49,9 +54,15 @@ export function CommentsPanel({
   const [body, setBody] = useState('');
   const [error, setError] = useState<string | null>(null);
   const [showResolved, setShowResolved] = useState(false);
+  useEffect(() => {
+    if (point) setPinKey('point');
+  }, [point?.x, point?.y, point?.panel]); // eslint-disable-line react-hooks/exhaustive-deps
   const threads = (data ?? []).filter((t) => (onlyPassId ? t.passId === onlyPassId || t.target === 'gag' : true)).filter((t) => showResolved || !t.resolvedAt);
 
   const pinOptions: { key: string; label: string; pin: Pin }[] = [
+    ...(point
+      ? [{ key: 'point', label: `Pinned point: panel ${point.panel + 1}, ${point.x} × ${point.y} mm`, pin: { target: 'point' as const, ...point } }]
+      : []),
     { key: 'gag', label: 'The whole gag', pin: { target: 'gag' } },
     ...BEAT_KINDS.map((b) => ({ key: `beat:${b}`, label: `Beat: ${BEAT_LABELS[b]}`, pin: { target: 'beat' as const, beat: b } })),
     ...passes
@@ -68,6 +79,10 @@ export function CommentsPanel({
     try {
       await post({ body, ...pin });
       setBody('');
+      if (pin.target === 'point') {
+        setPinKey(onlyPassId ? `pass:${onlyPassId}` : 'gag');
+        onPosted?.();
+      }
     } catch (err) {
       setError(err instanceof ApiError ? err.message : 'Could not post the comment.');
     }

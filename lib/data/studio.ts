@@ -56,7 +56,13 @@ export async function loadPassEditor(seriesId: string, gagId: string, passNo: nu
   const state = await passState(db, pass.id);
   if (!state) notFound();
   const passes = await listPasses(db, gagId);
-  return { ...base, pass: state, spec: await pageSpecOf(db, seriesId), passNumbers: passes.map((p) => p.number) };
+  return {
+    ...base,
+    pass: state,
+    spec: await pageSpecOf(db, seriesId),
+    passNumbers: passes.map((p) => p.number),
+    passList: passes.map((p) => ({ id: p.id, number: p.number })),
+  };
 }
 
 /** Every pass of a gag as a small SVG page (rendered here, on the server). */

@@ -27,6 +27,8 @@ import * as memberRoute from '@/app/api/series/[seriesId]/members/[userId]/route
 import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
 import * as meRoute from '@/app/api/me/route';
 import { createInvitation } from '@/db/queries/members';
+import * as stampsRoute from '@/app/api/gags/[gagId]/stamps/route';
+import * as presenceRoute from '@/app/api/gags/[gagId]/presence/route';
 import { createSeries } from '@/db/queries/series';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
@@ -234,6 +236,21 @@ const ROUTES: RouteCase[] = [
     prepare: async () => ({ params: { token: await newInvitationToken() } }),
     expected: row(401, 200, 200, 200, 200, 200),
   },
+  {
+    route: 'GET /api/gags/:gagId/stamps', handler: stampsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { gagId: await newGag() } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/gags/:gagId/presence', handler: presenceRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { gagId: await newGag() } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/gags/:gagId/presence', handler: presenceRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { gagId: await newGag() }, body: { where: 'pass:1' } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
   { route: 'GET /api/me', handler: meRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
   {
     route: 'PATCH /api/me', handler: meRoute.PATCH, method: 'PATCH',
@@ -287,6 +304,7 @@ async function snapshot() {
     comments: await db.selectFrom('comments').selectAll().orderBy('id').execute(),
     invitations: await db.selectFrom('invitations').selectAll().orderBy('id').execute(),
     notify: await db.selectFrom('users').select(['id', 'notifyEmail']).orderBy('id').execute(),
+    presence: await db.selectFrom('presence').selectAll().orderBy('scope').orderBy('userId').execute(),
   });
 }
 

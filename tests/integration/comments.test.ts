@@ -72,3 +72,17 @@ describe('comments', () => {
     expect(reopened.body.resolvedAt).toBeNull();
   });
 });
+
+describe('presence', () => {
+  it('a heartbeat says who is where; quiet people drop off after 20 s', async () => {
+    const { POST, GET } = await import('@/app/api/gags/[gagId]/presence/route');
+    await callRoute(POST, { method: 'POST', as: 'editor', params: { gagId: GAG }, body: { where: 'compare' } });
+    const r = await callRoute(POST, { method: 'POST', as: 'owner', params: { gagId: GAG }, body: { where: 'pass:2' } });
+    expect(r.body.map((p: { name: string; scope: string }) => `${p.name}@${p.scope.split(':').slice(1).join(':')}`).sort()).toEqual(['Ivo Sand@compare', 'Nell Harrow@pass:2']);
+    const bad = await callRoute(POST, { method: 'POST', as: 'owner', params: { gagId: GAG }, body: { where: 'kitchen' } });
+    expect(bad.status).toBe(422);
+    await db.updateTable('presence').set({ seenAt: new Date(Date.now() - 21_000).toISOString() }).where('userId', '=', 'demo-user-editor').execute();
+    const later = await callRoute(GET, { as: 'viewer', params: { gagId: GAG } });
+    expect(later.body.map((p: { name: string }) => p.name)).toEqual(['Nell Harrow']);
+  });
+});

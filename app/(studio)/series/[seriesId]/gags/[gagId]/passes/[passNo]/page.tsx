@@ -9,7 +9,7 @@ export const dynamic = 'force-dynamic';
 
 export default async function PassEditorPage({ params }: { params: Promise<{ seriesId: string; gagId: string; passNo: string }> }) {
   const { seriesId, gagId, passNo } = await params;
-  const { series, gag, role, pass, spec, passNumbers } = await loadPassEditor(seriesId, gagId, Number(passNo));
+  const { series, gag, role, pass, spec, passNumbers, passList, user } = await loadPassEditor(seriesId, gagId, Number(passNo));
   const canDraw = can(role, 'edit');
   return (
     <div className="space-y-2">
@@ -40,7 +40,12 @@ export default async function PassEditorPage({ params }: { params: Promise<{ ser
         key={pass.id}
         passId={pass.id}
         passNumber={pass.number}
+        gagId={gag.id}
+        seriesId={series.id}
+        meId={user.id}
+        passes={passList}
         canDraw={canDraw}
+        canComment={can(role, 'comment')}
         canRestore={canDraw}
         spec={spec}
         beats={gag.beats.map((b) => ({ kind: b.kind, note: b.note }))}
