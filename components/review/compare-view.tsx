@@ -18,8 +18,9 @@ const CAL_KEY = 'quadrille.pxPerMm';
 type PassSvg = { id: string; number: number; svg: string };
 type Mode = 'side' | 'overlay' | 'print' | 'squint';
 
+/** The SVG names itself ("Pass N"); the wrapper only sizes it. */
 function Page({ svg, label, style }: { svg: string; label: string; style?: React.CSSProperties }) {
-  return <div role="img" aria-label={label} className="[&>svg]:h-full [&>svg]:w-full" style={style} dangerouslySetInnerHTML={{ __html: svg }} />;
+  return <div data-label={label} className="[&>svg]:h-full [&>svg]:w-full" style={style} dangerouslySetInnerHTML={{ __html: svg }} />;
 }
 
 export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: { seriesId: string; gagId: string; gagTitle: string; meId: string; spec: PageSpec; passes: PassSvg[] }) {

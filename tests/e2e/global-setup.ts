@@ -63,6 +63,7 @@ export default async function setup(project: TestProject) {
   });
 
   const port = await freePort();
+  const mailPort = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   let output = '';
   const server = spawn(
@@ -76,6 +77,10 @@ export default async function setup(project: TestProject) {
         DATABASE_URL: databaseUrl,
         NEXTAUTH_URL: baseUrl,
         NEXTAUTH_SECRET: 'e2e-secret-for-the-test-server-only',
+        // The local SMTP fake starts with the server; /dev/mail shows what it caught.
+        MAIL_FAKE_PORT: String(mailPort),
+        MAIL_FAKE_DIR: path.join(dataDir, 'mail'),
+        QUADRILLE_DEV_PAGES: '1',
       },
       detached: true, // its own process group, so teardown stops next-server too
       stdio: ['ignore', 'pipe', 'pipe'],

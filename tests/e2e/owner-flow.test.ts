@@ -86,8 +86,8 @@ describe('owner on the board', () => {
     await page.getByRole('button', { name: 'Delete gag' }).click();
     await dialog.getByRole('button', { name: 'Delete gag' }).click();
     await page.waitForURL(`${baseUrl}/series/demo-kettle-crab`);
-    await page.getByRole('link', { name: 'Sugar Cube' }).waitFor();
-    expect(await page.getByRole('link', { name: 'Periwinkle March' }).count()).toBe(0);
+    await page.getByRole('link', { name: 'Sugar Cube', exact: true }).waitFor();
+    expect(await page.getByRole('link', { name: 'Periwinkle March', exact: true }).count()).toBe(0);
     expect((await page.goto(gagUrl))?.status()).toBe(404);
   });
 });

@@ -12,8 +12,14 @@ describe('viewer', () => {
     await signIn(page, baseUrl, 'viewer@quadrille.test');
     await page.goto(`${baseUrl}/series/demo-kettle-crab/gags/demo-gag-08`);
     await page.getByRole('heading', { name: 'Fog Horn' }).waitFor();
-    expect(await page.locator('input:not([type=hidden]), textarea, select').count()).toBe(0);
-    expect(await page.getByRole('button', { name: /Delete/ }).count()).toBe(0);
+    // Nothing that changes the gag: no title or beat fields, no status, no comment box, no stamp,
+    // and the checklist can be read but not ticked.
+    expect(await page.locator('textarea').count()).toBe(0);
+    expect(await page.locator('#gag-title, #gag-premise, #gag-status').count()).toBe(0);
+    expect(await page.getByRole('button', { name: /Delete|Post comment|Stamp|New pass|Resolve/ }).count()).toBe(0);
+    const ticks = page.getByRole('region', { name: 'Silent-read checklist' }).locator('input[type=checkbox]');
+    await ticks.first().waitFor();
+    expect(await ticks.evaluateAll((els) => els.every((e) => (e as HTMLInputElement).disabled))).toBe(true);
 
     // The same request the owner's page would send, from the viewer's signed-in page.
     const result = await page.evaluate(async () => {
