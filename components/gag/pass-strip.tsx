@@ -1,23 +1,29 @@
+'use client';
+// All passes side by side, each an SVG page rendered on the server (the same
+// geometry as the editor), with the beat notes under its panels. The list is
+// polled, so strokes others draw show up here without a reload.
 import Link from 'next/link';
+import useSWR from 'swr';
+import type { PassSummary } from '@/db/queries/passes';
+import { fetcher } from '@/lib/http/client';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import { NewPassButton } from './new-pass-button';
 
-type PassThumb = { id: string; number: number; seq: number; strokeCount: number; svg: string };
-
-/** All passes side by side, each a server-rendered SVG page with the beat notes under its panels. */
 export function PassStrip({
   seriesId,
   gagId,
-  passes,
+  passes: initial,
   beats,
   canEdit,
 }: {
   seriesId: string;
   gagId: string;
-  passes: PassThumb[];
+  passes: PassSummary[];
   beats: { kind: BeatKind; note: string }[];
   canEdit: boolean;
 }) {
+  const { data } = useSWR<PassSummary[]>(`/api/gags/${gagId}/passes`, fetcher, { fallbackData: initial, refreshInterval: 2000 });
+  const passes = data ?? initial;
   const notes = Object.fromEntries(beats.map((b) => [b.kind, b.note])) as Record<BeatKind, string>;
   return (
     <section aria-labelledby="passes-title" className="space-y-3">
@@ -38,10 +44,13 @@ export function PassStrip({
                 className="panel block p-2 hover:border-ink"
                 aria-label={`Open pass ${p.number} (${p.strokeCount} strokes)`}
               >
-                <div className="aspect-square w-full [&>svg]:h-full [&>svg]:w-full" dangerouslySetInnerHTML={{ __html: p.svg }} />
+                {/* eslint-disable-next-line @next/next/no-img-element -- a private SVG from our own route, versioned by seq */}
+                <img src={`/api/passes/${p.id}/thumbnail.svg?v=${p.seq}`} alt={`Pass ${p.number}`} width={272} height={272} className="aspect-square w-full bg-white" />
                 <p className="mt-1 flex justify-between text-sm">
                   <span className="font-bold">Pass {p.number}</span>
-                  <span className="text-graphite-faint">{p.strokeCount} strokes</span>
+                  <span className="text-graphite-faint" data-testid={`pass-${p.number}-strokes`}>
+                    {p.strokeCount} strokes
+                  </span>
                 </p>
               </Link>
               <dl className="mt-1 grid grid-cols-2 gap-x-2 gap-y-1 text-xs">

@@ -42,9 +42,10 @@ export async function loadBoard(seriesId: string) {
 
 export async function loadGag(seriesId: string, gagId: string) {
   const base = await seriesAccess(seriesId, `/series/${seriesId}/gags/${gagId}`);
-  const gag = await findGag(await getDb(), gagId);
+  const db = await getDb();
+  const gag = await findGag(db, gagId);
   if (!gag || gag.seriesId !== seriesId) notFound();
-  return { ...base, gag };
+  return { ...base, gag, passes: await listPasses(db, gagId) };
 }
 
 export async function loadPassEditor(seriesId: string, gagId: string, passNo: number) {

@@ -76,6 +76,8 @@ describe('review loop', () => {
   });
 
   it('a co-creator draws a stroke in that pass and the stamp is gone', async () => {
+    const count = async () => Number((await page.getByTestId('pass-2-strokes').textContent())?.split(' ')[0]);
+    const before = await count();
     await signIn(page2, baseUrl, 'cocreator@quadrille.test');
     await page2.goto(`${GAG}/passes/2`);
     const canvas = page2.getByTestId('sketch-canvas');
@@ -89,5 +91,7 @@ describe('review loop', () => {
     // The editor, still on the gag page, sees it without reloading.
     await expect.poll(async () => page.getByTestId('current-stamp').textContent(), { timeout: 10_000 }).toContain('cleared');
     await expect.poll(async () => page.getByText('In review', { exact: true }).first().isVisible(), { timeout: 10_000 }).toBe(true);
+    // …and the new stroke is in the pass's thumbnail count on the gag page.
+    await expect.poll(count, { timeout: 10_000 }).toBe(before + 1);
   });
 });

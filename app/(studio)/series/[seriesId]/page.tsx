@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import { ActivityFeed } from '@/components/board/activity-feed';
 import { Board } from '@/components/board/board';
+import { ChecklistEditor } from '@/components/series/checklist-editor';
 import { PageSpecForm } from '@/components/series/page-spec-form';
 import { can } from '@/lib/auth/permissions';
 import { loadBoard } from '@/lib/data/studio';
@@ -16,7 +17,10 @@ export default async function BoardPage({ params }: { params: Promise<{ seriesId
       <Board seriesId={series.id} seriesTitle={series.title} role={role} initialGags={gags} />
       <div className="grid gap-6 lg:grid-cols-2">
         <ActivityFeed seriesId={series.id} />
-        <PageSpecForm seriesId={series.id} initial={spec} canEdit={can(role, 'manage')} />
+        <div className="space-y-4">
+          <PageSpecForm seriesId={series.id} initial={spec} canEdit={can(role, 'manage')} />
+          <ChecklistEditor seriesId={series.id} canEdit={can(role, 'manage')} />
+        </div>
       </div>
     </div>
   );

@@ -3,15 +3,14 @@ import { GagDetail } from '@/components/gag/gag-detail';
 import { PassStrip } from '@/components/gag/pass-strip';
 import { ReviewSection } from '@/components/review/review-section';
 import { can } from '@/lib/auth/permissions';
-import { loadGag, loadPassThumbnails } from '@/lib/data/studio';
+import { loadGag } from '@/lib/data/studio';
 
 export const metadata: Metadata = { title: 'Gag' };
 export const dynamic = 'force-dynamic';
 
 export default async function GagPage({ params }: { params: Promise<{ seriesId: string; gagId: string }> }) {
   const { seriesId, gagId } = await params;
-  const { series, role, gag, user } = await loadGag(seriesId, gagId);
-  const { passes } = await loadPassThumbnails(series.id, gag.id);
+  const { series, role, gag, user, passes } = await loadGag(seriesId, gagId);
   return (
     <div className="space-y-8">
       <GagDetail key={gag.id} seriesId={series.id} seriesTitle={series.title} role={role} initial={gag} />
