@@ -119,6 +119,19 @@ export const DEMO_GAGS: DemoGag[] = [
   },
 ];
 
+type DemoComment = { id: string; gagId: string; pass?: number; panel?: number; beat?: BeatKind; by: string; body: string; parent?: string; resolved?: boolean };
+
+const DEMO_COMMENTS: DemoComment[] = [
+  { id: 'demo-c-1', gagId: 'demo-gag-07', pass: 2, panel: 2, by: 'demo-user-editor', body: 'The wave arrives too late: the turn should hit in this panel, not the next.' },
+  { id: 'demo-c-2', gagId: 'demo-gag-07', parent: 'demo-c-1', by: 'demo-user-cocreator', body: 'Agreed. I will raise the horizon and bring the wave in from the left.' },
+  { id: 'demo-c-3', gagId: 'demo-gag-07', beat: 'payoff', by: 'demo-user-editor', body: 'The payoff has no note yet: what does Kettle hold at the end?' },
+  { id: 'demo-c-4', gagId: 'demo-gag-08', pass: 2, panel: 3, by: 'demo-user-cocreator', body: 'Mrs Brine reads clearly here even as a silhouette.' },
+  { id: 'demo-c-5', gagId: 'demo-gag-05', pass: 3, by: 'demo-user-editor', body: 'This pass reads in one glance. Stamped.', resolved: true },
+];
+
+/** Gags past "in review" carry the stamp that let them through, on their last pass. */
+const STAMPED: GagStatus[] = ['ready_to_ink', 'inked', 'scanned', 'placed'];
+
 /** Loads the demo scenario; safe to run again (existing rows are left as they are). */
 export async function seedDemo(db: Kysely<Database>): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -186,7 +199,29 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
           .insertInto('revisions')
           .values({ id: `${passId}-rev-1`, passId, seq: 1, reason: 'created', restoredFrom: null, userId: 'demo-user-owner', createdAt: changed })
           .execute();
+        if (n === passes && STAMPED.includes(g.status)) {
+          await trx
+            .insertInto('stamps')
+            .values({ id: `${passId}-stamp`, passId, gagId: g.id, decision: 'ready', note: 'Reads without a word.', passSeq: 1, userId: 'demo-user-editor', createdAt: changed, clearedAt: null, clearedSeq: null })
+            .onConflict((oc) => oc.doNothing())
+            .execute();
+        }
       }
+    }
+    for (const c of DEMO_COMMENTS) {
+      const passId = c.pass ? `${c.gagId}-pass-${c.pass}` : null;
+      const target = c.parent ? 'panel' : c.beat ? 'beat' : c.panel !== undefined ? 'panel' : passId ? 'pass' : 'gag';
+      const parent = c.parent ? DEMO_COMMENTS.find((p) => p.id === c.parent) : undefined;
+      await trx
+        .insertInto('comments')
+        .values({
+          id: c.id, gagId: c.gagId, parentId: c.parent ?? null, target,
+          passId: parent ? `${parent.gagId}-pass-${parent.pass}` : passId, panel: parent?.panel ?? c.panel ?? null, beat: c.beat ?? null, x: null, y: null,
+          body: c.body, authorId: c.by, createdAt: at(24 * 20 + DEMO_COMMENTS.indexOf(c)), editedAt: null,
+          resolvedAt: c.resolved ? at(24 * 21) : null, resolvedBy: c.resolved ? 'demo-user-owner' : null,
+        })
+        .onConflict((oc) => oc.doNothing())
+        .execute();
     }
   });
 }

@@ -42,6 +42,15 @@ describe('migrations and the demo seed', () => {
     expect((await counts()).strokes).toBeGreaterThan(100);
   });
 
+  it('gags past review carry their stamp; some gags have comment threads', async () => {
+    const stamps = await db.selectFrom('stamps').select(['gagId', 'decision', 'clearedAt']).execute();
+    const stamped = new Set(stamps.map((st) => st.gagId));
+    for (const g of DEMO_GAGS.filter((x) => ['ready_to_ink', 'inked', 'scanned', 'placed'].includes(x.status))) expect(stamped.has(g.id)).toBe(true);
+    expect(stamps.every((st) => st.decision === 'ready' && st.clearedAt === null)).toBe(true);
+    const comments = await db.selectFrom('comments').select(['gagId', 'parentId']).execute();
+    expect(comments.filter((c) => c.parentId).length).toBeGreaterThan(0);
+  });
+
   it('is idempotent, and leaves edited rows alone', async () => {
     await db.updateTable('gags').set({ title: 'Renamed by hand' }).where('id', '=', 'demo-gag-01').execute();
     const before = await counts();
