@@ -1,7 +1,7 @@
 // Every route × every kind of caller, with the status each must get.
 // Later routes join ROUTES. A refused call must leave the database unchanged.
 import { randomUUID } from 'node:crypto';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as gagRoute from '@/app/api/gags/[gagId]/route';
 import * as healthRoute from '@/app/api/health/route';
 import * as gagsRoute from '@/app/api/series/[seriesId]/gags/route';
@@ -36,13 +36,19 @@ import { applyBatch, createPass } from '@/db/queries/passes';
 import { checklistItems } from '@/db/queries/review';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { callRoute } from '../support/call-route';
+import { startMailFake } from '../support/mail-fake';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
 
 const PERSONAS: Persona[] = ['anonymous', 'viewer', 'editor', 'cocreator', 'owner', 'outsider'];
 
 let db: Awaited<ReturnType<typeof freshDb>>;
+let mail: Awaited<ReturnType<typeof startMailFake>>;
 beforeAll(async () => {
+  mail = await startMailFake(); // invitations and stamps send mail; catch it
   db = await freshDb();
+});
+afterAll(async () => {
+  await mail?.stop();
 });
 
 async function newGag(): Promise<string> {
