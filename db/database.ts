@@ -248,6 +248,32 @@ export interface PresenceTable {
   seenAt: Timestamp;
 }
 
+export type EntryKind = 'gag' | 'cover' | 'inside-cover' | 'title' | 'credits' | 'blank' | 'afterword' | 'inside-back' | 'back-cover';
+
+export interface VolumesTable {
+  id: string;
+  seriesId: string;
+  title: string;
+  /** YYYY-MM-DD */
+  deadline: string;
+  hoursPerWeek: number;
+  /** JSON of a VolumeSpec. */
+  spec: string;
+  /** JSON of hours per page per stage. */
+  hoursPerPage: string;
+  createdAt: Timestamp;
+}
+
+export interface VolumeEntriesTable {
+  id: string;
+  volumeId: string;
+  kind: EntryKind;
+  gagId: string | null;
+  /** Fractional order key (fractional-indexing). */
+  position: string;
+  createdAt: Timestamp;
+}
+
 export interface Database {
   users: UsersTable;
   series: SeriesTable;
@@ -271,6 +297,8 @@ export interface Database {
   invitations: InvitationsTable;
   mailLog: MailLogTable;
   presence: PresenceTable;
+  volumes: VolumesTable;
+  volumeEntries: VolumeEntriesTable;
 }
 
 export type User = Selectable<UsersTable>;

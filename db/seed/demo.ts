@@ -11,6 +11,9 @@ import type { Database } from '../database';
 import { encodePoints } from '@/lib/strokes/codec';
 import { pointsBounds } from '@/lib/strokes/hit';
 import { demoSketch } from './demo-sketches';
+import { generateKeyBetween } from 'fractional-indexing';
+import { DEFAULT_VOLUME_SPEC } from '@/lib/print/book';
+import { DEFAULT_HOURS } from '@/lib/planning/plan';
 
 /** How many passes each demo status has drawn so far. */
 const PASSES_BY_STATUS: Record<GagStatus, number> = {
@@ -132,6 +135,20 @@ const DEMO_COMMENTS: DemoComment[] = [
 /** Gags past "in review" carry the stamp that let them through, on their last pass. */
 const STAMPED: GagStatus[] = ['ready_to_ink', 'inked', 'scanned', 'placed'];
 
+export const DEMO_VOLUME_ID = 'demo-volume-low-tide';
+/** Volume 1 "Low Tide": front matter, the finished gags, an afterword. Nine pages: the flatplan asks for 3 blanks. */
+const LOW_TIDE_ORDER: { id: string; kind: 'gag' | 'cover' | 'title' | 'afterword'; gagId?: string }[] = [
+  { id: 'demo-entry-cover', kind: 'cover' },
+  { id: 'demo-entry-title', kind: 'title' },
+  { id: 'demo-entry-01', kind: 'gag', gagId: 'demo-gag-01' },
+  { id: 'demo-entry-02', kind: 'gag', gagId: 'demo-gag-02' },
+  { id: 'demo-entry-03', kind: 'gag', gagId: 'demo-gag-03' },
+  { id: 'demo-entry-04', kind: 'gag', gagId: 'demo-gag-04' },
+  { id: 'demo-entry-05', kind: 'gag', gagId: 'demo-gag-05' },
+  { id: 'demo-entry-06', kind: 'gag', gagId: 'demo-gag-06' },
+  { id: 'demo-entry-afterword', kind: 'afterword' },
+];
+
 /** Loads the demo scenario; safe to run again (existing rows are left as they are). */
 export async function seedDemo(db: Kysely<Database>): Promise<void> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -207,6 +224,24 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
             .execute();
         }
       }
+    }
+    await trx
+      .insertInto('volumes')
+      .values({
+        id: DEMO_VOLUME_ID, seriesId: DEMO_SERIES_ID, title: 'Low Tide', deadline: '2027-03-13', hoursPerWeek: 6,
+        spec: JSON.stringify({ ...DEFAULT_VOLUME_SPEC, trimW: 150, trimH: 150, bleed: 3, binding: 'saddle' }),
+        hoursPerPage: JSON.stringify(DEFAULT_HOURS), createdAt: at(0),
+      })
+      .onConflict((oc) => oc.doNothing())
+      .execute();
+    let key: string | null = null;
+    for (const e of LOW_TIDE_ORDER) {
+      key = generateKeyBetween(key, null);
+      await trx
+        .insertInto('volumeEntries')
+        .values({ id: e.id, volumeId: DEMO_VOLUME_ID, kind: e.kind, gagId: e.gagId ?? null, position: key, createdAt: at(1) })
+        .onConflict((oc) => oc.doNothing())
+        .execute();
     }
     for (const c of DEMO_COMMENTS) {
       const passId = c.pass ? `${c.gagId}-pass-${c.pass}` : null;

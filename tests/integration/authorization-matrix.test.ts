@@ -30,6 +30,14 @@ import { createInvitation } from '@/db/queries/members';
 import * as stampsRoute from '@/app/api/gags/[gagId]/stamps/route';
 import * as presenceRoute from '@/app/api/gags/[gagId]/presence/route';
 import { createSeries } from '@/db/queries/series';
+import * as volumesRoute from '@/app/api/series/[seriesId]/volumes/route';
+import * as volumeRoute from '@/app/api/volumes/[volumeId]/route';
+import * as entriesRoute from '@/app/api/volumes/[volumeId]/entries/route';
+import * as entryRoute from '@/app/api/volumes/[volumeId]/entries/[entryId]/route';
+import * as positionRoute from '@/app/api/volumes/[volumeId]/entries/[entryId]/position/route';
+import * as flatplanRoute from '@/app/api/volumes/[volumeId]/flatplan/route';
+import * as planRoute from '@/app/api/volumes/[volumeId]/plan/route';
+import { addEntry, createVolume } from '@/db/queries/volumes';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
 import { applyBatch, createPass } from '@/db/queries/passes';
@@ -79,6 +87,14 @@ async function newInvitationToken(): Promise<string> {
   const ownerId = await newMember();
   const { id } = await createSeries(db, { id: randomUUID(), title: 'Elsewhere', ownerId });
   return (await createInvitation(db, { seriesId: id, email: `${randomUUID()}@pier.test`, role: 'viewer', invitedBy: ownerId })).token;
+}
+
+/** A volume with two gag pages. */
+async function newVolume(): Promise<{ volumeId: string; entryIds: string[] }> {
+  const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Matrix volume', deadline: '2027-03-13' });
+  const a = await addEntry(db, v.id, DEMO_SERIES_ID, { gagId: await newGag() });
+  const b = await addEntry(db, v.id, DEMO_SERIES_ID, { gagId: await newGag() });
+  return { volumeId: v.id, entryIds: [a.id, b.id] };
 }
 
 type Prepared = { params?: Record<string, string>; body?: unknown };
@@ -257,6 +273,57 @@ const ROUTES: RouteCase[] = [
     prepare: async () => ({ params: { gagId: await newGag() }, body: { where: 'pass:1' } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
+  {
+    route: 'GET /api/series/:seriesId/volumes', handler: volumesRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/series/:seriesId/volumes', handler: volumesRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { title: 'Spring Tide', deadline: '2027-06-01' } }),
+    expected: row(401, 403, 403, 403, 201, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId', handler: volumeRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'PATCH /api/volumes/:volumeId', handler: volumeRoute.PATCH, method: 'PATCH',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId }, body: { spec: { binding: 'perfect' } } }),
+    expected: row(401, 403, 403, 403, 200, 404),
+  },
+  {
+    route: 'POST /api/volumes/:volumeId/entries', handler: entriesRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId }, body: { kind: 'blank' } }),
+    expected: row(401, 403, 403, 201, 201, 404),
+  },
+  {
+    route: 'DELETE /api/volumes/:volumeId/entries/:entryId', handler: entryRoute.DELETE, method: 'DELETE',
+    prepare: async () => {
+      const v = await newVolume();
+      return { params: { volumeId: v.volumeId, entryId: v.entryIds[0]! } };
+    },
+    expected: row(401, 403, 403, 204, 204, 404),
+  },
+  {
+    route: 'PUT /api/volumes/:volumeId/entries/:entryId/position', handler: positionRoute.PUT, method: 'PUT',
+    prepare: async () => {
+      const v = await newVolume();
+      return { params: { volumeId: v.volumeId, entryId: v.entryIds[1]! }, body: { before: v.entryIds[0] } };
+    },
+    expected: row(401, 403, 403, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/flatplan', handler: flatplanRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/plan', handler: planRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
   { route: 'GET /api/me', handler: meRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
   {
     route: 'PATCH /api/me', handler: meRoute.PATCH, method: 'PATCH',
@@ -311,6 +378,8 @@ async function snapshot() {
     invitations: await db.selectFrom('invitations').selectAll().orderBy('id').execute(),
     notify: await db.selectFrom('users').select(['id', 'notifyEmail']).orderBy('id').execute(),
     presence: await db.selectFrom('presence').selectAll().orderBy('scope').orderBy('userId').execute(),
+    volumes: await db.selectFrom('volumes').selectAll().orderBy('id').execute(),
+    entries: await db.selectFrom('volumeEntries').selectAll().orderBy('id').execute(),
   });
 }
 

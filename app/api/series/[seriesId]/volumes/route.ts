@@ -1,0 +1,18 @@
+import { findSeries } from '@/db/queries/series';
+import { createVolume, listVolumes } from '@/db/queries/volumes';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { DEFAULT_VOLUME_SPEC } from '@/lib/print/book';
+import { createVolumeSchema, specIssues } from '@/lib/validation/volume';
+
+type Params = { seriesId: string };
+const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await listVolumes(db, seriesId)));
+
+/** Owners: `{ title, deadline, hoursPerWeek?, spec? }` → 201. */
+export const POST = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId }) => {
+  const input = await parseBody(req, createVolumeSchema);
+  const problems = specIssues({ ...DEFAULT_VOLUME_SPEC, ...input.spec });
+  if (problems.length) throw new HttpError(422, problems.join(' '));
+  return Response.json(await createVolume(db, { seriesId, ...input }), { status: 201 });
+});

@@ -1,0 +1,17 @@
+import { VolumeRefused, moveEntry, seriesOfVolume } from '@/db/queries/volumes';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { moveEntrySchema } from '@/lib/validation/volume';
+
+type Params = { volumeId: string; entryId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+
+/** `{ before: entryId }` or `{ after: entryId }`: one row is rewritten. */
+export const PUT = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params }) => {
+  const to = await parseBody(req, moveEntrySchema);
+  try {
+    return Response.json({ id: params.entryId, position: await moveEntry(db, params.volumeId, params.entryId, to) });
+  } catch (err) {
+    if (err instanceof VolumeRefused) throw new HttpError(err.status, err.message);
+    throw err;
+  }
+});

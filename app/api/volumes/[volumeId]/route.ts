@@ -1,0 +1,21 @@
+import { findVolume, listEntries, seriesOfVolume, updateVolume } from '@/db/queries/volumes';
+import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { specIssues, updateVolumeSchema } from '@/lib/validation/volume';
+
+type Params = { volumeId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+
+/** The volume with its running order. */
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
+  const volume = await findVolume(db, params.volumeId);
+  return Response.json({ ...volume, entries: await listEntries(db, params.volumeId) });
+});
+
+/** Owners change the title, deadline, hours and print spec. */
+export const PATCH = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, params }) => {
+  const patch = await parseBody(req, updateVolumeSchema);
+  const cur = (await findVolume(db, params.volumeId))!;
+  const problems = specIssues({ ...cur.spec, ...patch.spec });
+  if (problems.length) throw new HttpError(422, problems.join(' '));
+  return Response.json(await updateVolume(db, params.volumeId, patch));
+});

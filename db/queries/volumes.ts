@@ -1,0 +1,218 @@
+// Volumes, their running order and what follows from it (flatplan, plan).
+import { randomUUID } from 'node:crypto';
+import { generateKeyBetween } from 'fractional-indexing';
+import type { Kysely, Selectable } from 'kysely';
+import { type GagStatus } from '@/lib/gags/status';
+import { DEFAULT_VOLUME_SPEC, type Spread, type VolumeSpec, blankSuggestion, blanksNeeded, pageCountValid, printerSpreads, readerSpreads, sheetsNeeded, spineMm } from '@/lib/print/book';
+import { DEFAULT_HOURS, type Stage, plan } from '@/lib/planning/plan';
+import type { Database, EntryKind, VolumesTable } from '../database';
+
+export type VolumeDto = {
+  id: string;
+  seriesId: string;
+  title: string;
+  deadline: string;
+  hoursPerWeek: number;
+  spec: VolumeSpec;
+  hoursPerPage: Record<Stage, number>;
+};
+
+export type EntryDto = { id: string; kind: EntryKind; gagId: string | null; position: string; title: string | null; status: GagStatus | null; latestPass: { id: string; seq: number } | null };
+
+export class VolumeRefused extends Error {
+  constructor(public status: number, message: string) {
+    super(message);
+  }
+}
+
+function toDto(row: Selectable<VolumesTable>): VolumeDto {
+  return {
+    id: row.id,
+    seriesId: row.seriesId,
+    title: row.title,
+    deadline: row.deadline,
+    hoursPerWeek: row.hoursPerWeek,
+    spec: { ...DEFAULT_VOLUME_SPEC, ...(JSON.parse(row.spec) as Partial<VolumeSpec>) },
+    hoursPerPage: { ...DEFAULT_HOURS, ...(JSON.parse(row.hoursPerPage) as Partial<Record<Stage, number>>) },
+  };
+}
+
+export async function listVolumes(db: Kysely<Database>, seriesId: string): Promise<VolumeDto[]> {
+  const rows = await db.selectFrom('volumes').selectAll().where('seriesId', '=', seriesId).orderBy('createdAt').execute();
+  return rows.map(toDto);
+}
+
+export async function findVolume(db: Kysely<Database>, id: string): Promise<VolumeDto | undefined> {
+  const row = await db.selectFrom('volumes').selectAll().where('id', '=', id).executeTakeFirst();
+  return row ? toDto(row) : undefined;
+}
+
+export async function seriesOfVolume(db: Kysely<Database>, id: string): Promise<string | null> {
+  return (await db.selectFrom('volumes').select('seriesId').where('id', '=', id).executeTakeFirst())?.seriesId ?? null;
+}
+
+export async function createVolume(
+  db: Kysely<Database>,
+  input: { seriesId: string; title: string; deadline: string; hoursPerWeek?: number; spec?: Partial<VolumeSpec>; id?: string },
+): Promise<VolumeDto> {
+  const id = input.id ?? randomUUID();
+  await db
+    .insertInto('volumes')
+    .values({
+      id,
+      seriesId: input.seriesId,
+      title: input.title,
+      deadline: input.deadline,
+      hoursPerWeek: input.hoursPerWeek ?? 6,
+      spec: JSON.stringify({ ...DEFAULT_VOLUME_SPEC, ...input.spec }),
+      hoursPerPage: JSON.stringify(DEFAULT_HOURS),
+      createdAt: new Date().toISOString(),
+    })
+    .execute();
+  return (await findVolume(db, id))!;
+}
+
+export async function updateVolume(
+  db: Kysely<Database>,
+  id: string,
+  patch: { title?: string; deadline?: string; hoursPerWeek?: number; spec?: Partial<VolumeSpec>; hoursPerPage?: Partial<Record<Stage, number>> },
+): Promise<VolumeDto> {
+  const cur = (await findVolume(db, id))!;
+  await db
+    .updateTable('volumes')
+    .set({
+      ...(patch.title !== undefined ? { title: patch.title } : {}),
+      ...(patch.deadline !== undefined ? { deadline: patch.deadline } : {}),
+      ...(patch.hoursPerWeek !== undefined ? { hoursPerWeek: patch.hoursPerWeek } : {}),
+      ...(patch.spec ? { spec: JSON.stringify({ ...cur.spec, ...patch.spec }) } : {}),
+      ...(patch.hoursPerPage ? { hoursPerPage: JSON.stringify({ ...cur.hoursPerPage, ...patch.hoursPerPage }) } : {}),
+    })
+    .where('id', '=', id)
+    .execute();
+  return (await findVolume(db, id))!;
+}
+
+export async function listEntries(db: Kysely<Database>, volumeId: string): Promise<EntryDto[]> {
+  const rows = await db
+    .selectFrom('volumeEntries as e')
+    .leftJoin('gags as g', 'g.id', 'e.gagId')
+    .select(['e.id', 'e.kind', 'e.gagId', 'e.position', 'g.title', 'g.status'])
+    .where('e.volumeId', '=', volumeId)
+    .orderBy('e.position')
+    .execute();
+  const gagIds = rows.map((r) => r.gagId).filter((x): x is string => !!x);
+  const passes = gagIds.length
+    ? await db.selectFrom('passes').select(['id', 'gagId', 'number', 'seq']).where('gagId', 'in', gagIds).execute()
+    : [];
+  const latest = new Map<string, { id: string; number: number; seq: number }>();
+  for (const p of passes) if (!latest.get(p.gagId) || latest.get(p.gagId)!.number < p.number) latest.set(p.gagId, p);
+  return rows.map((r) => {
+    const l = r.gagId ? latest.get(r.gagId) : undefined;
+    return { ...r, title: r.title ?? null, status: r.status ?? null, latestPass: l ? { id: l.id, seq: l.seq } : null };
+  });
+}
+
+async function lastKey(db: Kysely<Database>, volumeId: string): Promise<string | null> {
+  const row = await db.selectFrom('volumeEntries').select('position').where('volumeId', '=', volumeId).orderBy('position', 'desc').limit(1).executeTakeFirst();
+  return row?.position ?? null;
+}
+
+/** Appends a gag page or a matter page at the end of the running order. */
+export async function addEntry(db: Kysely<Database>, volumeId: string, seriesId: string, input: { gagId?: string; kind?: EntryKind }): Promise<EntryDto> {
+  const id = randomUUID();
+  if (input.gagId) {
+    const gag = await db.selectFrom('gags').select(['seriesId']).where('id', '=', input.gagId).executeTakeFirst();
+    if (!gag || gag.seriesId !== seriesId) throw new VolumeRefused(422, 'That gag is not in this series.');
+    const placed = await db.selectFrom('volumeEntries').select('volumeId').where('gagId', '=', input.gagId).executeTakeFirst();
+    if (placed) throw new VolumeRefused(409, 'That gag is already placed in a volume; a gag is one page of one book.');
+  }
+  const position = generateKeyBetween(await lastKey(db, volumeId), null);
+  await db
+    .insertInto('volumeEntries')
+    .values({ id, volumeId, kind: input.gagId ? 'gag' : input.kind!, gagId: input.gagId ?? null, position, createdAt: new Date().toISOString() })
+    .execute();
+  return (await listEntries(db, volumeId)).find((e) => e.id === id)!;
+}
+
+export async function removeEntry(db: Kysely<Database>, volumeId: string, entryId: string): Promise<boolean> {
+  const r = await db.deleteFrom('volumeEntries').where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
+  return Number(r.numDeletedRows) > 0;
+}
+
+/**
+ * Moves one entry next to another: one row is rewritten, whatever the length
+ * of the running order (a new fractional key between its new neighbours).
+ */
+export async function moveEntry(db: Kysely<Database>, volumeId: string, entryId: string, to: { before?: string; after?: string }) {
+  return db.transaction().execute(async (trx) => {
+    const me = await trx.selectFrom('volumeEntries').select(['id', 'position']).where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
+    if (!me) throw new VolumeRefused(404, 'Not found.');
+    const anchorId = to.after ?? to.before!;
+    if (anchorId === entryId) return me.position;
+    const anchor = await trx.selectFrom('volumeEntries').select(['id', 'position']).where('id', '=', anchorId).where('volumeId', '=', volumeId).executeTakeFirst();
+    if (!anchor) throw new VolumeRefused(422, 'The entry to move next to is not in this volume.');
+    let lo: string | null;
+    let hi: string | null;
+    if (to.after) {
+      lo = anchor.position;
+      const next = await trx
+        .selectFrom('volumeEntries')
+        .select('position')
+        .where('volumeId', '=', volumeId)
+        .where('position', '>', anchor.position)
+        .where('id', '!=', entryId)
+        .orderBy('position')
+        .limit(1)
+        .executeTakeFirst();
+      hi = next?.position ?? null;
+    } else {
+      hi = anchor.position;
+      const prev = await trx
+        .selectFrom('volumeEntries')
+        .select('position')
+        .where('volumeId', '=', volumeId)
+        .where('position', '<', anchor.position)
+        .where('id', '!=', entryId)
+        .orderBy('position', 'desc')
+        .limit(1)
+        .executeTakeFirst();
+      lo = prev?.position ?? null;
+    }
+    const position = generateKeyBetween(lo, hi);
+    await trx.updateTable('volumeEntries').set({ position }).where('id', '=', entryId).execute();
+    return position;
+  });
+}
+
+export type Flatplan = {
+  pages: { number: number; kind: EntryKind; gagId?: string; entryId: string; title: string | null; status: GagStatus | null; latestPass: { id: string; seq: number } | null }[];
+  spreads: Spread[];
+  pageCountValid: boolean;
+  blanksNeeded: number;
+  blanksAt: number;
+  spineMm: number;
+  sheets: number;
+  printerSpreads: Spread[];
+  notReady: { gagId: string; title: string; status: GagStatus }[];
+};
+
+export function flatplanOf(volume: VolumeDto, entries: EntryDto[]): Flatplan {
+  const n = entries.length;
+  const READY_OR_LATER: GagStatus[] = ['ready_to_ink', 'inked', 'scanned', 'placed'];
+  return {
+    pages: entries.map((e, i) => ({ number: i + 1, kind: e.kind, ...(e.gagId ? { gagId: e.gagId } : {}), entryId: e.id, title: e.title, status: e.status, latestPass: e.latestPass })),
+    spreads: readerSpreads(n, volume.spec.direction),
+    pageCountValid: pageCountValid(n, volume.spec.binding),
+    blanksNeeded: blanksNeeded(n, volume.spec.binding),
+    blanksAt: blankSuggestion(entries.map((e) => e.kind)),
+    spineMm: spineMm(n, volume.spec.caliperUm),
+    sheets: sheetsNeeded(n, volume.spec.binding),
+    printerSpreads: volume.spec.binding === 'saddle' ? printerSpreads(n) : [],
+    notReady: entries.filter((e) => e.gagId && e.status && !READY_OR_LATER.includes(e.status)).map((e) => ({ gagId: e.gagId!, title: e.title!, status: e.status! })),
+  };
+}
+
+export function planOf(volume: VolumeDto, entries: EntryDto[], today = new Date()) {
+  const gags = entries.filter((e) => e.status).map((e) => ({ status: e.status! }));
+  return plan({ gags, hoursPerPage: volume.hoursPerPage, hoursPerWeek: volume.hoursPerWeek, today, deadline: new Date(`${volume.deadline}T00:00:00Z`) });
+}

@@ -1,0 +1,56 @@
+import { z } from 'zod';
+import { STAGES } from '@/lib/planning/plan';
+import { specProblems } from '@/lib/print/geometry';
+
+const date = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Dates are YYYY-MM-DD.').refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), 'Not a real date.');
+
+export const volumeSpecPatch = z
+  .object({
+    trimW: z.number().min(50).max(600),
+    trimH: z.number().min(50).max(600),
+    bleed: z.number().min(0).max(25),
+    safe: z.number().min(0).max(60),
+    gutter: z.number().min(0).max(60),
+    binding: z.enum(['saddle', 'perfect']),
+    caliperUm: z.number().min(20).max(1000),
+    direction: z.enum(['ltr', 'rtl']),
+  })
+  .partial()
+  .strict();
+
+export const createVolumeSchema = z
+  .object({
+    title: z.string().trim().min(1, 'Give the volume a title.').max(120),
+    deadline: date,
+    hoursPerWeek: z.number().min(0.5).max(100).optional(),
+    spec: volumeSpecPatch.optional(),
+  })
+  .strict();
+
+export const updateVolumeSchema = z
+  .object({
+    title: z.string().trim().min(1).max(120).optional(),
+    deadline: date.optional(),
+    hoursPerWeek: z.number().min(0.5).max(100).optional(),
+    spec: volumeSpecPatch.optional(),
+    hoursPerPage: z.object(Object.fromEntries(STAGES.map((s) => [s, z.number().min(0).max(40)])) as Record<(typeof STAGES)[number], z.ZodNumber>).partial().strict().optional(),
+  })
+  .strict()
+  .refine((v) => Object.values(v).some((x) => x !== undefined), 'Send at least one field.');
+
+export const MATTER_KINDS = ['cover', 'inside-cover', 'title', 'credits', 'blank', 'afterword', 'inside-back', 'back-cover'] as const;
+
+export const addEntrySchema = z.union([
+  z.object({ gagId: z.string().min(1).max(64) }).strict(),
+  z.object({ kind: z.enum(MATTER_KINDS) }).strict(),
+]);
+
+export const moveEntrySchema = z
+  .object({ before: z.string().min(1).max(64).optional(), after: z.string().min(1).max(64).optional() })
+  .strict()
+  .refine((v) => (v.before ? 1 : 0) + (v.after ? 1 : 0) === 1, 'Give exactly one of "before" or "after".');
+
+/** A whole spec after a patch must still leave room for panels. */
+export function specIssues(spec: { trimW: number; trimH: number; bleed: number; safe: number; gutter: number }) {
+  return specProblems(spec);
+}
