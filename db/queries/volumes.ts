@@ -216,3 +216,15 @@ export function planOf(volume: VolumeDto, entries: EntryDto[], today = new Date(
   const gags = entries.filter((e) => e.status).map((e) => ({ status: e.status! }));
   return plan({ gags, hoursPerPage: volume.hoursPerPage, hoursPerWeek: volume.hoursPerWeek, today, deadline: new Date(`${volume.deadline}T00:00:00Z`) });
 }
+
+/** The series' gags not placed in any volume, in board order. */
+export async function unplacedGags(db: Kysely<Database>, seriesId: string) {
+  return db
+    .selectFrom('gags as g')
+    .leftJoin('volumeEntries as e', 'e.gagId', 'g.id')
+    .select(['g.id', 'g.title', 'g.status'])
+    .where('g.seriesId', '=', seriesId)
+    .where('e.id', 'is', null)
+    .orderBy('g.position')
+    .execute();
+}

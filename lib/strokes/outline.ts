@@ -31,22 +31,21 @@ const avg = (a: number, b: number) => (a + b) / 2;
 const f = (n: number) => Math.round(n * 1000) / 1000;
 
 /**
- * An SVG path for a closed outline, with quadratic curves through midpoints
- * (the rendering perfect-freehand's documentation recommends).
+ * An SVG path for a closed outline: quadratic curves through the midpoints of
+ * the outline's edges (the rendering perfect-freehand's documentation recommends),
+ * written with explicit Q segments so every consumer (browsers, pdf-lib) reads it alike.
  */
 export function svgPathFromOutline(poly: Polygon): string {
-  const len = poly.length;
-  if (len < 4) return '';
-  let a = poly[0]!;
-  let b = poly[1]!;
-  const c = poly[2]!;
-  let d = `M${f(a[0])},${f(a[1])} Q${f(b[0])},${f(b[1])} ${f(avg(b[0], c[0]))},${f(avg(b[1], c[1]))} T`;
-  for (let i = 2, max = len - 1; i < max; i++) {
-    a = poly[i]!;
-    b = poly[i + 1]!;
-    d += `${f(avg(a[0], b[0]))},${f(avg(a[1], b[1]))} `;
-  }
-  return `${d}Z`;
+  const parts: string[] = [];
+  traceOutline(
+    {
+      moveTo: (x, y) => parts.push(`M${f(x)},${f(y)}`),
+      quadraticCurveTo: (cx, cy, x, y) => parts.push(`Q${f(cx)},${f(cy)} ${f(x)},${f(y)}`),
+      closePath: () => parts.push('Z'),
+    },
+    poly,
+  );
+  return parts.join(' ');
 }
 
 /** The same closed curve as a canvas Path2D-compatible sequence of calls. */

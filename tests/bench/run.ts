@@ -81,7 +81,7 @@ function row(goal: string, ratio: number, limit: number, detail: string, limitTe
 }
 
 async function main() {
-  execFileSync('bash', [path.join(root, 'tests/ensure-chromium.sh')], { stdio: 'inherit' });
+  execFileSync('bash', [path.join(root, 'tests/ensure-tools.sh')], { stdio: 'inherit' });
   console.log('Quadrille bench — 5,000 strokes of 60 points, headless Chromium (software raster) and SQLite\n');
   const c = await clientFigures();
   const s = await serverFigures();

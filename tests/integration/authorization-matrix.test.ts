@@ -38,6 +38,9 @@ import * as positionRoute from '@/app/api/volumes/[volumeId]/entries/[entryId]/p
 import * as flatplanRoute from '@/app/api/volumes/[volumeId]/flatplan/route';
 import * as planRoute from '@/app/api/volumes/[volumeId]/plan/route';
 import { addEntry, createVolume } from '@/db/queries/volumes';
+import * as reviewPdfRoute from '@/app/api/volumes/[volumeId]/export/review.pdf/route';
+import * as templatesPdfRoute from '@/app/api/volumes/[volumeId]/export/templates.pdf/route';
+import * as csvRoute from '@/app/api/volumes/[volumeId]/export/running-order.csv/route';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
 import { applyBatch, createPass } from '@/db/queries/passes';
@@ -321,6 +324,21 @@ const ROUTES: RouteCase[] = [
   },
   {
     route: 'GET /api/volumes/:volumeId/plan', handler: planRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/export/review.pdf', handler: reviewPdfRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/export/templates.pdf', handler: templatesPdfRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/export/running-order.csv', handler: csvRoute.GET, method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },

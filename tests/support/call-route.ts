@@ -30,3 +30,11 @@ export async function callRoute(
   const json = (res.headers.get('content-type') ?? '').includes('json');
   return { status: res.status, body: text && json ? JSON.parse(text) : text || null };
 }
+
+/** The raw Response, for files (PDF, CSV). */
+export async function callRouteRaw(handler: Handler, opts: { url?: string; as?: Persona; params?: Record<string, string> }): Promise<Response> {
+  const headers = new Headers();
+  const cookie = await sessionCookie(opts.as ?? 'anonymous');
+  if (cookie) headers.set('cookie', cookie);
+  return handler(new Request(`http://localhost${opts.url ?? '/'}`, { headers }), { params: Promise.resolve(opts.params ?? {}) });
+}

@@ -1,14 +1,14 @@
-import { findVolume, listEntries, seriesOfVolume, updateVolume } from '@/db/queries/volumes';
+import { findVolume, listEntries, seriesOfVolume, unplacedGags, updateVolume } from '@/db/queries/volumes';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { specIssues, updateVolumeSchema } from '@/lib/validation/volume';
 
 type Params = { volumeId: string };
 const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
 
-/** The volume with its running order. */
-export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
+/** The volume with its running order, and the series' gags not yet placed anywhere. */
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params, seriesId }) => {
   const volume = await findVolume(db, params.volumeId);
-  return Response.json({ ...volume, entries: await listEntries(db, params.volumeId) });
+  return Response.json({ ...volume, entries: await listEntries(db, params.volumeId), unplaced: await unplacedGags(db, seriesId) });
 });
 
 /** Owners change the title, deadline, hours and print spec. */

@@ -1,0 +1,12 @@
+import { listEntries, seriesOfVolume } from '@/db/queries/volumes';
+import { PRINTER_NOTE } from '@/lib/export/pdf';
+import { runningOrderCsv } from '@/lib/export/volume-export';
+import { withSeriesRole } from '@/lib/http/route';
+
+type Params = { volumeId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
+  const csv = runningOrderCsv(await listEntries(db, params.volumeId), PRINTER_NOTE);
+  return new Response(csv, { headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': 'attachment; filename="running-order.csv"' } });
+});

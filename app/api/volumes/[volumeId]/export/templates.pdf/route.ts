@@ -1,0 +1,28 @@
+// Drawing templates at 100, 150 or 200 % on A4 or A3.
+import { seriesOfVolume } from '@/db/queries/volumes';
+import { PAPERS, type Paper, templateFits, templatesPdf } from '@/lib/export/pdf';
+import { gagNotes, volumePages } from '@/lib/export/volume-export';
+import { jsonError, withSeriesRole } from '@/lib/http/route';
+
+type Params = { volumeId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, params }) => {
+  const url = new URL(req.url);
+  const scalePct = Number(url.searchParams.get('scale') ?? '100');
+  const paper = (url.searchParams.get('paper') ?? 'A4') as Paper;
+  if (![100, 150, 200].includes(scalePct)) return jsonError(422, '"scale" is 100, 150 or 200 (percent).');
+  if (!(paper in PAPERS)) return jsonError(422, '"paper" is A4 or A3.');
+  const { volume, entries } = await volumePages(db, params.volumeId);
+  if (!templateFits(volume.spec, scalePct / 100, paper)) {
+    return jsonError(422, `At ${scalePct}% the page (${volume.spec.trimW} × ${volume.spec.trimH} mm plus bleed) does not fit on ${paper}: choose a smaller scale or a larger paper.`);
+  }
+  const bytes = await templatesPdf(volume.spec, volume.title, await gagNotes(db, entries), scalePct / 100, paper);
+  return new Response(Buffer.from(bytes), {
+    headers: {
+      'content-type': 'application/pdf',
+      'content-length': String(bytes.byteLength),
+      'content-disposition': `attachment; filename="templates-${scalePct}-${paper}.pdf"`,
+    },
+  });
+});
