@@ -7,6 +7,7 @@ import { findGag, listGags } from '@/db/queries/gags';
 import { findPassByNumber, listPasses, passState } from '@/db/queries/passes';
 import { findSeries, listSeriesForUser, pageSpecOf } from '@/db/queries/series';
 import { passToSvg } from '@/lib/strokes/svg';
+import { findVolume, listEntries, unplacedGags } from '@/db/queries/volumes';
 import { authorizeSeries } from '@/lib/auth/guard';
 import { type SessionUser, currentUser } from '@/lib/auth/session';
 
@@ -85,4 +86,12 @@ export async function loadPassThumbnails(seriesId: string, gagId: string) {
     });
   }
   return { spec, passes: out };
+}
+
+export async function loadVolume(seriesId: string, volumeId: string) {
+  const base = await seriesAccess(seriesId, `/series/${seriesId}/volumes/${volumeId}`);
+  const db = await getDb();
+  const volume = await findVolume(db, volumeId);
+  if (!volume || volume.seriesId !== seriesId) notFound();
+  return { ...base, volume: { ...volume, entries: await listEntries(db, volumeId), unplaced: await unplacedGags(db, seriesId) } };
 }

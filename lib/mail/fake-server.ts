@@ -7,7 +7,7 @@ import path from 'node:path';
 import { SMTPServer } from 'smtp-server';
 
 export function fakeMailDir(): string {
-  return path.resolve(process.env.MAIL_FAKE_DIR || 'data/mail');
+  return path.resolve(/*turbopackIgnore: true*/ process.env.MAIL_FAKE_DIR || 'data/mail');
 }
 
 export function startFakeSmtp(port: number, dir = fakeMailDir()): Promise<SMTPServer> {
@@ -35,11 +35,11 @@ export function startFakeSmtp(port: number, dir = fakeMailDir()): Promise<SMTPSe
 /** The caught messages, newest first, parsed. */
 export async function readCaughtMail(dir = fakeMailDir()) {
   const { simpleParser } = await import('mailparser');
-  if (!fs.existsSync(dir)) return [];
-  const files = fs.readdirSync(dir).filter((f) => f.endsWith('.eml')).sort().reverse().slice(0, 200);
+  if (!fs.existsSync(/*turbopackIgnore: true*/ dir)) return [];
+  const files = fs.readdirSync(/*turbopackIgnore: true*/ dir).filter((f) => f.endsWith('.eml')).sort().reverse().slice(0, 200);
   const out = [];
   for (const f of files) {
-    const parsed = await simpleParser(fs.readFileSync(path.join(dir, f)));
+    const parsed = await simpleParser(fs.readFileSync(/*turbopackIgnore: true*/ path.join(/*turbopackIgnore: true*/ dir, f)));
     const to = Array.isArray(parsed.to) ? parsed.to.map((a) => a.text).join(', ') : (parsed.to?.text ?? '');
     out.push({ file: f, subject: parsed.subject ?? '', to, from: parsed.from?.text ?? '', date: parsed.date?.toISOString() ?? '', text: parsed.text ?? '', html: typeof parsed.html === 'string' ? parsed.html : '' });
   }

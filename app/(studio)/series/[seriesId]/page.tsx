@@ -3,6 +3,7 @@ import { ActivityFeed } from '@/components/board/activity-feed';
 import { Board } from '@/components/board/board';
 import { ChecklistEditor } from '@/components/series/checklist-editor';
 import { PageSpecForm } from '@/components/series/page-spec-form';
+import { VolumesList } from '@/components/volume/volumes-list';
 import { can } from '@/lib/auth/permissions';
 import { loadBoard } from '@/lib/data/studio';
 
@@ -18,6 +19,7 @@ export default async function BoardPage({ params }: { params: Promise<{ seriesId
       <div className="grid gap-6 lg:grid-cols-2">
         <ActivityFeed seriesId={series.id} />
         <div className="space-y-4">
+          <VolumesList seriesId={series.id} canCreate={can(role, 'manage')} />
           <PageSpecForm seriesId={series.id} initial={spec} canEdit={can(role, 'manage')} />
           <ChecklistEditor seriesId={series.id} canEdit={can(role, 'manage')} />
         </div>

@@ -1,0 +1,12 @@
+import type { Metadata } from 'next';
+import { VolumePage } from '@/components/volume/volume-page';
+import { loadVolume } from '@/lib/data/studio';
+
+export const metadata: Metadata = { title: 'Volume' };
+export const dynamic = 'force-dynamic';
+
+export default async function Volume({ params }: { params: Promise<{ seriesId: string; volumeId: string }> }) {
+  const { seriesId, volumeId } = await params;
+  const { series, role, volume } = await loadVolume(seriesId, volumeId);
+  return <VolumePage seriesId={series.id} seriesTitle={series.title} role={role} initial={volume} />;
+}
