@@ -71,14 +71,21 @@ export class PanelRasters {
     ctx.globalAlpha = 1;
   }
 
-  /** Clears a panel and draws its strokes again, in order. */
+  /** Clears a panel and draws its strokes again, in order (one transform for the lot). */
   redrawPanel(panel: number, strokes: Iterable<Stroke>) {
     const c = this.canvases[panel];
     const ctx = c?.getContext('2d');
     if (!c || !ctx) return;
     ctx.setTransform(1, 0, 0, 1, 0, 0);
     ctx.clearRect(0, 0, c.width, c.height);
-    for (const s of strokes) if (s.panel === panel) this.drawStroke(s);
+    this.ctxFor(panel);
+    for (const s of strokes) {
+      if (s.panel !== panel) continue;
+      ctx.globalAlpha = strokeAlpha(s.tool);
+      ctx.fillStyle = greyToCss(s.grey);
+      ctx.fill(this.pathOf(s));
+    }
+    ctx.globalAlpha = 1;
   }
 
   redrawAll(strokes: Iterable<Stroke>) {

@@ -3,10 +3,13 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import fontkit from '@pdf-lib/fontkit';
-import { PDFDocument, type PDFFont, type PDFPage, clip, endPath, popGraphicsState, pushGraphicsState, rectangle, rgb } from 'pdf-lib';
+import {
+  PDFDocument, type PDFFont, PDFName, type PDFOperator, type PDFPage, appendQuadraticCurve, clip, closePath, endPath, fill, moveTo,
+  popGraphicsState, pushGraphicsState, rectangle, rgb, setFillingRgbColor, setGraphicsState,
+} from 'pdf-lib';
 import { type PageSpec, mmToPt, panelRects, safeBox } from '@/lib/print/geometry';
 import { pdfBoxes } from '@/lib/print/book';
-import { outlineOf, svgPathFromOutline } from '@/lib/strokes/outline';
+import { outlineOf, traceOutline } from '@/lib/strokes/outline';
 import { type Room, type Stroke, strokeAlpha } from '@/lib/strokes/types';
 import { BEAT_KINDS, BEAT_LABELS } from '@/lib/gags/status';
 
@@ -25,10 +28,15 @@ async function newDoc(title: string) {
   return { doc, font };
 }
 
-const grey = (g: number) => {
-  const v = 1 - Math.min(100, Math.max(0, g)) / 100;
-  return rgb(v, v, v);
-};
+const greyLevel = (g: number) => 1 - Math.min(100, Math.max(0, g)) / 100;
+
+/** A graphics state for translucent tone, registered once per page. */
+function toneState(page: PDFPage, alpha: number): PDFName {
+  const name = PDFName.of(`QTone${Math.round(alpha * 100)}`);
+  const ref = page.doc.context.register(page.doc.context.obj({ Type: 'ExtGState', ca: alpha, CA: alpha }));
+  page.node.setExtGState(name, ref);
+  return name;
+}
 
 /** mm on the page (from the trim's top left) → pt in PDF space (origin bottom left). */
 function placer(spec: PageSpec, pageH: number, originX = mmToPt(spec.bleed), originTop = mmToPt(spec.bleed)) {
@@ -42,6 +50,7 @@ function drawStrokes(page: PDFPage, spec: PageSpec, strokes: Stroke[], rooms: Ro
   const { height } = page.getSize();
   const at = placer(spec, height);
   const panels = panelRects(spec);
+  let tone: PDFName | undefined;
   panels.forEach((r, i) => {
     page.pushOperators(pushGraphicsState(), rectangle(at.x(r.x), at.y(r.y + r.h), mmToPt(r.w), mmToPt(r.h)), clip(), endPath());
     for (const room of rooms.filter((x) => x.panel === i)) {
@@ -49,11 +58,23 @@ function drawStrokes(page: PDFPage, spec: PageSpec, strokes: Stroke[], rooms: Ro
       if (room.shape === 'ellipse') page.drawEllipse({ x: at.x(room.x + room.w / 2), y: at.y(room.y + room.h / 2), xScale: mmToPt(room.w / 2), yScale: mmToPt(room.h / 2), ...common });
       else page.drawRectangle({ x: at.x(room.x), y: at.y(room.y + room.h), width: mmToPt(room.w), height: mmToPt(room.h), ...common });
     }
+    // Each outline is written as PDF path operators (the same curve as the canvas and the SVG).
     for (const s of strokes.filter((x) => x.panel === i)) {
-      const d = svgPathFromOutline(outlineOf(s));
-      if (!d) continue;
-      // drawSvgPath flips y itself: (x, y) is where the path's (0, 0) lands.
-      page.drawSvgPath(d, { x: at.x(0), y: at.y(0), scale: mmToPt(1), color: grey(s.grey), opacity: strokeAlpha(s.tool) });
+      const ops: PDFOperator[] = [pushGraphicsState()];
+      const alpha = strokeAlpha(s.tool);
+      if (alpha < 1) ops.push(setGraphicsState(tone ?? (tone = toneState(page, alpha))));
+      const v = greyLevel(s.grey);
+      ops.push(setFillingRgbColor(v, v, v));
+      traceOutline(
+        {
+          moveTo: (x, y) => ops.push(moveTo(at.x(x), at.y(y))),
+          quadraticCurveTo: (cx, cy, x, y) => ops.push(appendQuadraticCurve(at.x(cx), at.y(cy), at.x(x), at.y(y))),
+          closePath: () => ops.push(closePath()),
+        },
+        outlineOf(s),
+      );
+      ops.push(fill(), popGraphicsState());
+      page.pushOperators(...ops);
     }
     page.pushOperators(popGraphicsState());
     page.drawRectangle({ x: at.x(r.x), y: at.y(r.y + r.h), width: mmToPt(r.w), height: mmToPt(r.h), borderColor: rgb(0.55, 0.54, 0.51), borderWidth: 0.5 });

@@ -7,6 +7,9 @@ import path from 'node:path';
 import { build } from 'esbuild';
 import { closeDb, getDb } from '@/db/client';
 import { createPass, applyBatch, storedPointBytes } from '@/db/queries/passes';
+import { addEntry, createVolume, listEntries, moveEntry } from '@/db/queries/volumes';
+import { reviewPdf } from '@/lib/export/pdf';
+import { DEFAULT_VOLUME_SPEC } from '@/lib/print/book';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { openBrowser } from '../e2e/browser';
 import { benchStrokes } from './strokes-fixture';
@@ -64,6 +67,37 @@ async function serverFigures() {
     e.push(await one(empty.id, i));
     b.push(await one(big.id, i));
   }
+  // A 500-gag volume: how many rows does one move rewrite?
+  const vol = await createVolume(db, { seriesId: 's', title: 'Bench volume', deadline: '2027-03-13' });
+  for (let i = 0; i < 500; i++) {
+    const gid = `vg${i}`;
+    await db.insertInto('gags').values({ id: gid, seriesId: 's', title: gid, premise: '', status: 'idea', position: i + 2, createdAt: now, updatedAt: now }).execute();
+    await addEntry(db, vol.id, 's', { gagId: gid });
+  }
+  const entries = await listEntries(db, vol.id);
+  const snap = async () => new Map((await db.selectFrom('volumeEntries').select(['id', 'position']).where('volumeId', '=', vol.id).execute()).map((r) => [r.id, r.position]));
+  const before = await snap();
+  await moveEntry(db, vol.id, entries[400]!.id, { after: entries[3]!.id });
+  await moveEntry(db, vol.id, entries[10]!.id, { before: entries[499]!.id });
+  const after = await snap();
+  const rowsPerMove = [...after].filter(([id, pos]) => before.get(id) !== pos).length / 2;
+
+  // Review PDFs of 12 and 120 gag pages (40 strokes each): linear?
+  const pageStrokes = benchStrokes(40, 3);
+  const pages = (n: number) => Array.from({ length: n }, (_, i) => ({ number: i + 1, kind: 'gag', label: `Gag ${i + 1}`, strokes: pageStrokes, rooms: [] }));
+  const pdfMs = async (n: number) => {
+    const t = performance.now();
+    await reviewPdf(DEFAULT_VOLUME_SPEC, 'Bench', pages(n));
+    return performance.now() - t;
+  };
+  await pdfMs(12); // warm-up (font parsing, JIT)
+  const pdf12: number[] = [];
+  const pdf120: number[] = [];
+  for (let i = 0; i < 3; i++) {
+    pdf12.push(await pdfMs(12));
+    pdf120.push(await pdfMs(120));
+  }
+
   const blob = await storedPointBytes(db, big.id);
   // The same points as plain JSON, already rounded to what is stored (0.01 mm, pressure to 3 places).
   const asJson = (ss: typeof extra) =>
@@ -71,7 +105,7 @@ async function serverFigures() {
   const jsonBytes = asJson(benchStrokes(5000)) + asJson(extra.slice(0, 100));
   await closeDb();
   fs.rmSync(dir, { recursive: true, force: true });
-  return { serverEmptyMs: median(e), serverBigMs: median(b), blobBytes: blob, jsonBytes };
+  return { serverEmptyMs: median(e), serverBigMs: median(b), blobBytes: blob, jsonBytes, rowsPerMove, pdf12Ms: median(pdf12), pdf120Ms: median(pdf120) };
 }
 
 function row(goal: string, ratio: number, limit: number, detail: string, limitText = String(limit)) {
@@ -92,6 +126,8 @@ async function main() {
     row('New stroke stored, 5,000 ÷ 0 strokes (server)', s.serverBigMs / s.serverEmptyMs, 1.5, `${ms(s.serverBigMs)} vs ${ms(s.serverEmptyMs)}`),
     row('Pan/zoom frame, 5,000 ÷ 0 strokes', c.panBigMs! / c.panEmptyMs!, 1.5, `${ms(c.panBigMs!)} vs ${ms(c.panEmptyMs!)}`),
     row('Panels re-rastered to erase one stroke (of 4)', c.erasePanels!, 1, `${c.eraseHits} stroke(s) hit, ${ms(c.eraseMs!)}`),
+    row('Rows rewritten per move in a 500-gag running order', s.rowsPerMove, 2, 'fractional order keys'),
+    row('Review PDF, 120 pages ÷ 12 pages (linear is 10)', s.pdf120Ms / s.pdf12Ms, 10, `${ms(s.pdf120Ms)} vs ${ms(s.pdf12Ms)}`),
     row('Stored point bytes ÷ plain JSON', s.blobBytes / s.jsonBytes, 1 / 3, `${s.blobBytes.toLocaleString('en')} B vs ${s.jsonBytes.toLocaleString('en')} B`, '1/3'),
   ];
   console.log(`\n${results.filter(Boolean).length} passed, ${results.filter((r) => !r).length} failed`);
