@@ -45,11 +45,11 @@ export function VolumesList({ seriesId, canCreate }: { seriesId: string; canCrea
           }}
         >
           <label className="text-sm font-bold text-graphite-soft">
-            Title
+            Volume title
             <input className="field mt-1 w-48 py-1.5" value={title} onChange={(e) => setTitle(e.target.value)} />
           </label>
           <label className="text-sm font-bold text-graphite-soft">
-            Deadline
+            Volume deadline
             <input type="date" className="field mt-1 w-auto py-1.5" value={deadline} onChange={(e) => setDeadline(e.target.value)} />
           </label>
           <Button type="submit">New volume</Button>
