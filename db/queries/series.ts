@@ -57,3 +57,27 @@ export async function pageSpecOf(db: Kysely<Database>, seriesId: string): Promis
 export async function setPageSpec(db: Kysely<Database>, seriesId: string, spec: PageSpec): Promise<void> {
   await db.updateTable('series').set({ pageSpec: JSON.stringify(spec) }).where('id', '=', seriesId).execute();
 }
+
+/**
+ * The page a gag is drawn on: its volume's spec once it is placed in one (the
+ * volume's spec replaces the series default), otherwise the series default.
+ */
+export async function pageSpecForGag(db: Kysely<Database>, seriesId: string, gagId: string): Promise<PageSpec> {
+  const placed = await db
+    .selectFrom('volumeEntries as e')
+    .innerJoin('volumes as v', 'v.id', 'e.volumeId')
+    .select('v.spec')
+    .where('e.gagId', '=', gagId)
+    .executeTakeFirst();
+  if (placed) {
+    const v = JSON.parse(placed.spec) as Partial<PageSpec>;
+    const base = await pageSpecOf(db, seriesId);
+    return { trimW: v.trimW ?? base.trimW, trimH: v.trimH ?? base.trimH, bleed: v.bleed ?? base.bleed, safe: v.safe ?? base.safe, gutter: v.gutter ?? base.gutter };
+  }
+  return pageSpecOf(db, seriesId);
+}
+
+export async function pageSpecForPass(db: Kysely<Database>, seriesId: string, passId: string): Promise<PageSpec> {
+  const pass = await db.selectFrom('passes').select('gagId').where('id', '=', passId).executeTakeFirst();
+  return pass ? pageSpecForGag(db, seriesId, pass.gagId) : pageSpecOf(db, seriesId);
+}

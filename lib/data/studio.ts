@@ -5,7 +5,7 @@ import { notFound, redirect } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { findGag, listGags } from '@/db/queries/gags';
 import { findPassByNumber, listPasses, passState } from '@/db/queries/passes';
-import { findSeries, listSeriesForUser, pageSpecOf } from '@/db/queries/series';
+import { findSeries, listSeriesForUser, pageSpecForGag, pageSpecOf } from '@/db/queries/series';
 import { passToSvg } from '@/lib/strokes/svg';
 import { findVolume, listEntries, unplacedGags } from '@/db/queries/volumes';
 import { authorizeSeries } from '@/lib/auth/guard';
@@ -61,7 +61,7 @@ export async function loadPassEditor(seriesId: string, gagId: string, passNo: nu
   return {
     ...base,
     pass: state,
-    spec: await pageSpecOf(db, seriesId),
+    spec: await pageSpecForGag(db, seriesId, gagId),
     passNumbers: passes.map((p) => p.number),
     passList: passes.map((p) => ({ id: p.id, number: p.number })),
   };
@@ -70,7 +70,7 @@ export async function loadPassEditor(seriesId: string, gagId: string, passNo: nu
 /** Every pass of a gag as a small SVG page (rendered here, on the server). */
 export async function loadPassThumbnails(seriesId: string, gagId: string) {
   const db = await getDb();
-  const spec = await pageSpecOf(db, seriesId);
+  const spec = await pageSpecForGag(db, seriesId, gagId);
   const passes = await listPasses(db, gagId);
   const out = [];
   for (const p of passes) {

@@ -96,3 +96,14 @@ describe('flatplan and plan', () => {
     expect(typeof p.body.finish).toBe('string');
   });
 });
+
+describe('a placed gag takes its volume’s page', () => {
+  it('thumbnails and bleed checks follow the volume spec, not the series default', async () => {
+    const { pageSpecForGag } = await import('@/db/queries/series');
+    const { createVolume, addEntry } = await import('@/db/queries/volumes');
+    const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'A5 book', deadline: '2027-05-01', spec: { trimW: 148, trimH: 210 } });
+    expect((await pageSpecForGag(db, DEMO_SERIES_ID, 'demo-gag-10')).trimH).toBe(150);
+    await addEntry(db, v.id, DEMO_SERIES_ID, { gagId: 'demo-gag-10' });
+    expect(await pageSpecForGag(db, DEMO_SERIES_ID, 'demo-gag-10')).toEqual({ trimW: 148, trimH: 210, bleed: 3, safe: 5, gutter: 4 });
+  });
+});

@@ -98,3 +98,11 @@ describe('planner', () => {
     expect(p.marginDays).toBeLessThan(0);
   });
 });
+
+describe('a small square comic of about 147 mm trim (common practice)', () => {
+  it('needs 1,737 px a side at 300 ppi and 3,473 at 600 ppi', () => {
+    // 147 / 25.4 × 300 = 1736.22 → 1737; × 600 = 3472.44 → 3473
+    expect(pixelsAt(147, 300)).toBe(1737);
+    expect(pixelsAt(147, 600)).toBe(3473);
+  });
+});

@@ -2,7 +2,7 @@
 import { findGag } from '@/db/queries/gags';
 import { passState, seriesOfPass } from '@/db/queries/passes';
 import { inkThresholdOf } from '@/db/queries/review';
-import { pageSpecOf } from '@/db/queries/series';
+import { pageSpecForPass } from '@/db/queries/series';
 import { withSeriesRole } from '@/lib/http/route';
 import { type Findings, computeFindings } from '@/lib/review/findings';
 
@@ -16,7 +16,7 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params,
   const state = await passState(db, params.passId);
   const gag = state && (await findGag(db, state.gagId));
   if (!state || !gag) return Response.json({ error: 'Not found.' }, { status: 404 });
-  const spec = await pageSpecOf(db, seriesId);
+  const spec = await pageSpecForPass(db, seriesId, params.passId);
   const threshold = await inkThresholdOf(db, seriesId);
   const key = `${params.passId}:${state.seq}:${gag.updatedAt}:${JSON.stringify(spec)}:${threshold}`;
   let findings = cache.get(key);

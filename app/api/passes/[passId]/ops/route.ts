@@ -1,6 +1,6 @@
 // Receives a batch of editor operations; applies it in one transaction, once.
 import { OpRefused, applyBatch, seriesOfPass } from '@/db/queries/passes';
-import { pageSpecOf } from '@/db/queries/series';
+import { pageSpecForPass } from '@/db/queries/series';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { MAX_BATCH_BYTES, type Op } from '@/lib/strokes/types';
 import { batchSchema, checkOpsInside } from '@/lib/validation/pass';
@@ -10,7 +10,7 @@ const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOf
 
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, user, seriesId }) => {
   const batch = await parseBody(req, batchSchema, { maxBytes: MAX_BATCH_BYTES });
-  const spec = await pageSpecOf(db, seriesId);
+  const spec = await pageSpecForPass(db, seriesId, params.passId);
   const outside = checkOpsInside(batch.ops as Op[], spec);
   if (outside) throw new HttpError(422, outside);
   try {

@@ -1,6 +1,6 @@
 // A pass as an SVG page, for the board's cards (the same geometry as the editor).
 import { passState, seriesOfPass } from '@/db/queries/passes';
-import { pageSpecOf } from '@/db/queries/series';
+import { pageSpecForPass } from '@/db/queries/series';
 import { withSeriesRole } from '@/lib/http/route';
 import { passToSvg } from '@/lib/strokes/svg';
 
@@ -10,7 +10,7 @@ const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOf
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params, seriesId }) => {
   const state = await passState(db, params.passId);
   if (!state) return new Response(null, { status: 404 });
-  const svg = passToSvg(await pageSpecOf(db, seriesId), state.strokes, state.rooms, { bleed: false, title: `Pass ${state.number}` });
+  const svg = passToSvg(await pageSpecForPass(db, seriesId, params.passId), state.strokes, state.rooms, { bleed: false, title: `Pass ${state.number}` });
   return new Response(svg, {
     headers: { 'content-type': 'image/svg+xml; charset=utf-8', 'cache-control': 'private, max-age=0, must-revalidate' },
   });
