@@ -1,5 +1,6 @@
-// Runs once when the server starts: apply pending migrations before any request,
-// and, without SMTP_URL, start the local SMTP fake that /dev/mail reads.
+// Runs once when the server starts: apply pending migrations before any request;
+// without SMTP_URL, start the local SMTP fake that /dev/mail reads; without
+// S3_ENDPOINT, start the local S3 fake that stores uploads under data/s3.
 export async function register() {
   if (process.env.NEXT_RUNTIME !== 'nodejs') return;
   const { getDb } = await import('./db/client');
@@ -13,6 +14,17 @@ export async function register() {
     } catch (err) {
       const code = (err as { code?: string }).code;
       console.log(code === 'EADDRINUSE' ? `[mail] port ${port} busy: using the SMTP fake already there` : `[mail] SMTP fake not started: ${String(err)}`);
+    }
+  }
+  if (!process.env.S3_ENDPOINT && process.env.S3_FAKE !== 'off') {
+    const { startFakeS3 } = await import('./lib/storage/fake-s3');
+    const port = Number(process.env.S3_FAKE_PORT || 4569);
+    try {
+      await startFakeS3(port);
+      console.log(`[storage] local S3 fake on 127.0.0.1:${port}`);
+    } catch (err) {
+      const code = (err as { code?: string }).code;
+      console.log(code === 'EADDRINUSE' ? `[storage] port ${port} busy: using the S3 fake already there` : `[storage] S3 fake not started: ${String(err)}`);
     }
   }
 }

@@ -274,6 +274,22 @@ export interface VolumeEntriesTable {
   createdAt: Timestamp;
 }
 
+export interface UploadsTable {
+  id: string;
+  seriesId: string;
+  sha256: string;
+  name: string;
+  mime: 'image/png' | 'image/jpeg' | 'image/webp';
+  bytes: number;
+  width: number;
+  height: number;
+  originalKey: string;
+  workingKey: string;
+  previewKey: string;
+  createdBy: string;
+  createdAt: Timestamp;
+}
+
 export interface Database {
   users: UsersTable;
   series: SeriesTable;
@@ -299,6 +315,7 @@ export interface Database {
   presence: PresenceTable;
   volumes: VolumesTable;
   volumeEntries: VolumeEntriesTable;
+  uploads: UploadsTable;
 }
 
 export type User = Selectable<UsersTable>;

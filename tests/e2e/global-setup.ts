@@ -64,6 +64,7 @@ export default async function setup(project: TestProject) {
 
   const port = await freePort();
   const mailPort = await freePort();
+  const s3Port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   let output = '';
   const server = spawn(
@@ -81,6 +82,9 @@ export default async function setup(project: TestProject) {
         MAIL_FAKE_PORT: String(mailPort),
         MAIL_FAKE_DIR: path.join(dataDir, 'mail'),
         QUADRILLE_DEV_PAGES: '1',
+        // The local S3 fake starts with the server too.
+        S3_FAKE_PORT: String(s3Port),
+        S3_FAKE_DIR: path.join(dataDir, 's3'),
       },
       detached: true, // its own process group, so teardown stops next-server too
       stdio: ['ignore', 'pipe', 'pipe'],

@@ -48,19 +48,42 @@ import { checklistItems } from '@/db/queries/review';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { callRoute } from '../support/call-route';
 import { startMailFake } from '../support/mail-fake';
+import { startS3Fake } from '../support/s3-fake';
+import sharp from 'sharp';
+import * as uploadsRoute from '@/app/api/series/[seriesId]/uploads/route';
+import * as uploadRoute from '@/app/api/uploads/[uploadId]/route';
+import * as variantRoute from '@/app/api/uploads/[uploadId]/[variant]/route';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
 
 const PERSONAS: Persona[] = ['anonymous', 'viewer', 'editor', 'cocreator', 'owner', 'outsider'];
 
 let db: Awaited<ReturnType<typeof freshDb>>;
 let mail: Awaited<ReturnType<typeof startMailFake>>;
+let s3: Awaited<ReturnType<typeof startS3Fake>>;
 beforeAll(async () => {
   mail = await startMailFake(); // invitations and stamps send mail; catch it
+  s3 = await startS3Fake(); // uploads go to object storage
   db = await freshDb();
 });
 afterAll(async () => {
   await mail?.stop();
+  await s3?.close();
 });
+
+let shade = 0;
+/** A distinct small PNG each time (a new colour), as a multipart form. */
+async function imageForm(): Promise<FormData> {
+  shade += 1;
+  const bytes = await sharp({ create: { width: 8, height: 8, channels: 3, background: { r: shade % 256, g: 100, b: Math.floor(shade / 256) } } }).png().toBuffer();
+  const form = new FormData();
+  form.append('file', new File([new Uint8Array(bytes)], 'scan.png', { type: 'image/png' }));
+  return form;
+}
+
+async function newUpload(): Promise<string> {
+  const r = await callRoute(uploadsRoute.POST, { method: 'POST', as: 'owner', params: { seriesId: DEMO_SERIES_ID }, form: await imageForm() });
+  return r.body.id;
+}
 
 async function newGag(): Promise<string> {
   const id = randomUUID();
@@ -100,7 +123,7 @@ async function newVolume(): Promise<{ volumeId: string; entryIds: string[] }> {
   return { volumeId: v.id, entryIds: [a.id, b.id] };
 }
 
-type Prepared = { params?: Record<string, string>; body?: unknown };
+type Prepared = { params?: Record<string, string>; body?: unknown; form?: FormData };
 type RouteCase = {
   route: string;
   handler: (req: Request, ctx: { params: Promise<any> }) => Promise<Response> | Response;
@@ -342,6 +365,26 @@ const ROUTES: RouteCase[] = [
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
+  {
+    route: 'GET /api/series/:seriesId/uploads', handler: uploadsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/series/:seriesId/uploads', handler: uploadsRoute.POST, method: 'POST',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, form: await imageForm() }),
+    expected: row(401, 403, 403, 201, 201, 404),
+  },
+  {
+    route: 'GET /api/uploads/:uploadId/:variant', handler: variantRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { uploadId: await newUpload(), variant: 'preview' } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'DELETE /api/uploads/:uploadId', handler: uploadRoute.DELETE, method: 'DELETE',
+    prepare: async () => ({ params: { uploadId: await newUpload() } }),
+    expected: row(401, 403, 403, 204, 204, 404),
+  },
   { route: 'GET /api/me', handler: meRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
   {
     route: 'PATCH /api/me', handler: meRoute.PATCH, method: 'PATCH',
@@ -398,6 +441,7 @@ async function snapshot() {
     presence: await db.selectFrom('presence').selectAll().orderBy('scope').orderBy('userId').execute(),
     volumes: await db.selectFrom('volumes').selectAll().orderBy('id').execute(),
     entries: await db.selectFrom('volumeEntries').selectAll().orderBy('id').execute(),
+    uploads: await db.selectFrom('uploads').select(['id', 'sha256']).orderBy('id').execute(),
   });
 }
 
@@ -405,9 +449,9 @@ describe('authorization matrix', () => {
   for (const r of ROUTES) {
     describe(r.route, () => {
       it.each(PERSONAS)(`%s`, async (persona) => {
-        const { params, body } = await r.prepare();
+        const { params, body, form } = await r.prepare();
         const before = await snapshot();
-        const res = await callRoute(r.handler, { method: r.method, as: persona, params, body });
+        const res = await callRoute(r.handler, { method: r.method, as: persona, params, body, form });
         expect(res.status).toBe(r.expected[persona]);
         if (res.status >= 400) {
           expect(typeof res.body.error).toBe('string');

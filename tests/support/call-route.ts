@@ -15,15 +15,16 @@ export async function sessionCookie(persona: Persona): Promise<string | undefine
 
 export async function callRoute(
   handler: Handler,
-  opts: { method?: string; url?: string; as?: Persona; params?: Record<string, string>; body?: unknown; rawBody?: string },
+  opts: { method?: string; url?: string; as?: Persona; params?: Record<string, string>; body?: unknown; rawBody?: string; form?: FormData },
 ): Promise<{ status: number; body: any }> {
   const headers = new Headers();
   const cookie = await sessionCookie(opts.as ?? 'anonymous');
   if (cookie) headers.set('cookie', cookie);
-  let body: string | undefined;
-  if (opts.rawBody !== undefined) body = opts.rawBody;
+  let body: string | FormData | undefined;
+  if (opts.form) body = opts.form;
+  else if (opts.rawBody !== undefined) body = opts.rawBody;
   else if (opts.body !== undefined) body = JSON.stringify(opts.body);
-  if (body !== undefined) headers.set('content-type', 'application/json');
+  if (body !== undefined && !opts.form) headers.set('content-type', 'application/json');
   const req = new Request(`http://localhost${opts.url ?? '/'}`, { method: opts.method ?? 'GET', headers, body });
   const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
   const text = await res.text();

@@ -1,0 +1,46 @@
+// Uploads of scans and photos (multipart, field "file", several allowed).
+import { findUploadBySha, insertUpload, listUploads } from '@/db/queries/uploads';
+import { findSeries } from '@/db/queries/series';
+import { HttpError, jsonError, withSeriesRole } from '@/lib/http/route';
+import { putObject } from '@/lib/storage/s3';
+import { ACCEPTED, MAX_UPLOAD_BYTES, UploadRefused, prepareUpload } from '@/lib/uploads/process';
+
+type Params = { seriesId: string };
+const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await listUploads(db, seriesId)));
+
+/** One file per request (field "file") → 201 `{ id, width, height, bytes, sha256 }`; the same file again → 200, stored once. */
+export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, seriesId, user }) => {
+  const declared = Number(req.headers.get('content-length') ?? 0);
+  if (declared > MAX_UPLOAD_BYTES + 64 * 1024) return jsonError(413, 'The file is over 25 MB.');
+  let form: FormData;
+  try {
+    form = await req.formData();
+  } catch {
+    return jsonError(422, 'Send the image as multipart/form-data in a field named "file".');
+  }
+  const file = form.get('file');
+  if (!(file instanceof Blob)) return jsonError(422, 'Send the image in a field named "file".');
+  if (file.size > MAX_UPLOAD_BYTES) return jsonError(413, 'The file is over 25 MB.');
+  let prepared;
+  try {
+    prepared = await prepareUpload(Buffer.from(await file.arrayBuffer()));
+  } catch (err) {
+    if (err instanceof UploadRefused) throw new HttpError(err.status, err.message);
+    throw err;
+  }
+  const existing = await findUploadBySha(db, seriesId, prepared.sha256);
+  if (existing) return Response.json({ ...existing, duplicate: true }, { status: 200 });
+  const ext = ACCEPTED[prepared.mime];
+  const prefix = `series/${seriesId}/uploads/${prepared.sha256}`;
+  const keys = { originalKey: `${prefix}/original.${ext}`, workingKey: `${prefix}/working.${ext}`, previewKey: `${prefix}/preview.webp` };
+  await putObject(keys.originalKey, prepared.original, prepared.mime);
+  await putObject(keys.workingKey, prepared.working, prepared.mime);
+  await putObject(keys.previewKey, prepared.preview, 'image/webp');
+  const name = (file instanceof File ? file.name : 'upload').slice(0, 200);
+  const row = await insertUpload(db, {
+    seriesId, sha256: prepared.sha256, name, mime: prepared.mime, bytes: prepared.bytes, width: prepared.width, height: prepared.height, ...keys, createdBy: user.id,
+  });
+  return Response.json(row, { status: 201 });
+});

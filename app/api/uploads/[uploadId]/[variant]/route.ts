@@ -1,0 +1,16 @@
+// The image bytes, only to members of its series (never a public URL).
+import { seriesOfUpload, uploadKeys } from '@/db/queries/uploads';
+import { jsonError, withSeriesRole } from '@/lib/http/route';
+import { getObject } from '@/lib/storage/s3';
+
+type Params = { uploadId: string; variant: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfUpload>[0]) => seriesOfUpload(db, p.uploadId);
+
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
+  const keys = await uploadKeys(db, params.uploadId);
+  const key = params.variant === 'original' ? keys?.originalKey : params.variant === 'working' ? keys?.workingKey : params.variant === 'preview' ? keys?.previewKey : undefined;
+  if (!keys || !key) return jsonError(404, 'Not found: the variants are original, working and preview.');
+  const obj = await getObject(key);
+  if (!obj) return jsonError(404, 'Not found.');
+  return new Response(Buffer.from(obj.body), { headers: { 'content-type': obj.contentType, 'cache-control': 'private, max-age=3600' } });
+});

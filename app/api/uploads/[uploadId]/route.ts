@@ -1,0 +1,15 @@
+import { deleteUpload, seriesOfUpload, uploadKeys } from '@/db/queries/uploads';
+import { jsonError, withSeriesRole } from '@/lib/http/route';
+import { deleteObject } from '@/lib/storage/s3';
+
+type Params = { uploadId: string };
+const seriesOf = (p: Params, db: Parameters<typeof seriesOfUpload>[0]) => seriesOfUpload(db, p.uploadId);
+
+/** Co-creators and owners delete an upload and its stored files. */
+export const DELETE = withSeriesRole<Params>('edit', seriesOf, async ({ db, params }) => {
+  const keys = await uploadKeys(db, params.uploadId);
+  if (!keys) return jsonError(404, 'Not found.');
+  await deleteUpload(db, params.uploadId);
+  for (const k of [keys.originalKey, keys.workingKey, keys.previewKey]) await deleteObject(k).catch(() => undefined);
+  return new Response(null, { status: 204 });
+});

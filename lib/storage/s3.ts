@@ -1,0 +1,50 @@
+// Object storage through the S3 API. With S3_ENDPOINT/S3_BUCKET and credentials
+// it talks to a real bucket; without, to the local s3rver fake on 127.0.0.1.
+// Objects are never public: the app serves them after checking the role.
+import 'server-only';
+import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+
+export const FAKE_S3_PORT_DEFAULT = 4569;
+
+export function s3Config() {
+  const fake = !process.env.S3_ENDPOINT;
+  return {
+    fake,
+    endpoint: process.env.S3_ENDPOINT || `http://127.0.0.1:${process.env.S3_FAKE_PORT || FAKE_S3_PORT_DEFAULT}`,
+    bucket: process.env.S3_BUCKET || 'quadrille',
+    region: process.env.S3_REGION || 'us-east-1',
+    accessKeyId: process.env.S3_ACCESS_KEY_ID || (fake ? 'S3RVER' : ''),
+    secretAccessKey: process.env.S3_SECRET_ACCESS_KEY || (fake ? 'S3RVER' : ''),
+  };
+}
+
+let client: { key: string; s3: S3Client } | undefined;
+function s3() {
+  const c = s3Config();
+  const key = JSON.stringify(c);
+  if (!client || client.key !== key) {
+    client = {
+      key,
+      s3: new S3Client({ endpoint: c.endpoint, region: c.region, forcePathStyle: true, credentials: { accessKeyId: c.accessKeyId, secretAccessKey: c.secretAccessKey } }),
+    };
+  }
+  return client.s3;
+}
+
+export async function putObject(key: string, body: Buffer, contentType: string): Promise<void> {
+  await s3().send(new PutObjectCommand({ Bucket: s3Config().bucket, Key: key, Body: body, ContentType: contentType }));
+}
+
+export async function getObject(key: string): Promise<{ body: Uint8Array; contentType: string } | null> {
+  try {
+    const r = await s3().send(new GetObjectCommand({ Bucket: s3Config().bucket, Key: key }));
+    return { body: await r.Body!.transformToByteArray(), contentType: r.ContentType ?? 'application/octet-stream' };
+  } catch (err) {
+    if ((err as { name?: string }).name === 'NoSuchKey') return null;
+    throw err;
+  }
+}
+
+export async function deleteObject(key: string): Promise<void> {
+  await s3().send(new DeleteObjectCommand({ Bucket: s3Config().bucket, Key: key }));
+}

@@ -1,0 +1,73 @@
+// Checks and prepares an uploaded scan or photo (server side, sharp):
+// recognised by its bytes, upright from its EXIF orientation, metadata stripped
+// (location included), a working copy (longest side ≤ 4096 px) and a preview.
+import { createHash } from 'node:crypto';
+import { fileTypeFromBuffer } from 'file-type';
+import sharp from 'sharp';
+
+export const MAX_UPLOAD_BYTES = 25 * 1024 * 1024;
+export const MAX_PIXELS = 50_000_000;
+export const WORKING_MAX_SIDE = 4096;
+export const PREVIEW_MAX_SIDE = 320;
+export const ACCEPTED = { 'image/png': 'png', 'image/jpeg': 'jpeg', 'image/webp': 'webp' } as const;
+export type AcceptedMime = keyof typeof ACCEPTED;
+
+export class UploadRefused extends Error {
+  constructor(public status: 413 | 415 | 422, message: string) {
+    super(message);
+  }
+}
+
+export type Prepared = {
+  sha256: string;
+  mime: AcceptedMime;
+  bytes: number;
+  width: number;
+  height: number;
+  original: Buffer;
+  working: Buffer;
+  preview: Buffer;
+};
+
+export async function prepareUpload(input: Buffer): Promise<Prepared> {
+  if (input.byteLength > MAX_UPLOAD_BYTES) throw new UploadRefused(413, `The file is over 25 MB (${(input.byteLength / 1048576).toFixed(1)} MB).`);
+  const type = await fileTypeFromBuffer(input);
+  if (!type || !(type.mime in ACCEPTED)) {
+    throw new UploadRefused(415, `Only PNG, JPEG and WebP images can be used${type ? ` (this file is ${type.mime})` : ''}.`);
+  }
+  const mime = type.mime as AcceptedMime;
+  const format = ACCEPTED[mime];
+  let meta: Awaited<ReturnType<ReturnType<typeof sharp>['metadata']>>;
+  try {
+    meta = await sharp(input, { limitInputPixels: false }).metadata();
+  } catch {
+    throw new UploadRefused(422, 'The image is damaged and cannot be read.');
+  }
+  if ((meta.width ?? 0) * (meta.height ?? 0) > MAX_PIXELS) {
+    throw new UploadRefused(413, `The image is ${meta.width} × ${meta.height} px, over 50 megapixels.`);
+  }
+  const base = () => sharp(input, { limitInputPixels: MAX_PIXELS, failOn: 'error' }).rotate(); // EXIF orientation applied; no metadata kept
+  try {
+    const original = await base().toFormat(format, format === 'png' ? {} : { quality: 95 }).toBuffer({ resolveWithObject: true });
+    const working = await base().resize({ width: WORKING_MAX_SIDE, height: WORKING_MAX_SIDE, fit: 'inside', withoutEnlargement: true }).toFormat(format, format === 'png' ? {} : { quality: 90 }).toBuffer();
+    const preview = await base().resize({ width: PREVIEW_MAX_SIDE, height: PREVIEW_MAX_SIDE, fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
+    return {
+      sha256: createHash('sha256').update(input).digest('hex'),
+      mime,
+      bytes: input.byteLength,
+      width: original.info.width,
+      height: original.info.height,
+      original: original.data,
+      working,
+      preview,
+    };
+  } catch (err) {
+    if (err instanceof UploadRefused) throw err;
+    throw new UploadRefused(422, 'The image is damaged and cannot be read.');
+  }
+}
+
+/** Effective resolution of an image of `px` pixels printed `mm` wide (1 in = 25.4 mm). */
+export function effectivePpi(px: number, mm: number): number {
+  return px / (mm / 25.4);
+}
