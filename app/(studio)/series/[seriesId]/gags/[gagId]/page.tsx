@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import { GagDetail } from '@/components/gag/gag-detail';
 import { PassStrip } from '@/components/gag/pass-strip';
 import { ReviewSection } from '@/components/review/review-section';
+import { UploadsPanel } from '@/components/uploads/uploads-panel';
 import { can } from '@/lib/auth/permissions';
 import { loadGag } from '@/lib/data/studio';
 
@@ -15,6 +16,7 @@ export default async function GagPage({ params }: { params: Promise<{ seriesId: 
     <div className="space-y-8">
       <GagDetail key={gag.id} seriesId={series.id} seriesTitle={series.title} role={role} initial={gag} />
       <PassStrip seriesId={series.id} gagId={gag.id} passes={passes} beats={gag.beats} canEdit={can(role, 'edit')} />
+      <UploadsPanel seriesId={series.id} canUpload={can(role, 'edit')} />
       <ReviewSection seriesId={series.id} gagId={gag.id} role={role} meId={user.id} passes={passes.map((p) => ({ id: p.id, number: p.number, seq: p.seq }))} />
     </div>
   );
