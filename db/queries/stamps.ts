@@ -74,25 +74,21 @@ export async function stampPass(
   return (await stampById(db, id))!;
 }
 
-async function stampById(db: Db, id: string): Promise<StampDto | undefined> {
+/** Stamps with their pass number and who stamped, as the API shows them. */
+function stamps(db: Db) {
   return db
     .selectFrom('stamps as s')
     .innerJoin('passes as p', 'p.id', 's.passId')
     .innerJoin('users as u', 'u.id', 's.userId')
-    .select(['s.id', 's.passId', 'p.number as passNumber', 's.decision', 's.note', 's.passSeq', 'u.name as by', 's.createdAt', 's.clearedAt', 's.clearedSeq'])
-    .where('s.id', '=', id)
-    .executeTakeFirst();
+    .select(['s.id', 's.passId', 'p.number as passNumber', 's.decision', 's.note', 's.passSeq', 'u.name as by', 's.createdAt', 's.clearedAt', 's.clearedSeq']);
+}
+
+async function stampById(db: Db, id: string): Promise<StampDto | undefined> {
+  return stamps(db).where('s.id', '=', id).executeTakeFirst();
 }
 
 export async function stampsOfGag(db: Db, gagId: string): Promise<StampDto[]> {
-  return db
-    .selectFrom('stamps as s')
-    .innerJoin('passes as p', 'p.id', 's.passId')
-    .innerJoin('users as u', 'u.id', 's.userId')
-    .select(['s.id', 's.passId', 'p.number as passNumber', 's.decision', 's.note', 's.passSeq', 'u.name as by', 's.createdAt', 's.clearedAt', 's.clearedSeq'])
-    .where('s.gagId', '=', gagId)
-    .orderBy('s.createdAt', 'desc')
-    .execute();
+  return stamps(db).where('s.gagId', '=', gagId).orderBy('s.createdAt', 'desc').execute();
 }
 
 /**
