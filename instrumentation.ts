@@ -9,7 +9,7 @@ export async function register() {
     const { startFakeSmtp } = await import('./lib/mail/fake-server');
     const port = Number(process.env.MAIL_FAKE_PORT || 2525);
     try {
-      await startFakeSmtp(port);
+      await Promise.race([startFakeSmtp(port), new Promise((_, reject) => setTimeout(() => reject(new Error('timed out')), 5000))]);
       console.log(`[mail] local SMTP fake on 127.0.0.1:${port}; caught mail at /dev/mail`);
     } catch (err) {
       const code = (err as { code?: string }).code;
@@ -20,7 +20,8 @@ export async function register() {
     const { startFakeS3 } = await import('./lib/storage/fake-s3');
     const port = Number(process.env.S3_FAKE_PORT || 4569);
     try {
-      await startFakeS3(port);
+      // Never let a fake hold up the server: give it a few seconds at most.
+      await Promise.race([startFakeS3(port), new Promise((_, reject) => setTimeout(() => reject(new Error('timed out')), 5000))]);
       console.log(`[storage] local S3 fake on 127.0.0.1:${port}`);
     } catch (err) {
       const code = (err as { code?: string }).code;

@@ -124,3 +124,15 @@ describe('print check', () => {
     expect(effectivePpi(1771, 150)).toBeCloseTo(299.89, 2);
   });
 });
+
+describe('the S3 fake at start-up', () => {
+  it('refuses at once when its port is taken, instead of hanging the server', async () => {
+    const net = await import('node:net');
+    const { startFakeS3 } = await import('@/lib/storage/fake-s3');
+    const holder = net.createServer();
+    await new Promise<void>((r) => holder.listen(0, '127.0.0.1', () => r()));
+    const port = (holder.address() as import('node:net').AddressInfo).port;
+    await expect(startFakeS3(port)).rejects.toMatchObject({ code: 'EADDRINUSE' });
+    await new Promise<void>((r) => holder.close(() => r()));
+  });
+});
