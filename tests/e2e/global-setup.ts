@@ -2,24 +2,13 @@
 // and serves it with `next start` on 127.0.0.1 for the browser tests.
 import { type ChildProcess, execFileSync, spawn } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
+import { freePort } from '../support/free-port';
 
 const root = path.resolve(import.meta.dirname, '../..');
 const DIST = '.next-test';
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.listen(0, '127.0.0.1', () => {
-      const { port } = srv.address() as net.AddressInfo;
-      srv.close(() => resolve(port));
-    });
-    srv.on('error', reject);
-  });
-}
 
 async function waitForHealth(url: string, server: ChildProcess, log: () => string) {
   const deadline = Date.now() + 60_000;

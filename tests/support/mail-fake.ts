@@ -1,18 +1,12 @@
 // The SMTP fake on a free port with its own folder, for one test file.
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
+import { freePort } from './free-port';
 import { readCaughtMail, startFakeSmtp } from '@/lib/mail/fake-server';
 
 export async function startMailFake() {
-  const port = await new Promise<number>((resolve) => {
-    const s = net.createServer();
-    s.listen(0, '127.0.0.1', () => {
-      const p = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(p));
-    });
-  });
+  const port = await freePort();
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-mail-'));
   process.env.MAIL_FAKE_PORT = String(port);
   process.env.MAIL_FAKE_DIR = dir;

@@ -1,9 +1,10 @@
-import { findComment, seriesOfComment, updateComment } from '@/db/queries/comments';
+import { findComment, updateComment } from '@/db/queries/comments';
 import { jsonError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { commentPatchSchema } from '@/lib/validation/review';
+import { byCommentId } from '@/lib/http/series-of';
 
 type Params = { commentId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfComment>[0]) => seriesOfComment(db, p.commentId);
+const seriesOf = byCommentId;
 
 /** `{ body }` edits your own comment; `{ resolved: true | false }` resolves or reopens a thread. */
 export const PATCH = withSeriesRole<Params>('comment', seriesOf, async ({ req, db, params, user }) => {

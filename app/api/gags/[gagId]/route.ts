@@ -1,11 +1,12 @@
 import { recordActivity } from '@/db/queries/activity';
-import { deleteGag, findGag, seriesOfGag, updateGag } from '@/db/queries/gags';
+import { deleteGag, findGag, updateGag } from '@/db/queries/gags';
 import { checkManualMove } from '@/lib/gags/status';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { updateGagSchema } from '@/lib/validation/gag';
+import { byGagId } from '@/lib/http/series-of';
 
 type Params = { gagId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfGag>[0]) => seriesOfGag(db, p.gagId);
+const seriesOf = byGagId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) =>
   Response.json(await findGag(db, params.gagId)),

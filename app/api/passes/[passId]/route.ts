@@ -1,8 +1,9 @@
-import { passDelta, passState, seriesOfPass } from '@/db/queries/passes';
+import { passDelta, passState } from '@/db/queries/passes';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
+import { byPassId } from '@/lib/http/series-of';
 
 type Params = { passId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+const seriesOf = byPassId;
 
 /** The whole pass, or with `?since=seq` only what changed after that sequence number. */
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, params }) => {

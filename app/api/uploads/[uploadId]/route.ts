@@ -1,9 +1,10 @@
-import { deleteUpload, seriesOfUpload, uploadKeys } from '@/db/queries/uploads';
+import { deleteUpload, uploadKeys } from '@/db/queries/uploads';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
 import { deleteObject } from '@/lib/storage/s3';
+import { byUploadId } from '@/lib/http/series-of';
 
 type Params = { uploadId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfUpload>[0]) => seriesOfUpload(db, p.uploadId);
+const seriesOf = byUploadId;
 
 /** Co-creators and owners delete an upload and its stored files. */
 export const DELETE = withSeriesRole<Params>('edit', seriesOf, async ({ db, params }) => {

@@ -1,9 +1,10 @@
-import { findVolume, listEntries, seriesOfVolume, unplacedGags, updateVolume } from '@/db/queries/volumes';
+import { findVolume, listEntries, unplacedGags, updateVolume } from '@/db/queries/volumes';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { specIssues, updateVolumeSchema } from '@/lib/validation/volume';
+import { byVolumeId } from '@/lib/http/series-of';
 
 type Params = { volumeId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+const seriesOf = byVolumeId;
 
 /** The volume with its running order, and the series' gags not yet placed anywhere. */
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params, seriesId }) => {

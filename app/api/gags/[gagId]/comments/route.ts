@@ -1,11 +1,12 @@
 import { CommentRefused, createComment, listThreads, mentionedMembers } from '@/db/queries/comments';
-import { findGag, seriesOfGag } from '@/db/queries/gags';
+import { findGag } from '@/db/queries/gags';
 import { notifyMentions } from '@/lib/mail/notify';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { commentCreateSchema } from '@/lib/validation/review';
+import { byGagId } from '@/lib/http/series-of';
 
 type Params = { gagId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfGag>[0]) => seriesOfGag(db, p.gagId);
+const seriesOf = byGagId;
 
 /** Threads, oldest first, each with its replies. */
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => Response.json(await listThreads(db, params.gagId)));

@@ -1,10 +1,10 @@
-import { seriesOfGag } from '@/db/queries/gags';
 import { OpRefused, createPass, listPasses } from '@/db/queries/passes';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { createPassSchema } from '@/lib/validation/pass';
+import { byGagId } from '@/lib/http/series-of';
 
 type Params = { gagId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfGag>[0]) => seriesOfGag(db, p.gagId);
+const seriesOf = byGagId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) =>
   Response.json(await listPasses(db, params.gagId)),

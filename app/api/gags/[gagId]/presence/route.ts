@@ -1,10 +1,10 @@
 import { z } from 'zod';
-import { seriesOfGag } from '@/db/queries/gags';
 import { beat, present } from '@/db/queries/presence';
 import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { byGagId } from '@/lib/http/series-of';
 
 type Params = { gagId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfGag>[0]) => seriesOfGag(db, p.gagId);
+const seriesOf = byGagId;
 const bodySchema = z.object({ where: z.string().regex(/^(page|pass:\d{1,4}|compare)$/, 'where is "page", "compare" or "pass:N".') }).strict();
 
 /** Who has this gag open (seen in the last 20 s), and where. */

@@ -1,10 +1,10 @@
-import { seriesOfPass } from '@/db/queries/passes';
 import { passChecklist, setTicks } from '@/db/queries/review';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { checklistPutSchema } from '@/lib/validation/review';
+import { byPassId } from '@/lib/http/series-of';
 
 type Params = { passId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+const seriesOf = byPassId;
 
 /** The silent-read checklist of this pass: `[{ id, text, ticked, by, at }]`. */
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params, seriesId }) =>

@@ -1,13 +1,14 @@
 // Readability findings computed from the strokes (lib/review/findings).
 import { findGag } from '@/db/queries/gags';
-import { passState, seriesOfPass } from '@/db/queries/passes';
+import { passState } from '@/db/queries/passes';
 import { inkThresholdOf } from '@/db/queries/review';
 import { pageSpecForPass } from '@/db/queries/series';
 import { withSeriesRole } from '@/lib/http/route';
 import { type Findings, computeFindings } from '@/lib/review/findings';
+import { byPassId } from '@/lib/http/series-of';
 
 type Params = { passId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+const seriesOf = byPassId;
 
 // Findings only change with the pass (seq), the beat notes or the spec: remember a few.
 const cache = new Map<string, Findings>();

@@ -1,12 +1,13 @@
 // Receives a batch of editor operations; applies it in one transaction, once.
-import { OpRefused, applyBatch, seriesOfPass } from '@/db/queries/passes';
+import { OpRefused, applyBatch } from '@/db/queries/passes';
 import { pageSpecForPass } from '@/db/queries/series';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { MAX_BATCH_BYTES, type Op } from '@/lib/strokes/types';
 import { batchSchema, checkOpsInside } from '@/lib/validation/pass';
+import { byPassId } from '@/lib/http/series-of';
 
 type Params = { passId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+const seriesOf = byPassId;
 
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, user, seriesId }) => {
   const batch = await parseBody(req, batchSchema, { maxBytes: MAX_BATCH_BYTES });

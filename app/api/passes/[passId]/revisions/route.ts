@@ -1,8 +1,9 @@
-import { listRevisions, seriesOfPass } from '@/db/queries/passes';
+import { listRevisions } from '@/db/queries/passes';
 import { withSeriesRole } from '@/lib/http/route';
+import { byPassId } from '@/lib/http/series-of';
 
 type Params = { passId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+const seriesOf = byPassId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) =>
   Response.json(await listRevisions(db, params.passId)),

@@ -1,11 +1,11 @@
-import { seriesOfPass } from '@/db/queries/passes';
 import { StampRefused, stampPass } from '@/db/queries/stamps';
 import { notifyStamp } from '@/lib/mail/notify';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { stampSchema } from '@/lib/validation/review';
+import { byPassId } from '@/lib/http/series-of';
 
 type Params = { passId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+const seriesOf = byPassId;
 
 /** Editors and owners: `{ decision: "ready" | "again", note }`. */
 export const POST = withSeriesRole<Params>('stamp', seriesOf, async ({ req, db, params, user }) => {

@@ -1,11 +1,12 @@
 // A pass as an SVG page, for the board's cards (the same geometry as the editor).
-import { passState, seriesOfPass } from '@/db/queries/passes';
+import { passState } from '@/db/queries/passes';
 import { pageSpecForPass } from '@/db/queries/series';
 import { withSeriesRole } from '@/lib/http/route';
 import { passToSvg } from '@/lib/strokes/svg';
+import { byPassId } from '@/lib/http/series-of';
 
 type Params = { passId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+const seriesOf = byPassId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params, seriesId }) => {
   const state = await passState(db, params.passId);

@@ -1,9 +1,9 @@
 import { listActivity } from '@/db/queries/activity';
-import { findSeries } from '@/db/queries/series';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
+import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
-const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+const seriesOf = bySeriesId;
 
 /** Newest first, 20 a page: `?before=<id>` for the next page; `limit` up to 100. */
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, seriesId }) => {

@@ -1,10 +1,10 @@
-import { findSeries } from '@/db/queries/series';
 import { checklistItems, setChecklistItems } from '@/db/queries/review';
 import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { checklistItemsSchema } from '@/lib/validation/review';
+import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
-const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+const seriesOf = bySeriesId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await checklistItems(db, seriesId)));
 

@@ -1,11 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import { createGag, listGags } from '@/db/queries/gags';
-import { findSeries } from '@/db/queries/series';
 import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { createGagSchema } from '@/lib/validation/gag';
+import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
-const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+const seriesOf = bySeriesId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) =>
   Response.json(await listGags(db, seriesId)),

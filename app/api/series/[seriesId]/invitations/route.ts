@@ -5,9 +5,10 @@ import { appUrl } from '@/lib/mail/notify';
 import { sendMail } from '@/lib/mail/transport';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { inviteSchema } from '@/lib/validation/members';
+import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
-const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+const seriesOf = bySeriesId;
 
 /** Pending invitations (owners). */
 export const GET = withSeriesRole<Params>('manage', seriesOf, async ({ db, seriesId }) => Response.json(await listInvitations(db, seriesId)));

@@ -1,9 +1,9 @@
 import { listMembers } from '@/db/queries/members';
-import { findSeries } from '@/db/queries/series';
 import { withSeriesRole } from '@/lib/http/route';
+import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
-const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+const seriesOf = bySeriesId;
 
 /** Everyone in the series with their role (members need names for @mentions). */
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await listMembers(db, seriesId)));

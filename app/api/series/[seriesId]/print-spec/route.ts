@@ -1,9 +1,10 @@
-import { findSeries, pageSpecOf, setPageSpec } from '@/db/queries/series';
+import { pageSpecOf, setPageSpec } from '@/db/queries/series';
 import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { pageSpecSchema } from '@/lib/validation/pass';
+import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
-const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+const seriesOf = bySeriesId;
 
 /** The series' default page spec (mm): trim, bleed, safe margin, gutter. */
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await pageSpecOf(db, seriesId)));

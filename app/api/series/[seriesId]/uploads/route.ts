@@ -1,12 +1,12 @@
 // Uploads of scans and photos (multipart, field "file", several allowed).
 import { findUploadBySha, insertUpload, listUploads } from '@/db/queries/uploads';
-import { findSeries } from '@/db/queries/series';
 import { HttpError, jsonError, withSeriesRole } from '@/lib/http/route';
 import { putObject } from '@/lib/storage/s3';
 import { ACCEPTED, MAX_UPLOAD_BYTES, UploadRefused, prepareUpload } from '@/lib/uploads/process';
+import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
-const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+const seriesOf = bySeriesId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await listUploads(db, seriesId)));
 

@@ -1,11 +1,11 @@
-import { findSeries } from '@/db/queries/series';
 import { createVolume, listVolumes } from '@/db/queries/volumes';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { DEFAULT_VOLUME_SPEC } from '@/lib/print/book';
 import { createVolumeSchema, specIssues } from '@/lib/validation/volume';
+import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
-const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+const seriesOf = bySeriesId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await listVolumes(db, seriesId)));
 

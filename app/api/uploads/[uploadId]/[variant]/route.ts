@@ -1,10 +1,11 @@
 // The image bytes, only to members of its series (never a public URL).
-import { seriesOfUpload, uploadKeys } from '@/db/queries/uploads';
+import { uploadKeys } from '@/db/queries/uploads';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
 import { getObject } from '@/lib/storage/s3';
+import { byUploadId } from '@/lib/http/series-of';
 
 type Params = { uploadId: string; variant: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfUpload>[0]) => seriesOfUpload(db, p.uploadId);
+const seriesOf = byUploadId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
   const keys = await uploadKeys(db, params.uploadId);

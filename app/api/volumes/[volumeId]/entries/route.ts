@@ -1,9 +1,10 @@
-import { VolumeRefused, addEntry, seriesOfVolume } from '@/db/queries/volumes';
+import { VolumeRefused, addEntry } from '@/db/queries/volumes';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { addEntrySchema } from '@/lib/validation/volume';
+import { byVolumeId } from '@/lib/http/series-of';
 
 type Params = { volumeId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+const seriesOf = byVolumeId;
 
 /** `{ gagId }` places a gag (once); `{ kind }` adds a matter page. Appended at the end. */
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, seriesId }) => {

@@ -1,8 +1,9 @@
-import { findVolume, listEntries, planOf, seriesOfVolume } from '@/db/queries/volumes';
+import { findVolume, listEntries, planOf } from '@/db/queries/volumes';
 import { withSeriesRole } from '@/lib/http/route';
+import { byVolumeId } from '@/lib/http/series-of';
 
 type Params = { volumeId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+const seriesOf = byVolumeId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
   const volume = (await findVolume(db, params.volumeId))!;

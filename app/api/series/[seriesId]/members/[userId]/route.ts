@@ -1,10 +1,10 @@
 import { MemberRefused, changeRole, listMembers, removeMember } from '@/db/queries/members';
-import { findSeries } from '@/db/queries/series';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { roleSchema } from '@/lib/validation/members';
+import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string; userId: string };
-const seriesOf = async (p: Params, db: Parameters<typeof findSeries>[0]) => (await findSeries(db, p.seriesId))?.id ?? null;
+const seriesOf = bySeriesId;
 
 function refused(err: unknown): never {
   if (err instanceof MemberRefused) throw new HttpError(err.status, err.message);

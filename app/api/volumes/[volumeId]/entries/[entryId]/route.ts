@@ -1,8 +1,9 @@
-import { removeEntry, seriesOfVolume } from '@/db/queries/volumes';
+import { removeEntry } from '@/db/queries/volumes';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
+import { byVolumeId } from '@/lib/http/series-of';
 
 type Params = { volumeId: string; entryId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+const seriesOf = byVolumeId;
 
 export const DELETE = withSeriesRole<Params>('edit', seriesOf, async ({ db, params }) => {
   if (!(await removeEntry(db, params.volumeId, params.entryId))) return jsonError(404, 'Not found.');

@@ -1,11 +1,11 @@
 // The review dummy as a PDF: every page in running order, vectors, boxes set.
-import { seriesOfVolume } from '@/db/queries/volumes';
 import { reviewPdf } from '@/lib/export/pdf';
 import { volumePages } from '@/lib/export/volume-export';
 import { withSeriesRole } from '@/lib/http/route';
+import { byVolumeId } from '@/lib/http/series-of';
 
 type Params = { volumeId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+const seriesOf = byVolumeId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
   const { volume, pages } = await volumePages(db, params.volumeId);

@@ -1,10 +1,11 @@
-import { listEntries, seriesOfVolume } from '@/db/queries/volumes';
+import { listEntries } from '@/db/queries/volumes';
 import { PRINTER_NOTE } from '@/lib/export/pdf';
 import { runningOrderCsv } from '@/lib/export/volume-export';
 import { withSeriesRole } from '@/lib/http/route';
+import { byVolumeId } from '@/lib/http/series-of';
 
 type Params = { volumeId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+const seriesOf = byVolumeId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
   const csv = runningOrderCsv(await listEntries(db, params.volumeId), PRINTER_NOTE);

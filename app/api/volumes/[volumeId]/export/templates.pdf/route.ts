@@ -1,11 +1,11 @@
 // Drawing templates at 100, 150 or 200 % on A4 or A3.
-import { seriesOfVolume } from '@/db/queries/volumes';
 import { PAPERS, type Paper, templateFits, templatesPdf } from '@/lib/export/pdf';
 import { gagNotes, volumePages } from '@/lib/export/volume-export';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
+import { byVolumeId } from '@/lib/http/series-of';
 
 type Params = { volumeId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+const seriesOf = byVolumeId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, params }) => {
   const url = new URL(req.url);

@@ -1,8 +1,9 @@
-import { restoreRevision, seriesOfPass } from '@/db/queries/passes';
+import { restoreRevision } from '@/db/queries/passes';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
+import { byPassId } from '@/lib/http/series-of';
 
 type Params = { passId: string; revisionId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfPass>[0]) => seriesOfPass(db, p.passId);
+const seriesOf = byPassId;
 
 /** Restores a revision as a new state of the pass; the state before is kept as a revision. */
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ db, params, user }) => {

@@ -1,9 +1,10 @@
-import { VolumeRefused, moveEntry, seriesOfVolume } from '@/db/queries/volumes';
+import { VolumeRefused, moveEntry } from '@/db/queries/volumes';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { moveEntrySchema } from '@/lib/validation/volume';
+import { byVolumeId } from '@/lib/http/series-of';
 
 type Params = { volumeId: string; entryId: string };
-const seriesOf = (p: Params, db: Parameters<typeof seriesOfVolume>[0]) => seriesOfVolume(db, p.volumeId);
+const seriesOf = byVolumeId;
 
 /** `{ before: entryId }` or `{ after: entryId }`: one row is rewritten. */
 export const PUT = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params }) => {

@@ -1,0 +1,19 @@
+// How a route finds the series its resource belongs to (null → 404), for
+// withSeriesRole. One resolver per kind of id in the URL.
+import type { Kysely } from 'kysely';
+import type { Database } from '@/db/database';
+import { seriesOfComment } from '@/db/queries/comments';
+import { seriesOfGag } from '@/db/queries/gags';
+import { seriesOfPass } from '@/db/queries/passes';
+import { findSeries } from '@/db/queries/series';
+import { seriesOfUpload } from '@/db/queries/uploads';
+import { seriesOfVolume } from '@/db/queries/volumes';
+
+type Db = Kysely<Database>;
+
+export const bySeriesId = async (p: { seriesId: string }, db: Db) => (await findSeries(db, p.seriesId))?.id ?? null;
+export const byGagId = (p: { gagId: string }, db: Db) => seriesOfGag(db, p.gagId);
+export const byPassId = (p: { passId: string }, db: Db) => seriesOfPass(db, p.passId);
+export const byVolumeId = (p: { volumeId: string }, db: Db) => seriesOfVolume(db, p.volumeId);
+export const byUploadId = (p: { uploadId: string }, db: Db) => seriesOfUpload(db, p.uploadId);
+export const byCommentId = (p: { commentId: string }, db: Db) => seriesOfComment(db, p.commentId);
