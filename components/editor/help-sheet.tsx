@@ -4,7 +4,7 @@ import { Modal } from '@/components/ui/modal';
 
 // Quadrille's own shortcut map: tools on the number keys in toolbar order.
 export const SHORTCUTS: [string, string][] = [
-  ['1 … 7', 'Pen, tone marker, eraser, lasso, balloon room, hand, comment pin'],
+  ['1 … 7', 'Pen, tone marker, eraser, lasso, balloon room, pan the view, comment pin'],
   ['[  ]', 'Thinner / wider pen or marker'],
   [',  .', 'Lighter / darker tone grey'],
   ['+  −', 'Zoom in / out'],

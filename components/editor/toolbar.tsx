@@ -11,7 +11,7 @@ export const TOOL_INFO: { tool: Tool; label: string; key: string; Icon: typeof P
   { tool: 'eraser', label: 'Eraser', key: '3', Icon: Eraser },
   { tool: 'lasso', label: 'Lasso', key: '4', Icon: Lasso },
   { tool: 'room', label: 'Balloon room', key: '5', Icon: SquareDashed },
-  { tool: 'pan', label: 'Hand (pan)', key: '6', Icon: Hand },
+  { tool: 'pan', label: 'Pan the view', key: '6', Icon: Hand },
   { tool: 'pin', label: 'Pin a comment', key: '7', Icon: MapPin },
 ];
 

@@ -54,7 +54,7 @@ describe.each([
     await canvas.waitFor();
     expect(Number(await canvas.getAttribute('data-stroke-count'))).toBeGreaterThan(10);
     expect(await page.getByRole('button', { name: 'Pen (1)' }).count()).toBe(canEdit ? 1 : 0);
-    expect(await page.getByRole('button', { name: 'Hand (pan) (6)' }).count()).toBe(1);
+    expect(await page.getByRole('button', { name: 'Pan the view (6)' }).count()).toBe(1);
     if (!canEdit) {
       await page.getByText('Read-only').waitFor();
       expect(await page.getByRole('button', { name: 'Restore' }).count()).toBe(0);
