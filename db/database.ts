@@ -132,6 +132,31 @@ export interface RoomTombstonesTable {
   seq: number;
 }
 
+export interface LightboxesTable {
+  rowId: Generated<number>;
+  passId: string;
+  lightboxId: string;
+  uploadId: string;
+  /** null: the whole page. */
+  panel: number | null;
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+  rotation: number;
+  opacity: number;
+  /** 0 hidden, 1 shown. */
+  visible: number;
+  addedSeq: number;
+  removedSeq: number | null;
+}
+
+export interface LightboxTombstonesTable {
+  passId: string;
+  lightboxId: string;
+  seq: number;
+}
+
 export interface PassBatchesTable {
   passId: string;
   batchId: string;
@@ -303,6 +328,8 @@ export interface Database {
   strokeTombstones: StrokeTombstonesTable;
   rooms: RoomsTable;
   roomTombstones: RoomTombstonesTable;
+  lightboxes: LightboxesTable;
+  lightboxTombstones: LightboxTombstonesTable;
   passBatches: PassBatchesTable;
   revisions: RevisionsTable;
   checklistItems: ChecklistItemsTable;

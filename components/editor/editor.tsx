@@ -6,6 +6,7 @@
 import type Konva from 'konva';
 import { nanoid } from 'nanoid';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import useSWR from 'swr';
 import { Circle, Ellipse, Group, Image as KImage, Layer, Rect, Shape, Stage, Text, Transformer } from 'react-konva';
 import { CommentsPanel } from '@/components/review/comments-panel';
 import { PresenceBar } from '@/components/review/presence-bar';
@@ -16,7 +17,11 @@ import { pointsBounds, rectsOverlap, strokeInLasso, strokeTouches } from '@/lib/
 import { outlineOf, traceOutline } from '@/lib/strokes/outline';
 import { strokesOfPanel } from '@/lib/strokes/pass-model';
 import { simplifyPoints } from '@/lib/strokes/simplify';
-import { type Op, type Point, type Room, type RoomShape, type Stroke, TONE_GREYS, greyToCss, strokeAlpha } from '@/lib/strokes/types';
+import { type Lightbox, type Op, type Point, type Room, type RoomShape, type Stroke, TONE_GREYS, greyToCss, strokeAlpha } from '@/lib/strokes/types';
+import { centreAt, fitInto, scaleTo, turnQuarter, turned } from '@/lib/strokes/lightbox';
+import { useUploadJobs } from '@/components/uploads/upload-jobs';
+import type { UploadDto, UploadListItem } from '@/db/queries/uploads';
+import { fetcher } from '@/lib/http/client';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import { PanelRasters } from './panel-rasters';
 import { PassSync, type SyncStatus } from './pass-sync';
@@ -24,7 +29,9 @@ import { EditorToolbar, type Tool } from './toolbar';
 import { HelpSheet } from './help-sheet';
 import { RevisionsPanel } from './revisions-panel';
 import { SyncBadge } from './sync-badge';
-import { UndoStack, addedStrokes, movedStrokes, removedStrokes, roomChanged, roomRemoved } from './undo';
+import { UndoStack, addedStrokes, lightboxChanged, lightboxRemoved, movedStrokes, removedStrokes, roomChanged, roomRemoved } from './undo';
+import { LightboxPanel, type Target } from './lightbox-panel';
+import { useLightboxImages } from './lightbox-images';
 
 export type EditorProps = {
   passId: string;
@@ -38,7 +45,7 @@ export type EditorProps = {
   canRestore: boolean;
   spec: PageSpec;
   beats: { kind: BeatKind; note: string }[];
-  initial: { seq: number; strokes: Stroke[]; rooms: Room[] };
+  initial: { seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
 };
 
 export type Guides = { bleed: boolean; trim: boolean; safe: boolean; panels: boolean };
@@ -93,6 +100,8 @@ export default function Editor(props: EditorProps) {
   const overlayLayerRef = useRef<Konva.Layer>(null);
   const transformerRef = useRef<Konva.Transformer>(null);
   const roomNodes = useRef(new Map<string, Konva.Shape>());
+  const lightboxTransformerRef = useRef<Konva.Transformer>(null);
+  const lightboxNodes = useRef(new Map<string, Konva.Node>());
 
   const [size, setSize] = useState({ w: 800, h: 600 });
   const [view, setView] = useState<View>({ scale: 3, originX: 20, originY: 20 });
@@ -109,6 +118,13 @@ export default function Editor(props: EditorProps) {
   const [selection, setSelection] = useState<string[]>([]);
   const [selectedRoom, setSelectedRoom] = useState<string | null>(null);
   const [rooms, setRooms] = useState<Room[]>(props.initial.rooms);
+  const [lightboxes, setLightboxes] = useState<Lightbox[]>(props.initial.lightboxes);
+  const [selectedLightbox, setSelectedLightbox] = useState<string | null>(null);
+  /** A lightbox value shown while a slider moves, before it is committed. */
+  const [lightboxPreview, setLightboxPreview] = useState<Lightbox | null>(null);
+  const [dropOver, setDropOver] = useState(false);
+  const { data: uploads, mutate: reloadUploads } = useSWR<UploadListItem[]>(`/api/series/${props.seriesId}/uploads`, fetcher);
+  const images = useLightboxImages(lightboxes.map((l) => l.uploadId));
   const [strokeCount, setStrokeCount] = useState(props.initial.strokes.length);
   const [status, setStatus] = useState<SyncStatus>({ state: 'saved', waiting: 0, message: null });
   const [helpOpen, setHelpOpen] = useState(false);
@@ -148,7 +164,10 @@ export default function Editor(props: EditorProps) {
       if (change.full) r.redrawAll(sync.doc.strokes.values());
       else for (const p of change.panels) r.redrawPanel(p, strokesOfPanel(sync.doc, p));
       strokesLayerRef.current?.batchDraw();
-      if (change.rooms) setRooms([...sync.doc.rooms.values()]);
+      if (change.items) {
+        setRooms([...sync.doc.rooms.values()]);
+        setLightboxes([...sync.doc.lightboxes.values()]);
+      }
       setStrokeCount(sync.doc.strokes.size);
       setSeqSeen(sync.seq);
       setSelection((sel) => sel.filter((id) => sync.doc.strokes.has(id)));
@@ -280,6 +299,12 @@ export default function Editor(props: EditorProps) {
         const panel = nearestPanel(spec, mm.x, mm.y);
         const p = clampToBox(mm, panels[panel]!);
         setPointPin({ panel, x: Math.round(p.x * 10) / 10, y: Math.round(p.y * 10) / 10 });
+        return;
+      }
+      if (tool === 'lightbox' && canDraw && e.button === 0) {
+        const hit = stageRef.current?.getIntersection(pt);
+        if (hit && (hit.name() === 'lightbox' || hit.getParent()?.className === 'Transformer')) return; // Konva drags it
+        setSelectedLightbox(null);
         return;
       }
       if (e.button === 1 || tool === 'pan' || !canDraw) {
@@ -474,11 +499,79 @@ export default function Editor(props: EditorProps) {
     };
   }, [tool, penOnly, canDraw, bleed, panels, spec, penSize, toneSize, toneGrey, roomShape, commit, eraseAt, selectionStrokes]);
 
+  // ---------- lightbox ----------
+
+  const areaOf = useCallback((t: Target) => (t === null ? bleed : panels[t]!), [bleed, panels]);
+  const uploadsById = useMemo(() => new Map((uploads ?? []).map((u) => [u.id, u])), [uploads]);
+
+  const changeLightbox = useCallback((before: Lightbox | null, after: Lightbox) => {
+    commit([{ op: 'lightbox', lightbox: after }]);
+    undoStack.current.push(lightboxChanged(before, after));
+    refreshUndo();
+    setLightboxPreview(null);
+  }, [commit]);
+
+  const removeLightbox = useCallback((l: Lightbox) => {
+    commit([{ op: 'unlightbox', lightboxId: l.id }]);
+    undoStack.current.push(lightboxRemoved(l));
+    refreshUndo();
+    setSelectedLightbox(null);
+  }, [commit]);
+
+  const placeLightbox = useCallback((upload: Pick<UploadDto, 'id' | 'width' | 'height'>, target: Target) => {
+    const l: Lightbox = { id: nanoid(), uploadId: upload.id, panel: target, ...fitInto(areaOf(target), upload, 0), rotation: 0, opacity: 0.5, visible: true };
+    changeLightbox(null, l);
+    setSelectedLightbox(l.id);
+  }, [areaOf, changeLightbox]);
+
+  /** Width of the box that fits the lightbox's image into its target, for the size slider. */
+  const fitWidthOf = useCallback((l: Lightbox) => {
+    const u = uploadsById.get(l.uploadId);
+    const image = u ?? (turned(l.rotation) ? { width: l.h, height: l.w } : { width: l.w, height: l.h });
+    return fitInto(areaOf(l.panel), image, l.rotation).w;
+  }, [areaOf, uploadsById]);
+
+  const lightboxEdited = useCallback((id: string, node: Konva.Node) => {
+    const before = syncRef.current?.doc.lightboxes.get(id);
+    if (!before) return;
+    // The image node is centred on its box (offset = half its size), so x, y is the centre.
+    const k = node.scaleX();
+    node.scale({ x: 1, y: 1 });
+    const scaled = Math.abs(k - 1) > 1e-6 ? scaleTo(before, Math.max(1, before.w * k)) : before;
+    changeLightbox(before, centreAt(scaled, node.x(), node.y()));
+  }, [changeLightbox]);
+
+  const dropTarget = useRef<Target>(null);
+  const { jobs: uploadJobs, start: startUploadJobs } = useUploadJobs(
+    props.seriesId,
+    useCallback((u: UploadDto, index: number) => {
+      void reloadUploads();
+      if (index === 0) placeLightbox(u, dropTarget.current);
+    }, [placeLightbox, reloadUploads]),
+  );
+  const startUpload = useCallback((files: FileList | File[], target: Target) => {
+    dropTarget.current = target;
+    startUploadJobs(files);
+  }, [startUploadJobs]);
+
+  useEffect(() => {
+    const tr = lightboxTransformerRef.current;
+    if (!tr) return;
+    const node = selectedLightbox ? lightboxNodes.current.get(selectedLightbox) : undefined;
+    tr.nodes(node && tool === 'lightbox' && canDraw ? [node] : []);
+    tr.getLayer()?.batchDraw();
+  }, [selectedLightbox, lightboxes, tool, canDraw, images]);
+
   // ---------- selection and room actions ----------
 
   const deleteSelection = useCallback(() => {
     const sync = syncRef.current;
     if (!sync) return;
+    if (selectedLightbox && tool === 'lightbox') {
+      const l = sync.doc.lightboxes.get(selectedLightbox);
+      if (l) removeLightbox(l);
+      return;
+    }
     if (selectedRoom && tool === 'room') {
       const room = sync.doc.rooms.get(selectedRoom);
       if (room) {
@@ -495,7 +588,7 @@ export default function Editor(props: EditorProps) {
       setSelection([]);
     }
     refreshUndo();
-  }, [commit, selectedRoom, selectionStrokes, tool]);
+  }, [commit, removeLightbox, selectedLightbox, selectedRoom, selectionStrokes, tool]);
 
   const copySelectionTo = useCallback((target: number) => {
     const strokes = selectionStrokes();
@@ -558,6 +651,7 @@ export default function Editor(props: EditorProps) {
 
   useEffect(() => {
     if (tool !== 'room') setSelectedRoom(null);
+    if (tool !== 'lightbox') setSelectedLightbox(null);
     if (tool !== 'lasso') setSelection([]);
   }, [tool]);
 
@@ -585,9 +679,9 @@ export default function Editor(props: EditorProps) {
         return;
       }
       if (mod) return;
-      const tools: Tool[] = ['pen', 'tone', 'eraser', 'lasso', 'room', 'pan', 'pin'];
+      const tools: Tool[] = ['pen', 'tone', 'eraser', 'lasso', 'room', 'pan', 'pin', 'lightbox'];
       const n = Number(e.key);
-      if (n >= 1 && n <= 7 && e.key.length === 1) {
+      if (n >= 1 && n <= tools.length && e.key.length === 1) {
         const t = tools[n - 1]!;
         if (t === 'pan' || (t === 'pin' ? props.canComment : canDraw)) setTool(t);
         return;
@@ -638,6 +732,7 @@ export default function Editor(props: EditorProps) {
         case 'Escape':
           setSelection([]);
           setSelectedRoom(null);
+          setSelectedLightbox(null);
           setHelpOpen(false);
           break;
         case 'p':
@@ -817,9 +912,24 @@ export default function Editor(props: EditorProps) {
           data-testid="sketch-canvas"
           data-stroke-count={strokeCount}
           data-room-count={rooms.length}
+          data-lightbox-count={lightboxes.filter((l) => l.visible).length}
           data-tool={tool}
           tabIndex={0}
-          className="h-full w-full touch-none overflow-hidden rounded-lg border border-paper-edge bg-marker-10"
+          className={`h-full w-full touch-none overflow-hidden rounded-lg border bg-marker-10 ${dropOver ? 'border-ink ring-2 ring-ink' : 'border-paper-edge'}`}
+          onDragOver={(e) => {
+            if (!canDraw || !e.dataTransfer.types.includes('Files')) return;
+            e.preventDefault();
+            setDropOver(true);
+          }}
+          onDragLeave={() => setDropOver(false)}
+          onDrop={(e) => {
+            if (!canDraw || !e.dataTransfer.files.length) return;
+            e.preventDefault();
+            setDropOver(false);
+            const rect = wrapRef.current!.getBoundingClientRect();
+            const mm = toPage(viewRef.current, e.clientX - rect.left, e.clientY - rect.top);
+            startUpload(e.dataTransfer.files, panelAt(spec, mm.x, mm.y));
+          }}
           style={{ cursor: tool === 'pan' || !canDraw ? 'grab' : 'crosshair' }}
         >
           <Stage ref={stageRef} width={size.w} height={size.h}>
@@ -851,6 +961,48 @@ export default function Editor(props: EditorProps) {
                   />
                 );
               })}
+            </Layer>
+            <Layer listening={tool === 'lightbox' && canDraw} {...layerProps}>
+              {lightboxes.map((saved) => {
+                const l = lightboxPreview?.id === saved.id ? lightboxPreview : saved;
+                if (!l.visible) return null;
+                const area = areaOf(l.panel);
+                const img = images.get(l.uploadId);
+                const iw = turned(l.rotation) ? l.h : l.w;
+                const ih = turned(l.rotation) ? l.w : l.h;
+                const arrange = tool === 'lightbox' && canDraw;
+                const common = {
+                  name: 'lightbox',
+                  x: l.x + l.w / 2,
+                  y: l.y + l.h / 2,
+                  offsetX: iw / 2,
+                  offsetY: ih / 2,
+                  width: iw,
+                  height: ih,
+                  rotation: l.rotation,
+                  draggable: arrange,
+                  onPointerDown: () => setSelectedLightbox(l.id),
+                  onDragEnd: (e: Konva.KonvaEventObject<DragEvent>) => lightboxEdited(l.id, e.target),
+                  onTransformEnd: (e: Konva.KonvaEventObject<Event>) => lightboxEdited(l.id, e.target),
+                  ref: (node: Konva.Node | null) => {
+                    if (node) lightboxNodes.current.set(l.id, node);
+                    else lightboxNodes.current.delete(l.id);
+                  },
+                };
+                const key = `${l.id}-${l.x}-${l.y}-${l.w}-${l.h}-${l.rotation}`;
+                return (
+                  <Group key={l.id} clipX={area.x} clipY={area.y} clipWidth={area.w} clipHeight={area.h}>
+                    {img === 'missing' ? (
+                      <Rect key={key} {...common} stroke="#b8321f" strokeWidth={1} strokeScaleEnabled={false} dash={[6, 4]} fill="rgba(184,50,31,0.04)" />
+                    ) : img ? (
+                      <KImage key={key} {...common} image={img} opacity={l.opacity} />
+                    ) : (
+                      <Rect key={key} {...common} fill="#ebe7df" opacity={l.opacity} />
+                    )}
+                  </Group>
+                );
+              })}
+              <Transformer ref={lightboxTransformerRef} rotateEnabled={false} keepRatio enabledAnchors={['top-left', 'top-right', 'bottom-left', 'bottom-right']} ignoreStroke />
             </Layer>
             <Layer ref={strokesLayerRef} listening={false} {...layerProps}>
               {rasters && panels.map((r, i) => <KImage key={i} image={rasters.canvases[i]} x={r.x} y={r.y} width={r.w} height={r.h} />)}
@@ -931,6 +1083,32 @@ export default function Editor(props: EditorProps) {
             {findings.beatsMissing.length > 0 && <p className="mt-1 text-stamp">No note: {findings.beatsMissing.map((k) => BEAT_LABELS[k]).join(', ')}</p>}
           </section>
         )}
+        <LightboxPanel
+          lightboxes={lightboxes}
+          uploads={uploads ?? []}
+          canDraw={canDraw}
+          selectedId={selectedLightbox}
+          fitWidthOf={fitWidthOf}
+          jobs={uploadJobs}
+          startUpload={startUpload}
+          onSelect={(id) => {
+            setSelectedLightbox(id);
+            if (canDraw) setTool('lightbox');
+          }}
+          onPlace={(uploadId, target) => {
+            const u = uploadsById.get(uploadId);
+            if (u) placeLightbox(u, target);
+          }}
+          onChange={changeLightbox}
+          onPreview={setLightboxPreview}
+          onTurn={(l) => changeLightbox(l, turnQuarter(l))}
+          onFit={(l) => {
+            const u = uploadsById.get(l.uploadId);
+            if (u) changeLightbox(l, { ...l, ...fitInto(areaOf(l.panel), u, l.rotation) });
+          }}
+          onScale={(l, width) => changeLightbox(l, scaleTo(l, width))}
+          onRemove={removeLightbox}
+        />
         <section className="panel p-3">
           <h2 className="mb-2 font-display text-lg font-extrabold">Beats</h2>
           <ol className="space-y-2 text-sm">

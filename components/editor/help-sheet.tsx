@@ -4,7 +4,7 @@ import { Modal } from '@/components/ui/modal';
 
 // Quadrille's own shortcut map: tools on the number keys in toolbar order.
 export const SHORTCUTS: [string, string][] = [
-  ['1 … 7', 'Pen, tone marker, eraser, lasso, balloon room, pan the view, comment pin'],
+  ['1 … 8', 'Pen, tone marker, eraser, lasso, balloon room, pan the view, comment pin, arrange the lightbox'],
   ['[  ]', 'Thinner / wider pen or marker'],
   [',  .', 'Lighter / darker tone grey'],
   ['+  −', 'Zoom in / out'],
@@ -13,7 +13,7 @@ export const SHORTCUTS: [string, string][] = [
   ['Wheel', 'Zoom at the pointer (Shift + wheel pans)'],
   ['Two fingers', 'Pinch to zoom, drag to pan'],
   ['Ctrl+Z  /  Ctrl+Shift+Z', 'Undo / redo your own changes'],
-  ['Delete', 'Delete the selection or the chosen balloon room'],
+  ['Delete', 'Delete the selection or the chosen balloon room; take away the chosen lightbox'],
   ['Esc', 'Clear the selection'],
   ['P', 'Pen only: ignore touch, so a resting palm draws nothing'],
   ['G', 'Show or hide all guides'],

@@ -4,14 +4,15 @@
 import { nanoid } from 'nanoid';
 import { Outbox } from '@/lib/strokes/outbox';
 import { type PassDoc, applyDelta, applyOp, docFrom } from '@/lib/strokes/pass-model';
-import type { Op, Room, Stroke } from '@/lib/strokes/types';
+import type { Lightbox, Op, Room, Stroke } from '@/lib/strokes/types';
 
 export type SyncState = 'saved' | 'saving' | 'offline' | 'refused';
 export type SyncStatus = { state: SyncState; waiting: number; message: string | null };
-export type DocChange = { panels: Set<number>; full: boolean; rooms: boolean };
+/** `items`: balloon rooms or lightboxes changed (they are not in the panel bitmaps). */
+export type DocChange = { panels: Set<number>; full: boolean; items: boolean };
 
-type ServerState = { seq: number; strokes: Stroke[]; rooms: Room[] };
-type ServerDelta = ServerState & { removedStrokes: string[]; removedRooms: string[] };
+type ServerState = { seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
+type ServerDelta = ServerState & { removedStrokes: string[]; removedRooms: string[]; removedLightboxes: string[] };
 
 const POLL_MS = 1000;
 const SEAL_AFTER_MS = 150;
@@ -41,7 +42,7 @@ export class PassSync {
     storage: Storage,
     private readOnly = false,
   ) {
-    this.doc = docFrom(initial.strokes, initial.rooms);
+    this.doc = docFrom(initial.strokes, initial.rooms, initial.lightboxes);
     this.seq = initial.seq;
     this.outbox = new Outbox(storage, `quadrille.outbox.${passId}`, () => nanoid());
   }
@@ -50,7 +51,7 @@ export class PassSync {
     // Work that was drawn but not acknowledged before a reload: show it, then send it.
     const pending = this.outbox.pendingOps();
     for (const op of pending) applyOp(this.doc, op);
-    this.emitDoc({ panels: new Set([0, 1, 2, 3]), full: true, rooms: true });
+    this.emitDoc({ panels: new Set([0, 1, 2, 3]), full: true, items: true });
     if (!this.readOnly) {
       this.outbox.seal();
       window.addEventListener('online', this.onOnline);
@@ -84,13 +85,13 @@ export class PassSync {
   commit(ops: Op[], opts: { emit?: boolean } = {}): Set<number> {
     if (this.readOnly || ops.length === 0) return new Set();
     const touched = new Set<number>();
-    let rooms = false;
+    let items = false;
     for (const op of ops) {
       applyOp(this.doc, op, touched);
-      if (op.op === 'room' || op.op === 'unroom') rooms = true;
+      if (op.op !== 'add' && op.op !== 'remove' && op.op !== 'move') items = true;
     }
     this.outbox.push(...ops);
-    if (opts.emit !== false) this.emitDoc({ panels: touched, full: false, rooms });
+    if (opts.emit !== false) this.emitDoc({ panels: touched, full: false, items });
     if (this.sealTimer) clearTimeout(this.sealTimer);
     this.sealTimer = setTimeout(() => this.flush(), SEAL_AFTER_MS);
     this.updateStatus();
@@ -190,8 +191,8 @@ export class PassSync {
     const touched = applyDelta(this.doc, delta, this.unseenOps(delta.seq));
     this.seq = delta.seq;
     this.unsynced = this.unsynced.filter((u) => u.seq > delta.seq);
-    const rooms = delta.rooms.length > 0 || delta.removedRooms.length > 0;
-    if (touched.size || rooms) this.emitDoc({ panels: touched, full: false, rooms });
+    const items = delta.rooms.length + delta.removedRooms.length + delta.lightboxes.length + delta.removedLightboxes.length > 0;
+    if (touched.size || items) this.emitDoc({ panels: touched, full: false, items });
   }
 
   /** Reloads the whole pass (after a refusal or a restore) and re-applies local work. */
@@ -199,10 +200,10 @@ export class PassSync {
     const res = await fetch(`/api/passes/${this.passId}`, { cache: 'no-store' }).catch(() => null);
     if (!res?.ok) return;
     const state = (await res.json()) as ServerState;
-    this.doc = docFrom(state.strokes, state.rooms);
+    this.doc = docFrom(state.strokes, state.rooms, state.lightboxes);
     this.seq = state.seq;
     this.unsynced = [];
     for (const op of this.outbox.pendingOps()) applyOp(this.doc, op);
-    this.emitDoc({ panels: new Set([0, 1, 2, 3]), full: true, rooms: true });
+    this.emitDoc({ panels: new Set([0, 1, 2, 3]), full: true, items: true });
   }
 }

@@ -1,9 +1,9 @@
 'use client';
-import { Circle, Eraser, Hand, Highlighter, Keyboard, Lasso, MapPin, PenLine, Redo2, Square, SquareDashed, Undo2, ZoomIn, ZoomOut, Maximize } from 'lucide-react';
+import { Circle, Eraser, Hand, Highlighter, ImageUp, Keyboard, Lasso, MapPin, PenLine, Redo2, Square, SquareDashed, Undo2, ZoomIn, ZoomOut, Maximize } from 'lucide-react';
 import { TONE_GREYS, type RoomShape, greyToCss } from '@/lib/strokes/types';
 import type { Guides } from './editor';
 
-export type Tool = 'pen' | 'tone' | 'eraser' | 'lasso' | 'room' | 'pan' | 'pin';
+export type Tool = 'pen' | 'tone' | 'eraser' | 'lasso' | 'room' | 'pan' | 'pin' | 'lightbox';
 
 export const TOOL_INFO: { tool: Tool; label: string; key: string; Icon: typeof PenLine }[] = [
   { tool: 'pen', label: 'Pen', key: '1', Icon: PenLine },
@@ -13,6 +13,7 @@ export const TOOL_INFO: { tool: Tool; label: string; key: string; Icon: typeof P
   { tool: 'room', label: 'Balloon room', key: '5', Icon: SquareDashed },
   { tool: 'pan', label: 'Pan the view', key: '6', Icon: Hand },
   { tool: 'pin', label: 'Pin a comment', key: '7', Icon: MapPin },
+  { tool: 'lightbox', label: 'Arrange the lightbox', key: '8', Icon: ImageUp },
 ];
 
 function IconButton({ label, pressed, onClick, disabled, children }: { label: string; pressed?: boolean; onClick: () => void; disabled?: boolean; children: React.ReactNode }) {

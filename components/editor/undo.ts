@@ -2,7 +2,7 @@
 // A removal is final for its id (a tombstone), so bringing a stroke or room
 // back re-adds a copy under a fresh id; each entry remembers the current id.
 import { nanoid } from 'nanoid';
-import type { Op, Room, Stroke } from '@/lib/strokes/types';
+import type { Lightbox, Op, Room, Stroke } from '@/lib/strokes/types';
 
 export type UndoEntry = { undo: () => Op[]; redo: () => Op[] };
 
@@ -29,22 +29,31 @@ export function movedStrokes(ids: string[], dx: number, dy: number): UndoEntry {
   };
 }
 
-/** A room drawn (before = null) or changed (before = its previous shape). */
-export function roomChanged(before: Room | null, after: Room): UndoEntry {
+/** An item placed (before = null) or changed (before = its previous value); a removal is final for its id. */
+function itemChanged<T extends { id: string }>(before: T | null, after: T, put: (item: T) => Op, take: (id: string) => Op): UndoEntry {
   let id = after.id;
   return {
-    undo: () => (before ? [{ op: 'room', room: { ...before, id } }] : [{ op: 'unroom', roomId: id }]),
+    undo: () => [before ? put({ ...before, id }) : take(id)],
     redo: () => {
       if (!before) id = nanoid();
-      return [{ op: 'room', room: { ...after, id } }];
+      return [put({ ...after, id })];
     },
   };
 }
 
-export function roomRemoved(room: Room): UndoEntry {
-  const inverse = roomChanged(null, room);
-  return { undo: inverse.redo, redo: inverse.undo };
+function inverse(e: UndoEntry): UndoEntry {
+  return { undo: e.redo, redo: e.undo };
 }
+
+const putRoom = (room: Room): Op => ({ op: 'room', room });
+const takeRoom = (roomId: string): Op => ({ op: 'unroom', roomId });
+const putLightbox = (lightbox: Lightbox): Op => ({ op: 'lightbox', lightbox });
+const takeLightbox = (lightboxId: string): Op => ({ op: 'unlightbox', lightboxId });
+
+export const roomChanged = (before: Room | null, after: Room) => itemChanged(before, after, putRoom, takeRoom);
+export const roomRemoved = (room: Room) => inverse(roomChanged(null, room));
+export const lightboxChanged = (before: Lightbox | null, after: Lightbox) => itemChanged(before, after, putLightbox, takeLightbox);
+export const lightboxRemoved = (l: Lightbox) => inverse(lightboxChanged(null, l));
 
 export class UndoStack {
   private done: UndoEntry[] = [];

@@ -2,59 +2,20 @@
 // Scans and photos of paper thumbnails: pick or drop several files, each with
 // a real progress bar (XHR upload progress), and a clear message on failure.
 import { ImagePlus, Trash2 } from 'lucide-react';
-import { useRef, useState } from 'react';
+import { useCallback, useRef, useState } from 'react';
 import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import type { UploadDto } from '@/db/queries/uploads';
+import type { UploadListItem } from '@/db/queries/uploads';
 import { ApiError, api, fetcher } from '@/lib/http/client';
-
-type Job = { key: string; name: string; progress: number; error: string | null; done: boolean };
-
-function send(seriesId: string, file: File, onProgress: (f: number) => void): Promise<UploadDto> {
-  return new Promise((resolve, reject) => {
-    const xhr = new XMLHttpRequest();
-    xhr.open('POST', `/api/series/${seriesId}/uploads`);
-    xhr.upload.onprogress = (e) => {
-      if (e.lengthComputable) onProgress(e.loaded / e.total);
-    };
-    xhr.onload = () => {
-      let body: { error?: string } & Partial<UploadDto> = {};
-      try {
-        body = JSON.parse(xhr.responseText);
-      } catch {
-        /* not JSON */
-      }
-      if (xhr.status >= 200 && xhr.status < 300) resolve(body as UploadDto);
-      else reject(new Error(body.error ?? `Upload failed (${xhr.status}).`));
-    };
-    xhr.onerror = () => reject(new Error('The connection was lost during the upload.'));
-    const form = new FormData();
-    form.append('file', file);
-    xhr.send(form);
-  });
-}
+import { ACCEPT_IMAGES, UploadJobList, useUploadJobs } from './upload-jobs';
 
 export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpload: boolean }) {
-  const { data, mutate } = useSWR<UploadDto[]>(`/api/series/${seriesId}/uploads`, fetcher);
-  const [jobs, setJobs] = useState<Job[]>([]);
+  const { data, mutate } = useSWR<UploadListItem[]>(`/api/series/${seriesId}/uploads`, fetcher);
   const [over, setOver] = useState(false);
-  const [confirm, setConfirm] = useState<UploadDto | null>(null);
+  const [confirm, setConfirm] = useState<UploadListItem | null>(null);
   const input = useRef<HTMLInputElement>(null);
-
-  const start = (files: FileList | File[]) => {
-    for (const file of Array.from(files)) {
-      const key = `${file.name}-${file.size}-${Math.random()}`;
-      setJobs((j) => [...j, { key, name: file.name, progress: 0, error: null, done: false }]);
-      const update = (patch: Partial<Job>) => setJobs((j) => j.map((x) => (x.key === key ? { ...x, ...patch } : x)));
-      send(seriesId, file, (p) => update({ progress: p }))
-        .then(() => {
-          update({ progress: 1, done: true });
-          void mutate();
-        })
-        .catch((err: Error) => update({ error: err.message }));
-    }
-  };
+  const { jobs, start } = useUploadJobs(seriesId, useCallback(() => void mutate(), [mutate]));
 
   return (
     <section aria-labelledby="uploads-title" className="space-y-3">
@@ -84,7 +45,7 @@ export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpl
           <input
             ref={input}
             type="file"
-            accept="image/png,image/jpeg,image/webp"
+            accept={ACCEPT_IMAGES}
             multiple
             className="sr-only"
             aria-label="Upload scans or photos"
@@ -95,25 +56,7 @@ export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpl
           />
         </div>
       )}
-      {jobs.length > 0 && (
-        <ul className="space-y-1 text-sm" aria-label="Uploads in progress">
-          {jobs.map((j) => (
-            <li key={j.key} className="flex items-center gap-2">
-              <span className="w-48 truncate">{j.name}</span>
-              {j.error ? (
-                <span role="alert" className="text-stamp">
-                  {j.error}
-                </span>
-              ) : (
-                <>
-                  <progress max={1} value={j.progress} aria-label={`Uploading ${j.name}`} className="w-48" data-testid="upload-progress" />
-                  <span className="text-graphite-faint">{j.done ? 'Done' : `${Math.round(j.progress * 100)}%`}</span>
-                </>
-              )}
-            </li>
-          ))}
-        </ul>
-      )}
+      <UploadJobList jobs={jobs} />
       <ul className="flex flex-wrap gap-3" data-testid="uploads">
         {(data ?? []).map((u) => (
           <li key={u.id} className="panel w-40 p-2 text-xs">
@@ -125,6 +68,11 @@ export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpl
             <p className="text-graphite-faint">
               {u.width} × {u.height} px · {(u.bytes / 1024).toFixed(0)} kB
             </p>
+            {u.passesUsing > 0 && (
+              <p className="text-graphite-soft">
+                Lightbox of {u.passesUsing} pass{u.passesUsing === 1 ? '' : 'es'}
+              </p>
+            )}
             {canUpload && (
               <button type="button" className="mt-1 inline-flex items-center gap-1 text-stamp hover:underline" onClick={() => setConfirm(u)}>
                 <Trash2 aria-hidden className="h-3 w-3" /> Delete
@@ -136,14 +84,30 @@ export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpl
       <ConfirmDialog
         open={!!confirm}
         title="Delete this upload?"
-        body={<>“{confirm?.name}” will be removed from the series.</>}
+        body={
+          <>
+            “{confirm?.name}” will be removed from the series.
+            {confirm && confirm.passesUsing > 0 && (
+              <strong className="mt-2 block text-stamp">
+                It is still the lightbox of {confirm.passesUsing} pass{confirm.passesUsing === 1 ? '' : 'es'}; they will show an empty frame where it was.
+              </strong>
+            )}
+          </>
+        }
         confirmLabel="Delete upload"
         onCancel={() => setConfirm(null)}
         onConfirm={async () => {
           if (!confirm) return;
           try {
-            await api(`/api/uploads/${confirm.id}`, { method: 'DELETE' });
+            // Only a dialog that said which passes use it may delete a used upload;
+            // if one started using it since the list loaded, the server says so (409) and we ask again.
+            await api(`/api/uploads/${confirm.id}${confirm.passesUsing > 0 ? '?confirm=1' : ''}`, { method: 'DELETE' });
           } catch (err) {
+            if (err instanceof ApiError && err.status === 409) {
+              const usedBy = (await mutate())?.find((u) => u.id === confirm.id);
+              setConfirm(usedBy ?? null);
+              return;
+            }
             alert(err instanceof ApiError ? err.message : 'Could not delete.');
           }
           setConfirm(null);

@@ -8,6 +8,7 @@ import * as m1000 from './2026_12_01_1000_create_passes_and_strokes';
 import * as m1100 from './2026_12_01_1100_create_review_loop';
 import * as m1200 from './2026_12_01_1200_create_volumes';
 import * as m1300 from './2026_12_01_1300_create_uploads';
+import * as m20900 from './2026_12_02_0900_create_lightboxes';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_0900_create_users_and_series': m0900,
@@ -17,6 +18,7 @@ export const migrations: Record<string, Migration> = {
   '2026_12_01_1100_create_review_loop': m1100,
   '2026_12_01_1200_create_volumes': m1200,
   '2026_12_01_1300_create_uploads': m1300,
+  '2026_12_02_0900_create_lightboxes': m20900,
 };
 
 export const migrationProvider: MigrationProvider = {

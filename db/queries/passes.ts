@@ -10,9 +10,10 @@ import type { Kysely, Transaction } from 'kysely';
 import { type PageSpec, bleedBox } from '@/lib/print/geometry';
 import { decodePoints, encodePoints } from '@/lib/strokes/codec';
 import { pointsBounds } from '@/lib/strokes/hit';
-import { type Op, type Room, type Stroke, translatePoints } from '@/lib/strokes/types';
+import { type Lightbox, type Op, type Room, type Stroke, translatePoints } from '@/lib/strokes/types';
 import type { Database, RevisionReason } from '../database';
 import { recordActivity } from './activity';
+import { LIGHTBOXES, ROOMS, copyItems, itemsDelta, liveItems, removeItem, restoreItems, upsertItem } from './pass-items';
 import { clearStampOnChange } from './stamps';
 
 type Db = Kysely<Database> | Transaction<Database>;
@@ -25,7 +26,7 @@ export const REVISION_EVERY_BATCHES = 50;
 export class OpRefused extends Error {}
 
 export type PassSummary = { id: string; gagId: string; number: number; seq: number; strokeCount: number; copiedFrom: number | null; createdAt: string; updatedAt: string };
-export type PassState = { id: string; gagId: string; number: number; seq: number; strokes: Stroke[]; rooms: Room[] };
+export type PassState = { id: string; gagId: string; number: number; seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
 export type PassDelta = {
   id: string;
   seq: number;
@@ -34,6 +35,8 @@ export type PassDelta = {
   removedStrokes: string[];
   rooms: Room[];
   removedRooms: string[];
+  lightboxes: Lightbox[];
+  removedLightboxes: string[];
 };
 
 function rowToStroke(row: { strokeId: string; panel: number; tool: Stroke['tool']; grey: number; size: number; points: Buffer | Uint8Array }, ox: number, oy: number): Stroke {
@@ -45,10 +48,6 @@ function rowToStroke(row: { strokeId: string; panel: number; tool: Stroke['tool'
     size: row.size,
     points: translatePoints(decodePoints(row.points instanceof Uint8Array ? row.points : new Uint8Array(row.points)), ox, oy),
   };
-}
-
-function rowToRoom(row: { roomId: string; panel: number; shape: Room['shape']; x: number; y: number; w: number; h: number }): Room {
-  return { id: row.roomId, panel: row.panel, shape: row.shape, x: row.x, y: row.y, w: row.w, h: row.h };
 }
 
 function strokeRowValues(passId: string, stroke: Stroke, seq: number, userId: string | null) {
@@ -120,14 +119,11 @@ export async function liveStrokes(db: Db, passId: string): Promise<Stroke[]> {
 }
 
 export async function liveRooms(db: Db, passId: string): Promise<Room[]> {
-  const rows = await db
-    .selectFrom('rooms')
-    .selectAll()
-    .where('passId', '=', passId)
-    .where('removedSeq', 'is', null)
-    .orderBy('rowId')
-    .execute();
-  return rows.map(rowToRoom);
+  return liveItems(db, ROOMS, passId);
+}
+
+export async function liveLightboxes(db: Db, passId: string): Promise<Lightbox[]> {
+  return liveItems(db, LIGHTBOXES, passId);
 }
 
 export async function passState(db: Db, passId: string): Promise<PassState | undefined> {
@@ -140,6 +136,7 @@ export async function passState(db: Db, passId: string): Promise<PassState | und
     seq: pass.seq,
     strokes: await liveStrokes(db, passId),
     rooms: await liveRooms(db, passId),
+    lightboxes: await liveLightboxes(db, passId),
   };
 }
 
@@ -165,38 +162,25 @@ export async function passDelta(db: Db, passId: string, since: number): Promise<
     .where('removedSeq', '>', since)
     .where('addedSeq', '<=', since)
     .execute();
-  const changedRooms = await db
-    .selectFrom('rooms')
-    .selectAll()
-    .where('passId', '=', passId)
-    .where('removedSeq', 'is', null)
-    .where('addedSeq', '>', since)
-    .execute();
-  const removedRooms = await db
-    .selectFrom('rooms')
-    .select('roomId')
-    .distinct()
-    .where('passId', '=', passId)
-    .where('removedSeq', '>', since)
-    .where('addedSeq', '<=', since)
-    .execute();
+  const rooms = await itemsDelta(db, ROOMS, passId, since);
+  const lightboxes = await itemsDelta(db, LIGHTBOXES, passId, since);
   const strokes = changed.map((r) => rowToStroke(r, r.ox, r.oy));
-  const rooms = changedRooms.map(rowToRoom);
   const stillThere = new Set(strokes.map((s) => s.id));
-  const roomsThere = new Set(rooms.map((r) => r.id));
   return {
     id: pass.id,
     seq: pass.seq,
     since,
     strokes,
     removedStrokes: removed.map((r) => r.strokeId).filter((id) => !stillThere.has(id)),
-    rooms,
-    removedRooms: removedRooms.map((r) => r.roomId).filter((id) => !roomsThere.has(id)),
+    rooms: rooms.items,
+    removedRooms: rooms.removed,
+    lightboxes: lightboxes.items,
+    removedLightboxes: lightboxes.removed,
   };
 }
 
-/** The pass as it stood at `seq`: rows live then, shifted by their moves up to then. */
-export async function stateAt(db: Db, passId: string, seq: number) {
+/** The strokes as they stood at `seq`: rows live then, shifted by their moves up to then. */
+export async function strokesAt(db: Db, passId: string, seq: number) {
   const rows = await db
     .selectFrom('strokes')
     .selectAll()
@@ -214,18 +198,7 @@ export async function stateAt(db: Db, passId: string, seq: number) {
     .groupBy('rowId')
     .execute();
   const offsets = new Map(moves.map((m) => [m.rowId, { dx: Number(m.dx), dy: Number(m.dy) }]));
-  const rooms = await db
-    .selectFrom('rooms')
-    .selectAll()
-    .where('passId', '=', passId)
-    .where('addedSeq', '<=', seq)
-    .where((eb) => eb.or([eb('removedSeq', 'is', null), eb('removedSeq', '>', seq)]))
-    .orderBy('rowId')
-    .execute();
-  return {
-    strokes: rows.map((r) => ({ row: r, offset: offsets.get(r.rowId) ?? { dx: 0, dy: 0 } })),
-    rooms,
-  };
+  return rows.map((r) => ({ row: r, offset: offsets.get(r.rowId) ?? { dx: 0, dy: 0 } }));
 }
 
 // ---------- writing ----------
@@ -254,11 +227,13 @@ export async function createPass(
     const now = new Date().toISOString();
     let source: Stroke[] = [];
     let sourceRooms: Room[] = [];
+    let sourceLightboxes: Lightbox[] = [];
     if (input.copyFrom !== undefined) {
       const from = await findPassByNumber(trx, input.gagId, input.copyFrom);
       if (!from) throw new OpRefused(`There is no pass ${input.copyFrom} to copy.`);
       source = await liveStrokes(trx, from.id);
       sourceRooms = await liveRooms(trx, from.id);
+      sourceLightboxes = await liveLightboxes(trx, from.id);
     }
     const seq = input.copyFrom !== undefined ? 1 : 0;
     await trx
@@ -266,9 +241,8 @@ export async function createPass(
       .values({ id, gagId: input.gagId, number, seq, copiedFrom: input.copyFrom ?? null, createdBy: input.userId, createdAt: now, updatedAt: now })
       .execute();
     for (const s of source) await trx.insertInto('strokes').values(strokeRowValues(id, s, 1, input.userId)).execute();
-    for (const r of sourceRooms) {
-      await trx.insertInto('rooms').values({ passId: id, roomId: r.id, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: 1, removedSeq: null }).execute();
-    }
+    await copyItems(trx, ROOMS, sourceRooms, id, 1);
+    await copyItems(trx, LIGHTBOXES, sourceLightboxes, id, 1);
     await addRevision(trx, id, seq, input.copyFrom !== undefined ? 'copied' : 'created', input.userId);
     const gag = await trx.selectFrom('gags').select(['seriesId', 'title']).where('id', '=', input.gagId).executeTakeFirstOrThrow();
     await recordActivity(trx, {
@@ -334,36 +308,14 @@ async function applyOp(trx: Transaction<Database>, passId: string, seq: number, 
       }
       return;
     }
-    case 'room': {
-      const r = op.room;
-      const gone = await trx.selectFrom('roomTombstones').select('seq').where('passId', '=', passId).where('roomId', '=', r.id).executeTakeFirst();
-      if (gone) return;
-      const live = await trx
-        .selectFrom('rooms')
-        .selectAll()
-        .where('passId', '=', passId)
-        .where('roomId', '=', r.id)
-        .where('removedSeq', 'is', null)
-        .executeTakeFirst();
-      if (live && live.panel === r.panel && live.shape === r.shape && live.x === r.x && live.y === r.y && live.w === r.w && live.h === r.h) return;
-      if (live) await trx.updateTable('rooms').set({ removedSeq: seq }).where('rowId', '=', live.rowId).execute();
-      await trx
-        .insertInto('rooms')
-        .values({ passId, roomId: r.id, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: seq, removedSeq: null })
-        .execute();
-      return;
-    }
-    case 'unroom': {
-      await trx.insertInto('roomTombstones').values({ passId, roomId: op.roomId, seq }).onConflict((oc) => oc.doNothing()).execute();
-      await trx
-        .updateTable('rooms')
-        .set({ removedSeq: seq })
-        .where('passId', '=', passId)
-        .where('roomId', '=', op.roomId)
-        .where('removedSeq', 'is', null)
-        .execute();
-      return;
-    }
+    case 'room':
+      return upsertItem(trx, ROOMS, passId, seq, op.room);
+    case 'unroom':
+      return removeItem(trx, ROOMS, passId, seq, op.roomId);
+    case 'lightbox':
+      return upsertItem(trx, LIGHTBOXES, passId, seq, op.lightbox);
+    case 'unlightbox':
+      return removeItem(trx, LIGHTBOXES, passId, seq, op.lightboxId);
   }
 }
 
@@ -453,15 +405,15 @@ export async function restoreRevision(
       .executeTakeFirst();
     if (!hasCurrent) await addRevision(trx, input.passId, pass.seq, 'before-restore', input.userId);
 
-    const target = await stateAt(trx, input.passId, rev.seq);
+    const target = await strokesAt(trx, input.passId, rev.seq);
     const live = await trx.selectFrom('strokes').selectAll().where('passId', '=', input.passId).where('removedSeq', 'is', null).execute();
     const liveById = new Map(live.map((r) => [r.strokeId, r]));
-    const targetIds = new Set(target.strokes.map((t) => t.row.strokeId));
+    const targetIds = new Set(target.map((t) => t.row.strokeId));
 
     for (const row of live) {
       if (!targetIds.has(row.strokeId)) await trx.updateTable('strokes').set({ removedSeq: seq }).where('rowId', '=', row.rowId).execute();
     }
-    for (const { row, offset } of target.strokes) {
+    for (const { row, offset } of target) {
       const now = liveById.get(row.strokeId);
       if (now && now.rowId === row.rowId) {
         const dx = offset.dx - now.ox;
@@ -477,19 +429,8 @@ export async function restoreRevision(
       await trx.insertInto('strokes').values(strokeRowValues(input.passId, stroke, seq, input.userId)).execute();
     }
 
-    const liveRoomsRows = await trx.selectFrom('rooms').selectAll().where('passId', '=', input.passId).where('removedSeq', 'is', null).execute();
-    const targetRoomRows = new Set(target.rooms.map((r) => r.rowId));
-    const liveRoomByRow = new Set(liveRoomsRows.map((r) => r.rowId));
-    for (const r of liveRoomsRows) {
-      if (!targetRoomRows.has(r.rowId)) await trx.updateTable('rooms').set({ removedSeq: seq }).where('rowId', '=', r.rowId).execute();
-    }
-    for (const r of target.rooms) {
-      if (liveRoomByRow.has(r.rowId)) continue;
-      await trx
-        .insertInto('rooms')
-        .values({ passId: input.passId, roomId: r.roomId, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: seq, removedSeq: null })
-        .execute();
-    }
+    await restoreItems(trx, ROOMS, input.passId, rev.seq, seq);
+    await restoreItems(trx, LIGHTBOXES, input.passId, rev.seq, seq);
 
     const now = new Date().toISOString();
     await trx.updateTable('passes').set({ seq, updatedAt: now }).where('id', '=', input.passId).execute();

@@ -1,13 +1,23 @@
 // Uploaded scans and photos; the same file (SHA-256) is stored once per series.
 import { randomUUID } from 'node:crypto';
-import type { Kysely } from 'kysely';
+import { type Kysely, sql } from 'kysely';
 import type { Database } from '../database';
 
 export type UploadDto = { id: string; name: string; mime: string; bytes: number; width: number; height: number; sha256: string; createdAt: string };
 const COLS = ['id', 'name', 'mime', 'bytes', 'width', 'height', 'sha256', 'createdAt'] as const;
 
-export async function listUploads(db: Kysely<Database>, seriesId: string): Promise<UploadDto[]> {
-  return db.selectFrom('uploads').select(COLS).where('seriesId', '=', seriesId).orderBy('createdAt', 'desc').execute();
+/** An upload as listed, with how many passes place it now (deleting those asks first). */
+export type UploadListItem = UploadDto & { passesUsing: number };
+
+export async function listUploads(db: Kysely<Database>, seriesId: string): Promise<UploadListItem[]> {
+  const rows = await db
+    .selectFrom('uploads as u')
+    .select(COLS.map((c) => `u.${c}` as const))
+    .select(sql<number>`(select count(distinct l.pass_id) from lightboxes l where l.upload_id = u.id and l.removed_seq is null)`.as('passesUsing'))
+    .where('u.seriesId', '=', seriesId)
+    .orderBy('u.createdAt', 'desc')
+    .execute();
+  return rows.map((r) => ({ ...r, passesUsing: Number(r.passesUsing ?? 0) }));
 }
 
 export async function findUploadBySha(db: Kysely<Database>, seriesId: string, sha256: string): Promise<UploadDto | undefined> {
@@ -20,6 +30,28 @@ export async function uploadKeys(db: Kysely<Database>, id: string) {
 
 export async function seriesOfUpload(db: Kysely<Database>, id: string): Promise<string | null> {
   return (await db.selectFrom('uploads').select('seriesId').where('id', '=', id).executeTakeFirst())?.seriesId ?? null;
+}
+
+/** Which of these upload ids belong to the series. */
+export async function uploadsInSeries(db: Kysely<Database>, seriesId: string, ids: string[]): Promise<Set<string>> {
+  if (ids.length === 0) return new Set();
+  const rows = await db.selectFrom('uploads').select('id').where('seriesId', '=', seriesId).where('id', 'in', ids).execute();
+  return new Set(rows.map((r) => r.id));
+}
+
+/** Passes whose current state places this upload as a lightbox. */
+export async function passesUsingUpload(db: Kysely<Database>, uploadId: string): Promise<{ passId: string; gagId: string; gagTitle: string; passNumber: number }[]> {
+  return db
+    .selectFrom('lightboxes as l')
+    .innerJoin('passes as p', 'p.id', 'l.passId')
+    .innerJoin('gags as g', 'g.id', 'p.gagId')
+    .select(['p.id as passId', 'g.id as gagId', 'g.title as gagTitle', 'p.number as passNumber'])
+    .distinct()
+    .where('l.uploadId', '=', uploadId)
+    .where('l.removedSeq', 'is', null)
+    .orderBy('g.title')
+    .orderBy('p.number')
+    .execute();
 }
 
 export async function insertUpload(

@@ -2,7 +2,7 @@
 // operations the server applies, and by the server's deltas. Pure, so the
 // editor and the tests share it. Every function reports the panels it touched,
 // so the editor re-rasters only those.
-import type { Op, Room, Stroke } from './types';
+import type { Lightbox, Op, Room, Stroke } from './types';
 import { translatePoints } from './types';
 
 export type PassDoc = {
@@ -11,18 +11,28 @@ export type PassDoc = {
   /** Ids removed here: a later add of the same id is ignored (the removal wins). */
   gone: Set<string>;
   goneRooms: Set<string>;
+  lightboxes: Map<string, Lightbox>;
+  goneLightboxes: Set<string>;
 };
 
-export type Delta = { strokes: Stroke[]; removedStrokes: string[]; rooms: Room[]; removedRooms: string[] };
+export type Delta = {
+  strokes: Stroke[];
+  removedStrokes: string[];
+  rooms: Room[];
+  removedRooms: string[];
+  lightboxes?: Lightbox[];
+  removedLightboxes?: string[];
+};
 
 export function emptyDoc(): PassDoc {
-  return { strokes: new Map(), rooms: new Map(), gone: new Set(), goneRooms: new Set() };
+  return { strokes: new Map(), rooms: new Map(), gone: new Set(), goneRooms: new Set(), lightboxes: new Map(), goneLightboxes: new Set() };
 }
 
-export function docFrom(strokes: Stroke[], rooms: Room[]): PassDoc {
+export function docFrom(strokes: Stroke[], rooms: Room[], lightboxes: Lightbox[] = []): PassDoc {
   const doc = emptyDoc();
   for (const s of strokes) doc.strokes.set(s.id, s);
   for (const r of rooms) doc.rooms.set(r.id, r);
+  for (const l of lightboxes) doc.lightboxes.set(l.id, l);
   return doc;
 }
 
@@ -58,6 +68,13 @@ export function applyOp(doc: PassDoc, op: Op, touched = new Set<number>()): Set<
       doc.goneRooms.add(op.roomId);
       doc.rooms.delete(op.roomId);
       break;
+    case 'lightbox':
+      if (!doc.goneLightboxes.has(op.lightbox.id)) doc.lightboxes.set(op.lightbox.id, op.lightbox);
+      break;
+    case 'unlightbox':
+      doc.goneLightboxes.add(op.lightboxId);
+      doc.lightboxes.delete(op.lightboxId);
+      break;
   }
   return touched;
 }
@@ -75,6 +92,10 @@ export function idsOf(op: Op): string[] {
       return [`room:${op.room.id}`];
     case 'unroom':
       return [`room:${op.roomId}`];
+    case 'lightbox':
+      return [`lightbox:${op.lightbox.id}`];
+    case 'unlightbox':
+      return [`lightbox:${op.lightboxId}`];
   }
 }
 
@@ -113,6 +134,15 @@ export function applyDelta(doc: PassDoc, delta: Delta, unseenLocal: Op[], touche
     doc.rooms.set(r.id, r);
     doc.goneRooms.delete(r.id);
     ids.add(`room:${r.id}`);
+  }
+  for (const id of delta.removedLightboxes ?? []) {
+    doc.lightboxes.delete(id);
+    ids.add(`lightbox:${id}`);
+  }
+  for (const l of delta.lightboxes ?? []) {
+    doc.lightboxes.set(l.id, l);
+    doc.goneLightboxes.delete(l.id);
+    ids.add(`lightbox:${l.id}`);
   }
   for (const op of unseenLocal) {
     if (!idsOf(op).some((id) => ids.has(id))) continue;

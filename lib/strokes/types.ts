@@ -24,12 +24,35 @@ export type RoomShape = (typeof ROOM_SHAPES)[number];
 /** A balloon room: a region of a panel reserved for a balloon or caption. */
 export type Room = { id: string; panel: number; shape: RoomShape; x: number; y: number; w: number; h: number };
 
+export const ROTATIONS = [0, 90, 180, 270] as const;
+export type Rotation = (typeof ROTATIONS)[number];
+
+/**
+ * An upload placed under the strokes of a pass, on the whole page (panel null)
+ * or one panel (clipped to it). x, y, w, h is the box the image covers on the
+ * page after its rotation (clockwise, in quarter turns). Never part of the ink.
+ */
+export type Lightbox = {
+  id: string;
+  uploadId: string;
+  panel: number | null;
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+  rotation: Rotation;
+  opacity: number;
+  visible: boolean;
+};
+
 export type Op =
   | { op: 'add'; stroke: Stroke }
   | { op: 'remove'; strokeId: string }
   | { op: 'move'; strokeIds: string[]; dx: number; dy: number }
   | { op: 'room'; room: Room }
-  | { op: 'unroom'; roomId: string };
+  | { op: 'unroom'; roomId: string }
+  | { op: 'lightbox'; lightbox: Lightbox }
+  | { op: 'unlightbox'; lightboxId: string };
 
 export const MAX_POINTS_PER_STROKE = 10_000;
 export const MAX_BATCH_BYTES = 1_000_000;

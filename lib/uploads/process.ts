@@ -66,8 +66,3 @@ export async function prepareUpload(input: Buffer): Promise<Prepared> {
     throw new UploadRefused(422, 'The image is damaged and cannot be read.');
   }
 }
-
-/** Effective resolution of an image of `px` pixels printed `mm` wide (1 in = 25.4 mm). */
-export function effectivePpi(px: number, mm: number): number {
-  return px / (mm / 25.4);
-}

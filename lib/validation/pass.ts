@@ -1,8 +1,8 @@
 // Pass operations as the editor sends them. Shape checks here; the bleed-box
 // check needs the series' page spec and runs in checkOpsInside.
 import { z } from 'zod';
-import { type PageSpec, bleedBox, specProblems } from '@/lib/print/geometry';
-import { MAX_POINTS_PER_STROKE, type Op, ROOM_SHAPES, TOOLS } from '@/lib/strokes/types';
+import { type PageSpec, bleedBox, panelRects, specProblems } from '@/lib/print/geometry';
+import { MAX_POINTS_PER_STROKE, type Op, ROOM_SHAPES, ROTATIONS, TOOLS } from '@/lib/strokes/types';
 
 export const clientId = z
   .string()
@@ -35,12 +35,27 @@ export const roomSchema = z.object({
   h: z.number().positive('A balloon room needs a height.').max(400),
 });
 
+export const lightboxSchema = z.object({
+  id: clientId,
+  uploadId: z.string().min(1, 'Which upload? "uploadId" is missing.').max(64),
+  panel: panel.nullable(),
+  x: mm.min(-2000).max(2000),
+  y: mm.min(-2000).max(2000),
+  w: z.number().min(1, 'A lightbox is at least 1 mm wide.').max(2000, 'A lightbox is at most 2000 mm wide.'),
+  h: z.number().min(1, 'A lightbox is at least 1 mm high.').max(2000, 'A lightbox is at most 2000 mm high.'),
+  rotation: z.union(ROTATIONS.map((r) => z.literal(r)), { error: 'Rotation is 0, 90, 180 or 270 degrees.' }),
+  opacity: z.number().min(0.05, 'Opacity runs from 5% to 100%.').max(1, 'Opacity runs from 5% to 100%.'),
+  visible: z.boolean(),
+});
+
 export const opSchema = z.discriminatedUnion('op', [
   z.object({ op: z.literal('add'), stroke: strokeSchema }),
   z.object({ op: z.literal('remove'), strokeId: clientId }),
   z.object({ op: z.literal('move'), strokeIds: z.array(clientId).min(1).max(20_000), dx: mm, dy: mm }),
   z.object({ op: z.literal('room'), room: roomSchema }),
   z.object({ op: z.literal('unroom'), roomId: clientId }),
+  z.object({ op: z.literal('lightbox'), lightbox: lightboxSchema }),
+  z.object({ op: z.literal('unlightbox'), lightboxId: clientId }),
 ]);
 
 export const batchSchema = z.object({
@@ -79,6 +94,14 @@ export function checkOpsInside(ops: Op[], spec: PageSpec): string | null {
       const r = op.room;
       if (!inside(r.x, r.y) || !inside(r.x + r.w, r.y + r.h)) {
         return `Balloon room ${r.id} reaches outside the bleed box.`;
+      }
+    }
+    if (op.op === 'lightbox') {
+      // It may hang over the edges (it is clipped), but must show somewhere.
+      const l = op.lightbox;
+      const area = l.panel === null ? b : panelRects(spec)[l.panel]!;
+      if (l.x >= area.x + area.w || l.y >= area.y + area.h || l.x + l.w <= area.x || l.y + l.h <= area.y) {
+        return `Lightbox ${l.id} lies wholly outside ${l.panel === null ? 'the page' : `panel ${l.panel + 1}`}.`;
       }
     }
   }

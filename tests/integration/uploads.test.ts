@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as uploadsRoute from '@/app/api/series/[seriesId]/uploads/route';
 import * as uploadRoute from '@/app/api/uploads/[uploadId]/route';
 import * as variantRoute from '@/app/api/uploads/[uploadId]/[variant]/route';
-import { effectivePpi } from '@/lib/uploads/process';
+import { effectivePpi } from '@/lib/print/ppi';
 import { sessionCookie } from '../support/call-route';
 import { startS3Fake } from '../support/s3-fake';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';

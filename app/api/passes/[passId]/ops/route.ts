@@ -5,6 +5,7 @@ import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { MAX_BATCH_BYTES, type Op } from '@/lib/strokes/types';
 import { batchSchema, checkOpsInside } from '@/lib/validation/pass';
 import { byPassId } from '@/lib/http/series-of';
+import { uploadsInSeries } from '@/db/queries/uploads';
 
 type Params = { passId: string };
 const seriesOf = byPassId;
@@ -14,6 +15,12 @@ export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, p
   const spec = await pageSpecForPass(db, seriesId, params.passId);
   const outside = checkOpsInside(batch.ops as Op[], spec);
   if (outside) throw new HttpError(422, outside);
+  const wanted = [...new Set((batch.ops as Op[]).flatMap((op) => (op.op === 'lightbox' ? [op.lightbox.uploadId] : [])))];
+  if (wanted.length) {
+    const known = await uploadsInSeries(db, seriesId, wanted);
+    const missing = wanted.find((id) => !known.has(id));
+    if (missing) throw new HttpError(422, `There is no upload ${missing} in this series to place as a lightbox.`);
+  }
   try {
     const { seq } = await applyBatch(db, { passId: params.passId, batchId: batch.batchId, ops: batch.ops as Op[], userId: user.id, spec });
     return Response.json({ seq });
