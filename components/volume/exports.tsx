@@ -40,6 +40,7 @@ export function Exports({ volumeId }: { volumeId: string }) {
   const [error, setError] = useState<string | null>(null);
   const [scale, setScale] = useState('100');
   const [paper, setPaper] = useState('A4');
+  const [withScans, setWithScans] = useState(false);
   const run = async (label: string, url: string, name: string) => {
     setError(null);
     setWhich(label);
@@ -58,9 +59,15 @@ export function Exports({ volumeId }: { volumeId: string }) {
         Exports
       </h2>
       <div className="flex flex-wrap items-end gap-3">
-        <Button onClick={() => void run('Review dummy', `/api/volumes/${volumeId}/export/review.pdf`, 'review-dummy.pdf')} disabled={progress !== null}>
+        <Button
+          onClick={() => void run('Review dummy', `/api/volumes/${volumeId}/export/review.pdf${withScans ? '?lightbox=1' : ''}`, withScans ? 'review-dummy-with-scans.pdf' : 'review-dummy.pdf')}
+          disabled={progress !== null}
+        >
           <Download aria-hidden className="h-4 w-4" /> Review dummy (PDF)
         </Button>
+        <label className="inline-flex items-center gap-1 pb-2 text-sm">
+          <input type="checkbox" checked={withScans} onChange={(e) => setWithScans(e.target.checked)} /> with lightbox scans under the strokes
+        </label>
         <label className="text-sm font-bold text-graphite-soft">
           Scale
           <select className="field mt-1 w-auto py-1.5" value={scale} onChange={(e) => setScale(e.target.value)}>

@@ -4,13 +4,13 @@ import fs from 'node:fs';
 import path from 'node:path';
 import fontkit from '@pdf-lib/fontkit';
 import {
-  PDFDocument, type PDFFont, PDFName, type PDFOperator, type PDFPage, appendQuadraticCurve, clip, closePath, endPath, fill, moveTo,
+  PDFDocument, type PDFFont, type PDFImage, PDFName, degrees, type PDFOperator, type PDFPage, appendQuadraticCurve, clip, closePath, endPath, fill, moveTo,
   popGraphicsState, pushGraphicsState, rectangle, rgb, setFillingRgbColor, setGraphicsState,
 } from 'pdf-lib';
-import { type PageSpec, mmToPt, panelRects, safeBox } from '@/lib/print/geometry';
+import { type PageSpec, type Rect, bleedBox, mmToPt, panelRects, safeBox } from '@/lib/print/geometry';
 import { pdfBoxes } from '@/lib/print/book';
 import { outlineOf, traceOutline } from '@/lib/strokes/outline';
-import { type Room, type Stroke, strokeAlpha } from '@/lib/strokes/types';
+import { type Lightbox, type Room, type Stroke, strokeAlpha } from '@/lib/strokes/types';
 import { BEAT_KINDS, BEAT_LABELS } from '@/lib/gags/status';
 
 export const PRINTER_NOTE = "Guidance only: the printer's own specification takes precedence.";
@@ -46,13 +46,33 @@ function placer(spec: PageSpec, pageH: number, originX = mmToPt(spec.bleed), ori
   };
 }
 
-function drawStrokes(page: PDFPage, spec: PageSpec, strokes: Stroke[], rooms: Room[]) {
+/** A scan under the strokes, clipped to its panel or the page; its quarter turn is clockwise as on screen. */
+function drawLightbox(page: PDFPage, at: ReturnType<typeof placer>, area: Rect, l: Lightbox, image: PDFImage) {
+  const turnedQ = l.rotation === 90 || l.rotation === 270;
+  const iw = mmToPt(turnedQ ? l.h : l.w);
+  const ih = mmToPt(turnedQ ? l.w : l.h);
+  const cx = at.x(l.x + l.w / 2);
+  const cy = at.y(l.y + l.h / 2);
+  // pdf-lib turns about the image's lower-left corner, counter-clockwise: place that corner so the centre lands on (cx, cy).
+  const phi = (-l.rotation * Math.PI) / 180;
+  const x = cx - ((iw / 2) * Math.cos(phi) - (ih / 2) * Math.sin(phi));
+  const y = cy - ((iw / 2) * Math.sin(phi) + (ih / 2) * Math.cos(phi));
+  page.pushOperators(pushGraphicsState(), rectangle(at.x(area.x), at.y(area.y + area.h), mmToPt(area.w), mmToPt(area.h)), clip(), endPath());
+  page.drawImage(image, { x, y, width: iw, height: ih, rotate: degrees(-l.rotation), opacity: l.opacity });
+  page.pushOperators(popGraphicsState());
+}
+
+type PlacedScan = { lightbox: Lightbox; image: PDFImage };
+
+function drawStrokes(page: PDFPage, spec: PageSpec, strokes: Stroke[], rooms: Room[], scans: PlacedScan[] = []) {
   const { height } = page.getSize();
   const at = placer(spec, height);
   const panels = panelRects(spec);
   let tone: PDFName | undefined;
+  for (const s of scans.filter((x) => x.lightbox.panel === null)) drawLightbox(page, at, bleedBox(spec), s.lightbox, s.image);
   panels.forEach((r, i) => {
     page.pushOperators(pushGraphicsState(), rectangle(at.x(r.x), at.y(r.y + r.h), mmToPt(r.w), mmToPt(r.h)), clip(), endPath());
+    for (const s of scans.filter((x) => x.lightbox.panel === i)) drawLightbox(page, at, r, s.lightbox, s.image);
     for (const room of rooms.filter((x) => x.panel === i)) {
       const common = { color: rgb(0.86, 0.91, 0.94), opacity: 0.6, borderColor: rgb(0.11, 0.31, 0.43), borderWidth: 0.4, borderDashArray: [2, 1.5] };
       if (room.shape === 'ellipse') page.drawEllipse({ x: at.x(room.x + room.w / 2), y: at.y(room.y + room.h / 2), xScale: mmToPt(room.w / 2), yScale: mmToPt(room.h / 2), ...common });
@@ -85,11 +105,38 @@ function centred(page: PDFPage, font: PDFFont, text: string, size: number, cx: n
   page.drawText(text, { x: cx - font.widthOfTextAtSize(text, size) / 2, y, size, font, color });
 }
 
-export type ReviewPage = { number: number; kind: string; label: string; strokes?: Stroke[]; rooms?: Room[] };
+/** A scan's bytes for the PDF: PNG or JPEG (pdf-lib embeds no other kind). */
+export type ScanImage = { bytes: Uint8Array; format: 'png' | 'jpg' };
+
+export type ReviewPage = {
+  number: number;
+  kind: string;
+  label: string;
+  strokes?: Stroke[];
+  rooms?: Room[];
+  /** Visible lightboxes to draw under the strokes (the "with lightbox" option). */
+  lightboxes?: Lightbox[];
+};
 
 /** The review dummy: every page in running order at trim plus bleed, TrimBox and BleedBox set. */
-export async function reviewPdf(spec: PageSpec, title: string, pages: ReviewPage[], onPage?: (done: number) => void): Promise<Uint8Array> {
+export async function reviewPdf(
+  spec: PageSpec,
+  title: string,
+  pages: ReviewPage[],
+  opts: { scans?: Map<string, ScanImage>; onPage?: (done: number) => void } = {},
+): Promise<Uint8Array> {
   const { doc, font } = await newDoc(`${title} — review dummy`);
+  // Each scan is embedded once, however many pages place it.
+  const embedded = new Map<string, PDFImage>();
+  const scanFor = async (uploadId: string) => {
+    const known = embedded.get(uploadId);
+    if (known) return known;
+    const src = opts.scans?.get(uploadId);
+    if (!src) return null;
+    const image = src.format === 'png' ? await doc.embedPng(src.bytes) : await doc.embedJpg(src.bytes);
+    embedded.set(uploadId, image);
+    return image;
+  };
   const boxes = pdfBoxes(spec);
   const [, , w, h] = boxes.media;
   for (const p of pages) {
@@ -98,13 +145,20 @@ export async function reviewPdf(spec: PageSpec, title: string, pages: ReviewPage
     page.setBleedBox(boxes.bleed[0], boxes.bleed[1], boxes.bleed[2] - boxes.bleed[0], boxes.bleed[3] - boxes.bleed[1]);
     page.setTrimBox(boxes.trim[0], boxes.trim[1], boxes.trim[2] - boxes.trim[0], boxes.trim[3] - boxes.trim[1]);
     page.drawRectangle({ x: 0, y: 0, width: w, height: h, color: rgb(1, 1, 1) });
-    if (p.kind === 'gag') drawStrokes(page, spec, p.strokes ?? [], p.rooms ?? []);
+    if (p.kind === 'gag') {
+      const scans: PlacedScan[] = [];
+      for (const l of p.lightboxes ?? []) {
+        const image = l.visible ? await scanFor(l.uploadId) : null;
+        if (image) scans.push({ lightbox: l, image });
+      }
+      drawStrokes(page, spec, p.strokes ?? [], p.rooms ?? [], scans);
+    }
     else centred(page, font, p.label, 14, w / 2, h / 2, rgb(0.47, 0.46, 0.49));
     const safe = safeBox(spec);
     centred(page, font, String(p.number), 7, w / 2, boxes.trim[1] + mmToPt(safe.y) / 2 - 2.5);
     // In the bleed, outside the trim: the page's name and the printer note (cut off when trimmed).
     page.drawText(`${p.number} · ${p.kind === 'gag' ? p.label : p.label} · ${PRINTER_NOTE}`, { x: 2, y: 2, size: 4, font, color: rgb(0.5, 0.5, 0.5) });
-    onPage?.(p.number);
+    opts.onPage?.(p.number);
   }
   return doc.save();
 }

@@ -6,16 +6,30 @@ import { findGag } from '@/db/queries/gags';
 import { passState } from '@/db/queries/passes';
 import { type EntryDto, type VolumeDto, findVolume, listEntries } from '@/db/queries/volumes';
 import { entryLabel } from '@/components/volume/labels';
-import type { ReviewPage } from './pdf';
+import { uploadKeys } from '@/db/queries/uploads';
+import { getObject } from '@/lib/storage/s3';
+import sharp from 'sharp';
+import type { ReviewPage, ScanImage } from './pdf';
 
-export async function volumePages(db: Kysely<Database>, volumeId: string): Promise<{ volume: VolumeDto; entries: EntryDto[]; pages: ReviewPage[] }> {
+export async function volumePages(
+  db: Kysely<Database>,
+  volumeId: string,
+  opts: { lightbox?: boolean } = {},
+): Promise<{ volume: VolumeDto; entries: EntryDto[]; pages: ReviewPage[] }> {
   const volume = (await findVolume(db, volumeId))!;
   const entries = await listEntries(db, volumeId);
   const pages: ReviewPage[] = [];
   for (const [i, e] of entries.entries()) {
     if (e.kind === 'gag' && e.latestPass) {
       const state = await passState(db, e.latestPass.id);
-      pages.push({ number: i + 1, kind: 'gag', label: e.title ?? 'Gag', strokes: state?.strokes ?? [], rooms: state?.rooms ?? [] });
+      pages.push({
+        number: i + 1,
+        kind: 'gag',
+        label: e.title ?? 'Gag',
+        strokes: state?.strokes ?? [],
+        rooms: state?.rooms ?? [],
+        lightboxes: opts.lightbox ? (state?.lightboxes ?? []).filter((l) => l.visible) : [],
+      });
     } else {
       pages.push({ number: i + 1, kind: e.kind, label: entryLabel(e) });
     }
@@ -41,4 +55,22 @@ const csvCell = (v: unknown) => {
 export function runningOrderCsv(entries: EntryDto[], note: string): string {
   const rows = [['page', 'kind', 'title', 'status', 'gag_id'], ...entries.map((e, i) => [i + 1, e.kind, entryLabel(e), e.status ?? '', e.gagId ?? ''])];
   return `# ${note}\n${rows.map((r) => r.map(csvCell).join(',')).join('\n')}\n`;
+}
+
+/**
+ * The working copies of the scans these pages place, as PNG or JPEG for the
+ * PDF (WebP is turned into PNG). A scan deleted since is left out.
+ */
+export async function scanImages(db: Kysely<Database>, pages: ReviewPage[]): Promise<Map<string, ScanImage>> {
+  const out = new Map<string, ScanImage>();
+  const ids = new Set(pages.flatMap((p) => (p.lightboxes ?? []).map((l) => l.uploadId)));
+  for (const id of ids) {
+    const keys = await uploadKeys(db, id);
+    const obj = keys ? await getObject(keys.workingKey) : null;
+    if (!keys || !obj) continue;
+    if (keys.mime === 'image/jpeg') out.set(id, { bytes: obj.body, format: 'jpg' });
+    else if (keys.mime === 'image/png') out.set(id, { bytes: obj.body, format: 'png' });
+    else out.set(id, { bytes: new Uint8Array(await sharp(obj.body).png().toBuffer()), format: 'png' });
+  }
+  return out;
 }
