@@ -85,6 +85,15 @@ async function newUpload(): Promise<string> {
   return r.body.id;
 }
 
+/** An upload placed as the lightbox of a fresh pass. */
+async function usedUpload(): Promise<string> {
+  const uploadId = await newUpload();
+  const { passId } = await newPass();
+  const lightbox = { id: 'lb', uploadId, panel: null, x: 0, y: 0, w: 50, h: 50, rotation: 0 as const, opacity: 0.5, visible: true };
+  await applyBatch(db, { passId, batchId: 'place', ops: [{ op: 'lightbox', lightbox }], userId: 'demo-user-owner', spec: DEFAULT_PAGE_SPEC });
+  return uploadId;
+}
+
 async function newGag(): Promise<string> {
   const id = randomUUID();
   await createGag(db, { id, seriesId: DEMO_SERIES_ID, title: 'Matrix gag', premise: '' });
@@ -123,7 +132,7 @@ async function newVolume(): Promise<{ volumeId: string; entryIds: string[] }> {
   return { volumeId: v.id, entryIds: [a.id, b.id] };
 }
 
-type Prepared = { params?: Record<string, string>; body?: unknown; form?: FormData };
+type Prepared = { params?: Record<string, string>; body?: unknown; form?: FormData; url?: string };
 type RouteCase = {
   route: string;
   handler: (req: Request, ctx: { params: Promise<any> }) => Promise<Response> | Response;
@@ -356,6 +365,11 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
+    route: 'GET /api/volumes/:volumeId/export/review.pdf?lightbox=1', handler: reviewPdfRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId }, url: '/?lightbox=1' }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
     route: 'GET /api/volumes/:volumeId/export/templates.pdf', handler: templatesPdfRoute.GET, method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),
@@ -385,6 +399,18 @@ const ROUTES: RouteCase[] = [
     prepare: async () => ({ params: { uploadId: await newUpload() } }),
     expected: row(401, 403, 403, 204, 204, 404),
   },
+  {
+    // Still a pass's lightbox: asks first (409, nothing deleted)…
+    route: 'DELETE /api/uploads/:uploadId (in use)', handler: uploadRoute.DELETE, method: 'DELETE',
+    prepare: async () => ({ params: { uploadId: await usedUpload() } }),
+    expected: row(401, 403, 403, 409, 409, 404),
+  },
+  {
+    // …and deletes once confirmed.
+    route: 'DELETE /api/uploads/:uploadId?confirm=1 (in use)', handler: uploadRoute.DELETE, method: 'DELETE',
+    prepare: async () => ({ params: { uploadId: await usedUpload() }, url: '/?confirm=1' }),
+    expected: row(401, 403, 403, 204, 204, 404),
+  },
   { route: 'GET /api/me', handler: meRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
   {
     route: 'PATCH /api/me', handler: meRoute.PATCH, method: 'PATCH',
@@ -405,6 +431,14 @@ const ROUTES: RouteCase[] = [
   {
     route: 'POST /api/passes/:passId/ops', handler: opsRoute.POST, method: 'POST',
     prepare: async () => ({ params: { passId: (await newPass()).passId }, body: { batchId: randomUUID(), ops: [{ op: 'remove', strokeId: 'm1' }] } }),
+    expected: row(401, 403, 403, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/passes/:passId/ops (lightbox)', handler: opsRoute.POST, method: 'POST',
+    prepare: async () => {
+      const lightbox = { id: 'lb', uploadId: await newUpload(), panel: 1, x: 80, y: 10, w: 50, h: 50, rotation: 90, opacity: 0.4, visible: true };
+      return { params: { passId: (await newPass()).passId }, body: { batchId: randomUUID(), ops: [{ op: 'lightbox', lightbox }] } };
+    },
     expected: row(401, 403, 403, 200, 200, 404),
   },
   {
@@ -442,6 +476,7 @@ async function snapshot() {
     volumes: await db.selectFrom('volumes').selectAll().orderBy('id').execute(),
     entries: await db.selectFrom('volumeEntries').selectAll().orderBy('id').execute(),
     uploads: await db.selectFrom('uploads').select(['id', 'sha256']).orderBy('id').execute(),
+    lightboxes: await db.selectFrom('lightboxes').select(['rowId', 'passId', 'lightboxId', 'removedSeq']).orderBy('rowId').execute(),
   });
 }
 
@@ -449,9 +484,9 @@ describe('authorization matrix', () => {
   for (const r of ROUTES) {
     describe(r.route, () => {
       it.each(PERSONAS)(`%s`, async (persona) => {
-        const { params, body, form } = await r.prepare();
+        const { params, body, form, url } = await r.prepare();
         const before = await snapshot();
-        const res = await callRoute(r.handler, { method: r.method, as: persona, params, body, form });
+        const res = await callRoute(r.handler, { method: r.method, as: persona, params, body, form, url });
         expect(res.status).toBe(r.expected[persona]);
         if (res.status >= 400) {
           expect(typeof res.body.error).toBe('string');
