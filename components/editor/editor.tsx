@@ -913,6 +913,7 @@ export default function Editor(props: EditorProps) {
           data-stroke-count={strokeCount}
           data-room-count={rooms.length}
           data-lightbox-count={lightboxes.filter((l) => l.visible).length}
+          data-lightbox-images={lightboxes.filter((l) => l.visible && images.get(l.uploadId) instanceof HTMLImageElement).length}
           data-tool={tool}
           tabIndex={0}
           className={`h-full w-full touch-none overflow-hidden rounded-lg border bg-marker-10 ${dropOver ? 'border-ink ring-2 ring-ink' : 'border-paper-edge'}`}
