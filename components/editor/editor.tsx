@@ -538,8 +538,13 @@ export default function Editor(props: EditorProps) {
     const k = node.scaleX();
     node.scale({ x: 1, y: 1 });
     const scaled = Math.abs(k - 1) > 1e-6 ? scaleTo(before, Math.max(1, before.w * k)) : before;
-    changeLightbox(before, centreAt(scaled, node.x(), node.y()));
-  }, [changeLightbox]);
+    // Its centre stays on its panel (or page), so it can never be dragged out of sight.
+    const area = areaOf(before.panel);
+    const cx = Math.min(area.x + area.w, Math.max(area.x, node.x()));
+    const cy = Math.min(area.y + area.h, Math.max(area.y, node.y()));
+    node.position({ x: cx, y: cy });
+    changeLightbox(before, centreAt(scaled, cx, cy));
+  }, [areaOf, changeLightbox]);
 
   const dropTarget = useRef<Target>(null);
   const { jobs: uploadJobs, start: startUploadJobs } = useUploadJobs(

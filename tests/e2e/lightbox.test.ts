@@ -12,7 +12,7 @@ const page = usePage();
 const GAG = `${baseUrl}/series/demo-kettle-crab/gags/demo-gag-11`;
 let passId = '';
 
-type ServerPass = { strokes: { id: string; panel: number }[]; lightboxes: { panel: number | null; opacity: number; visible: boolean; rotation: number; uploadId: string }[] };
+type ServerPass = { strokes: { id: string; panel: number }[]; lightboxes: { panel: number | null; x: number; y: number; w: number; opacity: number; visible: boolean; rotation: number; uploadId: string }[] };
 const serverPass = (p: Page): Promise<ServerPass> => p.evaluate(async (id) => (await fetch(`/api/passes/${id}`)).json(), passId);
 const canvasAttr = async (p: Page, name: string) => Number(await p.getByTestId('sketch-canvas').getAttribute(name));
 
@@ -85,6 +85,23 @@ describe('lightbox', () => {
     await expect.poll(() => canvasAttr(page, 'data-stroke-count')).toBe(1);
     await expect.poll(() => canvasAttr(page, 'data-lightbox-images'), { timeout: 10_000 }).toBe(1);
     expect(await page.getByLabel('Opacity of pier-thumbs-scan.jpg').inputValue()).toBe('40');
+  });
+
+  it('moves it by dragging with "Arrange the lightbox"', async () => {
+    const before = (await serverPass(page)).lightboxes[0]!;
+    await page.keyboard.press('8');
+    const box = (await page.getByTestId('sketch-canvas').boundingBox())!;
+    const x0 = box.x + box.width * 0.66;
+    const y0 = box.y + box.height * 0.35;
+    await page.mouse.move(x0, y0);
+    await page.mouse.down();
+    for (let i = 1; i <= 8; i++) await page.mouse.move(x0 - i * 5, y0 + i * 3);
+    await page.mouse.up();
+    await expect.poll(async () => (await serverPass(page)).lightboxes[0]!.x, { timeout: 10_000 }).toBeLessThan(before.x);
+    const after = (await serverPass(page)).lightboxes[0]!;
+    expect(after.w).toBe(before.w); // moved, not scaled
+    expect(after.y).toBeGreaterThan(before.y);
+    expect((await serverPass(page)).strokes.length).toBe(1); // the stroke stays where it was drawn
   });
 
   it('turns it a quarter and hides it, as operations of the pass', async () => {
