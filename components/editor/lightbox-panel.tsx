@@ -5,7 +5,7 @@
 // canvas with the "Arrange the lightbox" tool.
 import { Eye, EyeOff, ImagePlus, Maximize2, RotateCw, Trash2 } from 'lucide-react';
 import { useEffect, useRef, useState } from 'react';
-import { UploadJobList, type UploadJob, ACCEPT_IMAGES } from '@/components/uploads/upload-jobs';
+import { ImageFilesInput, UploadJobList, type UploadJob } from '@/components/uploads/upload-jobs';
 import type { UploadListItem } from '@/db/queries/uploads';
 import { lightboxPpi, printCheck } from '@/lib/print/ppi';
 import { BEAT_KINDS, BEAT_LABELS } from '@/lib/gags/status';
@@ -31,6 +31,16 @@ function useDraft(value: number, commit: (v: number) => void, wait = 250) {
     }, wait);
   };
   return [draft ?? value, change] as const;
+}
+
+function SliderRow(p: { label: string; aria: string; min: number; max: number; value: number; onChange: (v: number) => void }) {
+  return (
+    <label className="flex items-center gap-2 text-xs">
+      <span className="w-14">{p.label}</span>
+      <input type="range" min={p.min} max={p.max} step={5} value={p.value} aria-label={p.aria} onChange={(e) => p.onChange(Number(e.target.value))} className="flex-1" />
+      <output className="w-9 text-right">{p.value}%</output>
+    </label>
+  );
 }
 
 function PlacedLightbox(p: {
@@ -86,41 +96,18 @@ function PlacedLightbox(p: {
       {!upload && <p className="text-xs text-stamp">The scan was deleted; this frame keeps its place.</p>}
       {p.canDraw && (
         <>
-          <label className="flex items-center gap-2 text-xs">
-            <span className="w-14">Opacity</span>
-            <input
-              type="range"
-              min={5}
-              max={100}
-              step={5}
-              value={opacity}
-              aria-label={`Opacity of ${name}`}
-              onChange={(e) => {
-                const v = Number(e.target.value);
-                setOpacity(v);
-                p.onPreview({ ...l, opacity: v / 100 });
-              }}
-              className="flex-1"
-            />
-            <output className="w-9 text-right">{opacity}%</output>
-          </label>
-          <label className="flex items-center gap-2 text-xs">
-            <span className="w-14">Size</span>
-            <input
-              type="range"
-              min={10}
-              max={300}
-              step={5}
-              value={size}
-              aria-label={`Size of ${name}, percent of a fit`}
-              onChange={(e) => {
-                const v = Number(e.target.value);
-                setSize(v);
-              }}
-              className="flex-1"
-            />
-            <output className="w-9 text-right">{size}%</output>
-          </label>
+          <SliderRow
+            label="Opacity"
+            aria={`Opacity of ${name}`}
+            min={5}
+            max={100}
+            value={opacity}
+            onChange={(v) => {
+              setOpacity(v);
+              p.onPreview({ ...l, opacity: v / 100 });
+            }}
+          />
+          <SliderRow label="Size" aria={`Size of ${name}, percent of a fit`} min={10} max={300} value={size} onChange={setSize} />
           <div className="flex flex-wrap gap-1 text-xs">
             <button type="button" className="inline-flex items-center gap-1 rounded px-2 py-0.5 hover:bg-paper-deep" onClick={p.onTurn}>
               <RotateCw aria-hidden className="h-3 w-3" /> Turn 90°
@@ -226,18 +213,7 @@ export function LightboxPanel(p: {
           >
             <ImagePlus aria-hidden className="h-4 w-4" /> Upload and place…
           </button>
-          <input
-            ref={input}
-            type="file"
-            accept={ACCEPT_IMAGES}
-            multiple
-            className="sr-only"
-            aria-label="Upload scans to place"
-            onChange={(e) => {
-              if (e.target.files?.length) p.startUpload(e.target.files, target);
-              e.target.value = '';
-            }}
-          />
+          <ImageFilesInput ref={input} label="Upload scans to place" onFiles={(files) => p.startUpload(files, target)} />
           <p className="text-xs text-graphite-faint">…or drop image files on the canvas: the first lands on the panel under the pointer.</p>
           <UploadJobList jobs={p.jobs} narrow />
         </div>

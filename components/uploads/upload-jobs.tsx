@@ -2,7 +2,7 @@
 // Sending scans and photos, one request per file, each with a real progress
 // bar (XHR upload progress events) and a clear message on failure. Used on the
 // gag page and in the editor.
-import { useCallback, useState } from 'react';
+import { forwardRef, useCallback, useState } from 'react';
 import type { UploadDto } from '@/db/queries/uploads';
 
 export type UploadJob = { key: string; name: string; progress: number; error: string | null; done: boolean };
@@ -77,3 +77,21 @@ export function UploadJobList({ jobs, narrow = false }: { jobs: UploadJob[]; nar
     </ul>
   );
 }
+
+/** The hidden multi-file picker for images; a visible button clicks it. */
+export const ImageFilesInput = forwardRef<HTMLInputElement, { label: string; onFiles: (files: FileList) => void }>(function ImageFilesInput({ label, onFiles }, ref) {
+  return (
+    <input
+      ref={ref}
+      type="file"
+      accept={ACCEPT_IMAGES}
+      multiple
+      className="sr-only"
+      aria-label={label}
+      onChange={(e) => {
+        if (e.target.files?.length) onFiles(e.target.files);
+        e.target.value = '';
+      }}
+    />
+  );
+});

@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import type { UploadListItem } from '@/db/queries/uploads';
 import { ApiError, api, fetcher } from '@/lib/http/client';
-import { ACCEPT_IMAGES, UploadJobList, useUploadJobs } from './upload-jobs';
+import { ImageFilesInput, UploadJobList, useUploadJobs } from './upload-jobs';
 
 export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpload: boolean }) {
   const { data, mutate } = useSWR<UploadListItem[]>(`/api/series/${seriesId}/uploads`, fetcher);
@@ -42,18 +42,7 @@ export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpl
           <Button variant="secondary" onClick={() => input.current?.click()}>
             Choose files
           </Button>
-          <input
-            ref={input}
-            type="file"
-            accept={ACCEPT_IMAGES}
-            multiple
-            className="sr-only"
-            aria-label="Upload scans or photos"
-            onChange={(e) => {
-              if (e.target.files?.length) start(e.target.files);
-              e.target.value = '';
-            }}
-          />
+          <ImageFilesInput ref={input} label="Upload scans or photos" onFiles={start} />
         </div>
       )}
       <UploadJobList jobs={jobs} />

@@ -8,7 +8,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import * as passesRoute from '@/app/api/gags/[gagId]/passes/route';
 import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as restoreRoute from '@/app/api/passes/[passId]/revisions/[revisionId]/restore/route';
@@ -23,18 +23,11 @@ import { DEMO_VOLUME_ID } from '@/db/seed/demo';
 import { panelRects } from '@/lib/print/geometry';
 import type { Lightbox } from '@/lib/strokes/types';
 import { callRoute, callRouteRaw } from '../support/call-route';
-import { startS3Fake } from '../support/s3-fake';
-import { DEMO_SERIES_ID, OTHER_SERIES_ID, type Persona, freshDb } from '../support/test-db';
+import { useS3AndDb } from '../support/s3-fake';
+import { DEMO_SERIES_ID, OTHER_SERIES_ID, type Persona } from '../support/test-db';
 
-let db: Awaited<ReturnType<typeof freshDb>>;
-let s3: Awaited<ReturnType<typeof startS3Fake>>;
-beforeAll(async () => {
-  s3 = await startS3Fake();
-  db = await freshDb();
-});
-afterAll(async () => {
-  await s3?.close();
-});
+const env = useS3AndDb();
+const db = () => env.db();
 
 async function upload(bytes: Buffer, name: string, seriesId = DEMO_SERIES_ID, as: Persona = 'cocreator') {
   const form = new FormData();
@@ -84,9 +77,9 @@ describe('lightbox operations', () => {
     expect(delta.body.removedLightboxes).toEqual([]);
 
     // The same value again writes nothing new.
-    const rowsBefore = await db.selectFrom('lightboxes').select('rowId').where('passId', '=', p.id).execute();
+    const rowsBefore = await db().selectFrom('lightboxes').select('rowId').where('passId', '=', p.id).execute();
     await send(p.id, 'lb-3', [{ op: 'lightbox', lightbox: turnedBox }]);
-    const rowsAfter = await db.selectFrom('lightboxes').select('rowId').where('passId', '=', p.id).execute();
+    const rowsAfter = await db().selectFrom('lightboxes').select('rowId').where('passId', '=', p.id).execute();
     expect(rowsAfter.length).toBe(rowsBefore.length);
 
     const s2 = await state(p.id);
@@ -142,7 +135,7 @@ describe('lightbox operations', () => {
     await send(p.id, 'rs-1', [{ op: 'lightbox', lightbox: first }]);
     const mark = (await state(p.id)).seq;
     // A revision at this point, then changes after it.
-    await db.insertInto('revisions').values({ id: 'rev-lightbox-mark', passId: p.id, seq: mark, reason: 'pause', restoredFrom: null, userId: null, createdAt: new Date().toISOString() }).execute();
+    await db().insertInto('revisions').values({ id: 'rev-lightbox-mark', passId: p.id, seq: mark, reason: 'pause', restoredFrom: null, userId: null, createdAt: new Date().toISOString() }).execute();
     await send(p.id, 'rs-2', [{ op: 'lightbox', lightbox: { ...first, x: 90, opacity: 0.9 } }, { op: 'lightbox', lightbox: box('r2', u.id, { panel: 3, x: 80, y: 80 }) }]);
     expect((await state(p.id)).lightboxes).toHaveLength(2);
     const revs = await callRoute(revisionsRoute.GET, { as: 'viewer', params: { passId: p.id } });
@@ -169,11 +162,11 @@ describe('deleting an upload a pass still uses', () => {
     expect(asked.status).toBe(409);
     expect(asked.body.error).toMatch(new RegExp(`pass ${p.number} of “`));
     expect(asked.body.usedBy).toEqual([expect.objectContaining({ passId: p.id, passNumber: p.number })]);
-    expect(await db.selectFrom('uploads').select('id').where('id', '=', u.id).executeTakeFirst()).toBeDefined();
+    expect(await db().selectFrom('uploads').select('id').where('id', '=', u.id).executeTakeFirst()).toBeDefined();
 
     const done = await callRoute(uploadRoute.DELETE, { method: 'DELETE', as: 'cocreator', params: { uploadId: u.id }, url: '/?confirm=1' });
     expect(done.status).toBe(204);
-    expect(await db.selectFrom('uploads').select('id').where('id', '=', u.id).executeTakeFirst()).toBeUndefined();
+    expect(await db().selectFrom('uploads').select('id').where('id', '=', u.id).executeTakeFirst()).toBeUndefined();
     // The pass keeps its placement (an empty frame in the editor); nothing in its log is lost.
     expect((await state(p.id)).lightboxes.map((l) => l.id)).toEqual(['used']);
   });
@@ -207,10 +200,10 @@ describe('review PDF with the lightbox', () => {
   }
 
   it('draws the scan under the strokes when asked, turned as placed, and not otherwise', async () => {
-    const entries = await listEntries(db, DEMO_VOLUME_ID);
+    const entries = await listEntries(db(), DEMO_VOLUME_ID);
     const at = entries.findIndex((e) => e.kind === 'gag' && e.latestPass);
     const entry = entries[at]!;
-    const { spec } = (await findVolume(db, DEMO_VOLUME_ID))!;
+    const { spec } = (await findVolume(db(), DEMO_VOLUME_ID))!;
     const panel = panelRects(spec)[1]!;
     // WebP, so the export's conversion to PNG is exercised too.
     const u = await upload(await halves(300, 300, 'webp'), 'turned-scan.webp');

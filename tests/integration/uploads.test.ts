@@ -1,23 +1,16 @@
 // Uploads against the running S3 fake (s3rver), with images made by sharp here.
 import sharp from 'sharp';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import * as uploadsRoute from '@/app/api/series/[seriesId]/uploads/route';
 import * as uploadRoute from '@/app/api/uploads/[uploadId]/route';
 import * as variantRoute from '@/app/api/uploads/[uploadId]/[variant]/route';
 import { effectivePpi } from '@/lib/print/ppi';
 import { sessionCookie } from '../support/call-route';
-import { startS3Fake } from '../support/s3-fake';
-import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
+import { useS3AndDb } from '../support/s3-fake';
+import { DEMO_SERIES_ID, type Persona } from '../support/test-db';
 
-let db: Awaited<ReturnType<typeof freshDb>>;
-let s3: Awaited<ReturnType<typeof startS3Fake>>;
-beforeAll(async () => {
-  s3 = await startS3Fake();
-  db = await freshDb();
-});
-afterAll(async () => {
-  await s3?.close();
-});
+const env = useS3AndDb();
+const db = () => env.db();
 
 async function upload(bytes: Buffer, name: string, as: Persona = 'cocreator', seriesId = DEMO_SERIES_ID) {
   const form = new FormData();
@@ -59,7 +52,7 @@ describe('uploads', () => {
     const b = await upload(bytes, 'b.png');
     expect(a.status).toBe(201);
     expect(b).toMatchObject({ status: 200, body: { id: a.body.id, duplicate: true } });
-    const rows = await db.selectFrom('uploads').select('id').where('sha256', '=', a.body.sha256).execute();
+    const rows = await db().selectFrom('uploads').select('id').where('sha256', '=', a.body.sha256).execute();
     expect(rows).toHaveLength(1);
   });
 
@@ -85,7 +78,7 @@ describe('uploads', () => {
   });
 
   it('refuses other types (415), files over 25 MB (413), over 50 megapixels (413), broken files (422); nothing stored', async () => {
-    const count = async () => (await db.selectFrom('uploads').select('id').execute()).length;
+    const count = async () => (await db().selectFrom('uploads').select('id').execute()).length;
     const before = await count();
     const text = await upload(Buffer.from('Kettle Crab notes, not a picture'), 'notes.png');
     expect(text.status).toBe(415);
