@@ -692,6 +692,19 @@ export default function Editor(props: EditorProps) {
         return;
       }
       const pan = 40;
+      // Arranging a chosen lightbox, the arrow keys nudge it: 1 mm, or 10 mm with Shift.
+      const nudge = { ArrowLeft: [-1, 0], ArrowRight: [1, 0], ArrowUp: [0, -1], ArrowDown: [0, 1] }[e.key];
+      if (nudge && tool === 'lightbox' && canDraw && selectedLightbox) {
+        e.preventDefault();
+        const l = syncRef.current?.doc.lightboxes.get(selectedLightbox);
+        if (!l) return;
+        const step = e.shiftKey ? 10 : 1;
+        const area = areaOf(l.panel);
+        const cx = Math.min(area.x + area.w, Math.max(area.x, l.x + l.w / 2 + nudge[0]! * step));
+        const cy = Math.min(area.y + area.h, Math.max(area.y, l.y + l.h / 2 + nudge[1]! * step));
+        changeLightbox(l, centreAt(l, cx, cy));
+        return;
+      }
       switch (e.key) {
         case '+':
         case '=':
@@ -761,7 +774,7 @@ export default function Editor(props: EditorProps) {
     };
     window.addEventListener('keydown', onKey);
     return () => window.removeEventListener('keydown', onKey);
-  }, [canDraw, deleteSelection, fit, runUndo, size, tool, props.canComment]);
+  }, [areaOf, canDraw, changeLightbox, deleteSelection, fit, runUndo, selectedLightbox, size, tool, props.canComment]);
 
   // ---------- drawing the overlay (live stroke, lasso, selection, eraser) ----------
 

@@ -102,6 +102,11 @@ describe('lightbox', () => {
     expect(after.w).toBe(before.w); // moved, not scaled
     expect(after.y).toBeGreaterThan(before.y);
     expect((await serverPass(page)).strokes.length).toBe(1); // the stroke stays where it was drawn
+
+    // The keyboard does the same: Shift+→ nudges it 10 mm right.
+    await page.getByTestId('sketch-canvas').focus();
+    await page.keyboard.press('Shift+ArrowRight');
+    await expect.poll(async () => (await serverPass(page)).lightboxes[0]!.x, { timeout: 10_000 }).toBeCloseTo(after.x + 10, 2);
   });
 
   it('turns it a quarter and hides it, as operations of the pass', async () => {
