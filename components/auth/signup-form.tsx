@@ -7,7 +7,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
-import { ApiError, api } from '@/lib/http/client';
+import { api, messageOf } from '@/lib/http/client';
 import { type SignUpInput, signUpSchema } from '@/lib/validation/account';
 
 export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
@@ -20,7 +20,7 @@ export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
     try {
       await api('/api/users', { method: 'POST', json: values });
     } catch (err) {
-      setError(err instanceof ApiError ? err.message : 'Could not create the account.');
+      setError(messageOf(err, 'Could not create the account.'));
       return;
     }
     const res = await signIn('credentials', { email: values.email, password: values.password, redirect: false });

@@ -12,7 +12,7 @@ import { useGags } from '@/hooks/use-gags';
 import { ROLE_LABELS, type Role, can } from '@/lib/auth/permissions';
 import { filterGags } from '@/lib/gags/filter';
 import { GAG_STATUSES, type GagStatus, STATUS_LABELS } from '@/lib/gags/status';
-import { ApiError, api } from '@/lib/http/client';
+import { api, messageOf } from '@/lib/http/client';
 import { GagTable } from './gag-table';
 import { NewGagForm } from './new-gag-form';
 
@@ -45,7 +45,7 @@ export function Board({
         await mutate((list) => list?.map((g) => (g.id === updated.id ? updated : g)), { revalidate: false });
         setNotice(`“${updated.title}” is now ${STATUS_LABELS[updated.status]}.`);
       } catch (err) {
-        setNotice(err instanceof ApiError ? err.message : 'Could not change the status.');
+        setNotice(messageOf(err, 'Could not change the status.'));
       }
     },
     [mutate],

@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
-import { ApiError } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 import { type CreateGagInput, createGagSchema } from '@/lib/validation/gag';
 
 export function NewGagForm({ onCreate }: { onCreate: (input: CreateGagInput) => Promise<unknown> }) {
@@ -22,7 +22,7 @@ export function NewGagForm({ onCreate }: { onCreate: (input: CreateGagInput) => 
       reset();
       setFocus('title');
     } catch (err) {
-      setError(err instanceof ApiError ? err.message : 'Could not create the gag.');
+      setError(messageOf(err, 'Could not create the gag.'));
     }
   });
   return (

@@ -3,7 +3,7 @@ import { History } from 'lucide-react';
 import useSWR from 'swr';
 import { useState } from 'react';
 import type { RevisionDto } from '@/db/queries/passes';
-import { ApiError, api, fetcher } from '@/lib/http/client';
+import { api, fetcher, messageOf } from '@/lib/http/client';
 
 const REASONS: Record<RevisionDto['reason'], string> = {
   created: 'Pass started',
@@ -26,7 +26,7 @@ export function RevisionsPanel({ passId, canRestore, onRestored }: { passId: str
       onRestored();
       await mutate();
     } catch (err) {
-      setError(err instanceof ApiError ? err.message : 'Could not restore.');
+      setError(messageOf(err, 'Could not restore.'));
     } finally {
       setBusy(null);
     }

@@ -14,7 +14,7 @@ import { useAutosave } from '@/hooks/use-autosave';
 import { useGag } from '@/hooks/use-gag';
 import { ROLE_LABELS, type Role, can } from '@/lib/auth/permissions';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind, type GagStatus, STATUS_LABELS } from '@/lib/gags/status';
-import { ApiError } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 import { gagPremise, gagTitle } from '@/lib/validation/gag';
 import { StatusSelect } from './status-select';
 
@@ -93,7 +93,7 @@ export function GagDetail({
       await autosave.flush();
       await update({ status: next });
     } catch (err) {
-      setStatusError(err instanceof ApiError ? err.message : 'Could not change the status.');
+      setStatusError(messageOf(err, 'Could not change the status.'));
     }
   }
   async function doDelete() {
@@ -105,7 +105,7 @@ export function GagDetail({
     } catch (err) {
       setDeleting(false);
       setConfirming(false);
-      setStatusError(err instanceof ApiError ? err.message : 'Could not delete the gag.');
+      setStatusError(messageOf(err, 'Could not delete the gag.'));
     }
   }
 

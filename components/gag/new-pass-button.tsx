@@ -3,7 +3,7 @@ import { Plus } from 'lucide-react';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { ApiError, api } from '@/lib/http/client';
+import { api, messageOf } from '@/lib/http/client';
 
 /** Starts a pass, blank or as a copy of an earlier one, and opens it in the editor. */
 export function NewPassButton({ seriesId, gagId, passNumbers }: { seriesId: string; gagId: string; passNumbers: number[] }) {
@@ -21,7 +21,7 @@ export function NewPassButton({ seriesId, gagId, passNumbers }: { seriesId: stri
       });
       router.push(`/series/${seriesId}/gags/${gagId}/passes/${pass.number}`);
     } catch (err) {
-      setError(err instanceof ApiError ? err.message : 'Could not start a pass.');
+      setError(messageOf(err, 'Could not start a pass.'));
       setBusy(false);
     }
   }

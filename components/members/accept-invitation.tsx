@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { ApiError, api } from '@/lib/http/client';
+import { api, messageOf } from '@/lib/http/client';
 
 export function AcceptInvitation({ token, signedIn, seriesTitle, role, invitedBy, problem }: { token: string; signedIn: boolean; seriesTitle: string; role: string; invitedBy: string; problem: string | null }) {
   const router = useRouter();
@@ -25,7 +25,7 @@ export function AcceptInvitation({ token, signedIn, seriesTitle, role, invitedBy
                 const r = await api<{ seriesId: string }>(`/api/invitations/${token}/accept`, { method: 'POST' });
                 router.push(`/series/${r.seriesId}`);
               } catch (err) {
-                setError(err instanceof ApiError ? err.message : 'Could not accept.');
+                setError(messageOf(err, 'Could not accept.'));
               }
             }}
           >

@@ -10,7 +10,7 @@ import { Field } from '@/components/ui/field';
 import type { MemberDto } from '@/db/queries/members';
 import { useMembers } from '@/hooks/use-review';
 import { ROLES, ROLE_LABELS, type Role } from '@/lib/auth/permissions';
-import { ApiError, api, fetcher } from '@/lib/http/client';
+import { api, fetcher, messageOf } from '@/lib/http/client';
 import { inviteSchema } from '@/lib/validation/members';
 
 type Invitation = { id: string; email: string; role: Role; expiresAt: string; invitedBy: string };
@@ -30,7 +30,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
       await mutate();
       await invitations.mutate();
     } catch (err) {
-      setMessage(err instanceof ApiError ? err.message : 'That did not work.');
+      setMessage(messageOf(err, 'That did not work.'));
     }
   };
 

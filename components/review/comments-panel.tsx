@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import type { ThreadDto } from '@/db/queries/comments';
 import { useComments, useMembers } from '@/hooks/use-review';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
-import { ApiError } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 
 export function pinLabel(c: Pick<ThreadDto, 'target' | 'passNumber' | 'panel' | 'beat' | 'x' | 'y'>): string {
   const panel = c.panel !== null ? `panel ${c.panel + 1} (${BEAT_LABELS[BEAT_KINDS[c.panel]!]})` : '';
@@ -84,7 +84,7 @@ export function CommentsPanel({
         onPosted?.();
       }
     } catch (err) {
-      setError(err instanceof ApiError ? err.message : 'Could not post the comment.');
+      setError(messageOf(err, 'Could not post the comment.'));
     }
   };
 

@@ -5,7 +5,7 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { useChecklist, useFindings, useStamps } from '@/hooks/use-review';
 import { BEAT_KINDS, BEAT_LABELS } from '@/lib/gags/status';
-import { ApiError } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 
 export function ChecklistCard({ passId, canTick }: { passId: string; canTick: boolean }) {
   const { data, setTicked } = useChecklist(passId);
@@ -17,7 +17,7 @@ export function ChecklistCard({ passId, canTick }: { passId: string; canTick: bo
     try {
       await setTicked(next);
     } catch (err) {
-      setError(err instanceof ApiError ? err.message : 'Could not save the tick.');
+      setError(messageOf(err, 'Could not save the tick.'));
     }
   };
   return (
@@ -112,7 +112,7 @@ export function StampCard({ gagId, passId, passNumber, canStamp }: { gagId: stri
       await stamp(passId, decision, note);
       setNote('');
     } catch (err) {
-      setError(err instanceof ApiError ? err.message : 'Could not stamp.');
+      setError(messageOf(err, 'Could not stamp.'));
     } finally {
       setBusy(false);
     }

@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
-import { ApiError, api, fetcher } from '@/lib/http/client';
+import { api, fetcher, messageOf } from '@/lib/http/client';
 
 type Item = { id: string; text: string };
 
@@ -21,7 +21,7 @@ export function ChecklistEditor({ seriesId, canEdit }: { seriesId: string; canEd
       setRows(null);
       setMessage('Checklist saved.');
     } catch (err) {
-      setMessage(err instanceof ApiError ? err.message : 'Could not save the checklist.');
+      setMessage(messageOf(err, 'Could not save the checklist.'));
     }
   };
   return (

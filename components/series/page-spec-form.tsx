@@ -7,7 +7,7 @@ import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { Button } from '@/components/ui/button';
 import { type PageSpec, panelRects } from '@/lib/print/geometry';
-import { ApiError, api } from '@/lib/http/client';
+import { api, messageOf } from '@/lib/http/client';
 import { pageSpecSchema } from '@/lib/validation/pass';
 
 const FIELDS: { key: keyof PageSpec; label: string }[] = [
@@ -33,7 +33,7 @@ export function PageSpecForm({ seriesId, initial, canEdit }: { seriesId: string;
       setSaved(spec);
       setMessage('Page setup saved.');
     } catch (err) {
-      setMessage(err instanceof ApiError ? err.message : 'Could not save the page setup.');
+      setMessage(messageOf(err, 'Could not save the page setup.'));
     }
   });
   const formError = formState.errors.root?.message ?? Object.values(formState.errors)[0]?.message;

@@ -9,7 +9,7 @@ import { Field } from '@/components/ui/field';
 import type { SeriesDto } from '@/db/queries/series';
 import { useSeriesList } from '@/hooks/use-series-list';
 import { ROLE_LABELS } from '@/lib/auth/permissions';
-import { ApiError } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 import { type CreateSeriesInput, createSeriesSchema } from '@/lib/validation/series';
 
 export function SeriesIndex({ initial }: { initial: SeriesDto[] }) {
@@ -26,7 +26,7 @@ export function SeriesIndex({ initial }: { initial: SeriesDto[] }) {
       reset();
       router.push(`/series/${created.id}`);
     } catch (err) {
-      setError(err instanceof ApiError ? err.message : 'Could not create the series.');
+      setError(messageOf(err, 'Could not create the series.'));
     }
   });
   const list = data ?? [];

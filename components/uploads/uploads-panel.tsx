@@ -7,7 +7,7 @@ import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import type { UploadListItem } from '@/db/queries/uploads';
-import { ApiError, api, fetcher } from '@/lib/http/client';
+import { api, ApiError, fetcher, messageOf } from '@/lib/http/client';
 import { ImageFilesInput, UploadJobList, useUploadJobs } from './upload-jobs';
 
 export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpload: boolean }) {
@@ -97,7 +97,7 @@ export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpl
               setConfirm(usedBy ?? null);
               return;
             }
-            alert(err instanceof ApiError ? err.message : 'Could not delete.');
+            alert(messageOf(err, 'Could not delete.'));
           }
           setConfirm(null);
           await mutate();

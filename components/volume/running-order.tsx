@@ -19,7 +19,7 @@ import { Button } from '@/components/ui/button';
 import { StatusBadge } from '@/components/ui/status-badge';
 import type { EntryDto } from '@/db/queries/volumes';
 import type { GagStatus } from '@/lib/gags/status';
-import { ApiError, api } from '@/lib/http/client';
+import { api, messageOf } from '@/lib/http/client';
 import { MATTER_KINDS } from '@/lib/validation/volume';
 
 export { MATTER_LABELS, entryLabel } from './labels';
@@ -101,7 +101,7 @@ export function RunningOrder({
     try {
       await fn();
     } catch (err) {
-      setError(err instanceof ApiError ? err.message : 'That did not work.');
+      setError(messageOf(err, 'That did not work.'));
     }
     await onChanged();
   };

@@ -6,7 +6,7 @@ import { useState } from 'react';
 import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
 import type { VolumeDto } from '@/db/queries/volumes';
-import { ApiError, api, fetcher } from '@/lib/http/client';
+import { api, fetcher, messageOf } from '@/lib/http/client';
 
 export function VolumesList({ seriesId, canCreate }: { seriesId: string; canCreate: boolean }) {
   const router = useRouter();
@@ -40,7 +40,7 @@ export function VolumesList({ seriesId, canCreate }: { seriesId: string; canCrea
               const v = await api<VolumeDto>(`/api/series/${seriesId}/volumes`, { method: 'POST', json: { title, deadline } });
               router.push(`/series/${seriesId}/volumes/${v.id}`);
             } catch (err) {
-              setError(err instanceof ApiError ? err.message : 'Could not create the volume.');
+              setError(messageOf(err, 'Could not create the volume.'));
             }
           }}
         >

@@ -9,6 +9,11 @@ export class ApiError extends Error {
   }
 }
 
+/** The server's message for a failed call, or `fallback` for anything else (a lost connection, a bug). */
+export function messageOf(err: unknown, fallback: string): string {
+  return err instanceof ApiError ? err.message : fallback;
+}
+
 export async function api<T>(url: string, init?: RequestInit & { json?: unknown }): Promise<T> {
   const { json, ...rest } = init ?? {};
   const res = await fetch(url, {
