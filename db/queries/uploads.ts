@@ -1,10 +1,11 @@
 // Uploaded scans and photos; the same file (SHA-256) is stored once per series.
 import { randomUUID } from 'node:crypto';
-import { type Kysely, sql } from 'kysely';
-import type { Database } from '../database';
+import { type Kysely, type Selectable, sql } from 'kysely';
+import type { Database, UploadsTable } from '../database';
 
-export type UploadDto = { id: string; name: string; mime: string; bytes: number; width: number; height: number; sha256: string; createdAt: string };
 const COLS = ['id', 'name', 'mime', 'bytes', 'width', 'height', 'sha256', 'createdAt'] as const;
+/** An upload as the API shows it: its row without the storage keys. */
+export type UploadDto = Pick<Selectable<UploadsTable>, (typeof COLS)[number]>;
 
 /** An upload as listed, with how many passes place it now (deleting those asks first). */
 export type UploadListItem = UploadDto & { passesUsing: number };
