@@ -8,6 +8,7 @@ import type { PageSpec } from '@/lib/print/geometry';
 import { panelRects } from '@/lib/print/geometry';
 import { pinLabel } from './comments-panel';
 import { PresenceBar } from './presence-bar';
+import { PassPicker } from './pass-picker';
 
 /** ISO/IEC 7810 ID-1 card (bank-card size): 85.60 × 53.98 mm. */
 export const ID1_MM = { w: 85.6, h: 53.98 };
@@ -61,19 +62,6 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
     </>
   );
 
-  const picker = (label: string, value: string, set: (v: string) => void) => (
-    <label className="text-sm font-bold text-graphite-soft">
-      {label}
-      <select className="field mt-1 w-auto py-1.5" value={value} onChange={(e) => set(e.target.value)}>
-        {passes.map((p) => (
-          <option key={p.id} value={p.id}>
-            Pass {p.number}
-          </option>
-        ))}
-      </select>
-    </label>
-  );
-
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-end justify-between gap-3">
@@ -88,8 +76,8 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
           <PresenceBar gagId={gagId} where="compare" meId={meId} />
         </div>
         <div className="flex flex-wrap items-end gap-3">
-          {picker('Older (A)', a, setA)}
-          {picker('Newer (B)', b, setB)}
+          <PassPicker label="Older (A)" passes={passes} value={a} onChange={setA} />
+          <PassPicker label="Newer (B)" passes={passes} value={b} onChange={setB} />
           <div role="group" aria-label="View" className="inline-flex rounded-md border border-paper-edge bg-white p-0.5">
             {(
               [

@@ -7,6 +7,7 @@ import { type Role, can } from '@/lib/auth/permissions';
 import { CommentsPanel } from './comments-panel';
 import { PresenceBar } from './presence-bar';
 import { ChecklistCard, FindingsCard, StampCard } from './review-cards';
+import { PassPicker } from './pass-picker';
 
 export function ReviewSection({
   seriesId,
@@ -34,16 +35,7 @@ export function ReviewSection({
         </div>
         {passes.length > 0 && (
           <div className="flex flex-wrap items-end gap-3">
-            <label className="text-sm font-bold text-graphite-soft">
-              Pass under review
-              <select className="field mt-1 w-auto py-1.5" value={passId} onChange={(e) => setPassId(e.target.value)}>
-                {passes.map((p) => (
-                  <option key={p.id} value={p.id}>
-                    Pass {p.number}
-                  </option>
-                ))}
-              </select>
-            </label>
+            <PassPicker label="Pass under review" passes={passes} value={passId} onChange={setPassId} />
             <Link href={`/series/${seriesId}/gags/${gagId}/compare`} className="rounded-md border border-paper-edge bg-white px-3 py-2 text-sm font-bold hover:bg-paper-deep">
               Compare passes
             </Link>

@@ -4,6 +4,15 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { BLEED_PRESETS, TRIM_PRESETS, type VolumeSpec, spineMm } from '@/lib/print/book';
 
+function NumberField(p: { label: string; step: string; value: number; onChange: (e: React.ChangeEvent<HTMLInputElement>) => void }) {
+  return (
+    <label className="text-sm font-bold text-graphite-soft">
+      {p.label}
+      <input type="number" step={p.step} className="field mt-1 py-1.5" value={p.value} onChange={p.onChange} />
+    </label>
+  );
+}
+
 export function VolumeSpecForm({ spec, pages, canEdit, onSave }: { spec: VolumeSpec; pages: number; canEdit: boolean; onSave: (spec: Partial<VolumeSpec>) => Promise<void> }) {
   const [s, setS] = useState(spec);
   const [msg, setMsg] = useState<string | null>(null);
@@ -33,14 +42,8 @@ export function VolumeSpecForm({ spec, pages, canEdit, onSave }: { spec: VolumeS
             <option value="custom">Custom</option>
           </select>
         </label>
-        <label className="text-sm font-bold text-graphite-soft">
-          Width (mm)
-          <input type="number" step="0.1" className="field mt-1 py-1.5" value={s.trimW} onChange={num('trimW')} />
-        </label>
-        <label className="text-sm font-bold text-graphite-soft">
-          Height (mm)
-          <input type="number" step="0.1" className="field mt-1 py-1.5" value={s.trimH} onChange={num('trimH')} />
-        </label>
+        <NumberField label="Width (mm)" step="0.1" value={s.trimW} onChange={num('trimW')} />
+        <NumberField label="Height (mm)" step="0.1" value={s.trimH} onChange={num('trimH')} />
         <label className="text-sm font-bold text-graphite-soft">
           Bleed
           <select className="field mt-1 py-1.5" value={Math.abs(s.bleed - BLEED_PRESETS.in8) < 0.001 ? 'in8' : 'mm3'} onChange={(e) => setS({ ...s, bleed: BLEED_PRESETS[e.target.value as 'mm3' | 'in8'] })}>
@@ -48,14 +51,8 @@ export function VolumeSpecForm({ spec, pages, canEdit, onSave }: { spec: VolumeS
             <option value="in8">1/8 in (3.175 mm)</option>
           </select>
         </label>
-        <label className="text-sm font-bold text-graphite-soft">
-          Safe margin (mm)
-          <input type="number" step="0.5" className="field mt-1 py-1.5" value={s.safe} onChange={num('safe')} />
-        </label>
-        <label className="text-sm font-bold text-graphite-soft">
-          Gutter (mm)
-          <input type="number" step="0.5" className="field mt-1 py-1.5" value={s.gutter} onChange={num('gutter')} />
-        </label>
+        <NumberField label="Safe margin (mm)" step="0.5" value={s.safe} onChange={num('safe')} />
+        <NumberField label="Gutter (mm)" step="0.5" value={s.gutter} onChange={num('gutter')} />
         <label className="text-sm font-bold text-graphite-soft">
           Binding
           <select className="field mt-1 py-1.5" value={s.binding} onChange={(e) => setS({ ...s, binding: e.target.value as VolumeSpec['binding'] })}>
@@ -63,10 +60,7 @@ export function VolumeSpecForm({ spec, pages, canEdit, onSave }: { spec: VolumeS
             <option value="perfect">Perfect bound</option>
           </select>
         </label>
-        <label className="text-sm font-bold text-graphite-soft">
-          Paper caliper (µm)
-          <input type="number" step="5" className="field mt-1 py-1.5" value={s.caliperUm} onChange={num('caliperUm')} />
-        </label>
+        <NumberField label="Paper caliper (µm)" step="5" value={s.caliperUm} onChange={num('caliperUm')} />
         <label className="text-sm font-bold text-graphite-soft">
           Reading direction
           <select className="field mt-1 py-1.5" value={s.direction} onChange={(e) => setS({ ...s, direction: e.target.value as VolumeSpec['direction'] })}>

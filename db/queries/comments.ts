@@ -1,30 +1,13 @@
 // Comment threads on a gag, pinned to the gag, a pass, a panel of a pass, a beat,
 // or a point in a panel (mm). Replies take their thread's pin.
 import { randomUUID } from 'node:crypto';
-import type { Kysely } from 'kysely';
+import type { Kysely, Selectable } from 'kysely';
 import type { BeatKind } from '@/lib/gags/status';
-import type { CommentTarget, Database } from '../database';
+import type { CommentTarget, CommentsTable, Database } from '../database';
 import { recordActivity } from './activity';
 
-export type CommentDto = {
-  id: string;
-  gagId: string;
-  parentId: string | null;
-  target: CommentTarget;
-  passId: string | null;
-  passNumber: number | null;
-  panel: number | null;
-  beat: BeatKind | null;
-  x: number | null;
-  y: number | null;
-  body: string;
-  authorId: string;
-  author: string;
-  createdAt: string;
-  editedAt: string | null;
-  resolvedAt: string | null;
-  resolvedBy: string | null;
-};
+/** A comment row as the API shows it, with its pass's number and its author's name. */
+export type CommentDto = Selectable<CommentsTable> & { passNumber: number | null; author: string };
 export type ThreadDto = CommentDto & { replies: CommentDto[] };
 
 export class CommentRefused extends Error {}

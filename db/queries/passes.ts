@@ -14,6 +14,7 @@ import { type Lightbox, type Op, type Room, type Stroke, translatePoints } from 
 import type { Database, RevisionReason } from '../database';
 import { recordActivity } from './activity';
 import { LIGHTBOXES, ROOMS, copyItems, itemsDelta, liveItems, removeItem, restoreItems, upsertItem } from './pass-items';
+import { passWithGag } from './pass-info';
 import { clearStampOnChange } from './stamps';
 
 type Db = Kysely<Database> | Transaction<Database>;
@@ -82,13 +83,7 @@ export async function findPassByNumber(db: Db, gagId: string, number: number) {
 }
 
 export async function seriesOfPass(db: Db, passId: string): Promise<string | null> {
-  const row = await db
-    .selectFrom('passes as p')
-    .innerJoin('gags as g', 'g.id', 'p.gagId')
-    .select('g.seriesId')
-    .where('p.id', '=', passId)
-    .executeTakeFirst();
-  return row?.seriesId ?? null;
+  return (await passWithGag(db, passId))?.seriesId ?? null;
 }
 
 export async function listPasses(db: Db, gagId: string): Promise<PassSummary[]> {
@@ -436,12 +431,7 @@ export async function restoreRevision(
     await trx.updateTable('passes').set({ seq, updatedAt: now }).where('id', '=', input.passId).execute();
     await clearStampOnChange(trx, input.passId, seq, input.userId);
     const revisionId = await addRevision(trx, input.passId, seq, 'restore', input.userId, rev.id);
-    const info = await trx
-      .selectFrom('passes as p')
-      .innerJoin('gags as g', 'g.id', 'p.gagId')
-      .select(['g.seriesId', 'g.id as gagId', 'g.title', 'p.number'])
-      .where('p.id', '=', input.passId)
-      .executeTakeFirstOrThrow();
+    const info = (await passWithGag(trx, input.passId))!;
     await recordActivity(trx, {
       seriesId: info.seriesId,
       gagId: info.gagId,

@@ -5,6 +5,7 @@ import { randomUUID } from 'node:crypto';
 import type { Kysely, Transaction } from 'kysely';
 import type { Database, StampDecision } from '../database';
 import { recordActivity } from './activity';
+import { passWithGag } from './pass-info';
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -30,12 +31,8 @@ export async function stampPass(
   input: { passId: string; userId: string; decision: StampDecision; note: string },
 ): Promise<StampDto> {
   const id = await db.transaction().execute(async (trx) => {
-    const pass = await trx
-      .selectFrom('passes as p')
-      .innerJoin('gags as g', 'g.id', 'p.gagId')
-      .select(['p.id', 'p.number', 'p.seq', 'p.gagId', 'g.status', 'g.seriesId', 'g.title'])
-      .where('p.id', '=', input.passId)
-      .executeTakeFirstOrThrow();
+    const pass = await passWithGag(trx, input.passId);
+    if (!pass) throw new Error(`No pass ${input.passId}.`);
     if (!STAMPABLE.has(pass.status)) {
       throw new StampRefused(`This gag is already past "ready to ink" (it is ${pass.status.replace(/_/g, ' ')}); move it back before stamping a pass.`);
     }

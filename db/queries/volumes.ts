@@ -153,30 +153,25 @@ export async function moveEntry(db: Kysely<Database>, volumeId: string, entryId:
     if (!anchor) throw new VolumeRefused(422, 'The entry to move next to is not in this volume.');
     let lo: string | null;
     let hi: string | null;
+    // The other side of the gap is the anchor's neighbour in that direction, leaving out the entry that moves.
+    const neighbour = async (dir: 'next' | 'previous') =>
+      (
+        await trx
+          .selectFrom('volumeEntries')
+          .select('position')
+          .where('volumeId', '=', volumeId)
+          .where('position', dir === 'next' ? '>' : '<', anchor.position)
+          .where('id', '!=', entryId)
+          .orderBy('position', dir === 'next' ? 'asc' : 'desc')
+          .limit(1)
+          .executeTakeFirst()
+      )?.position ?? null;
     if (to.after) {
       lo = anchor.position;
-      const next = await trx
-        .selectFrom('volumeEntries')
-        .select('position')
-        .where('volumeId', '=', volumeId)
-        .where('position', '>', anchor.position)
-        .where('id', '!=', entryId)
-        .orderBy('position')
-        .limit(1)
-        .executeTakeFirst();
-      hi = next?.position ?? null;
+      hi = await neighbour('next');
     } else {
       hi = anchor.position;
-      const prev = await trx
-        .selectFrom('volumeEntries')
-        .select('position')
-        .where('volumeId', '=', volumeId)
-        .where('position', '<', anchor.position)
-        .where('id', '!=', entryId)
-        .orderBy('position', 'desc')
-        .limit(1)
-        .executeTakeFirst();
-      lo = prev?.position ?? null;
+      lo = await neighbour('previous');
     }
     const position = generateKeyBetween(lo, hi);
     await trx.updateTable('volumeEntries').set({ position }).where('id', '=', entryId).execute();
