@@ -151,17 +151,16 @@ export async function copyItems<I extends { id: string }, R extends { rowId: num
 
 /** Makes the live rows those that were live at `targetSeq`, by retiring and re-adding at `seq`. */
 export async function restoreItems(trx: Db, kind: Tables, passId: string, targetSeq: number, seq: number): Promise<void> {
-  const any = kind;
-  const target = await itemRowsAt<Record<string, unknown> & { rowId: number }>(trx, any, passId, targetSeq);
-  const live = await loose(trx).selectFrom(any.table).selectAll().where('passId', '=', passId).where('removedSeq', 'is', null).execute();
+  const target = await itemRowsAt<Record<string, unknown> & { rowId: number }>(trx, kind, passId, targetSeq);
+  const live = await loose(trx).selectFrom(kind.table).selectAll().where('passId', '=', passId).where('removedSeq', 'is', null).execute();
   const targetRows = new Set(target.map((r) => r.rowId));
   const liveRows = new Set(live.map((r) => r.rowId as number));
   for (const r of live) {
-    if (!targetRows.has(r.rowId)) await loose(trx).updateTable(any.table).set({ removedSeq: seq }).where('rowId', '=', r.rowId).execute();
+    if (!targetRows.has(r.rowId)) await loose(trx).updateTable(kind.table).set({ removedSeq: seq }).where('rowId', '=', r.rowId).execute();
   }
   for (const r of target) {
     if (liveRows.has(r.rowId)) continue;
-    const { rowId: _row, passId: _pass, addedSeq: _a, removedSeq: _r, [any.idColumn]: id, ...values } = r;
-    await insertItem(trx, any, passId, id as string, values, seq);
+    const { rowId: _row, passId: _pass, addedSeq: _a, removedSeq: _r, [kind.idColumn]: id, ...values } = r;
+    await insertItem(trx, kind, passId, id as string, values, seq);
   }
 }
