@@ -30,6 +30,18 @@ export default defineConfig({
         },
       },
       {
+        // The same integration suite on PostgreSQL (a throwaway cluster started by the setup).
+        resolve: { alias },
+        test: {
+          name: 'integration-pg',
+          include: ['tests/integration/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+          globalSetup: ['tests/support/pg-global-setup.ts'],
+        },
+      },
+      {
         resolve: { alias },
         test: {
           name: 'e2e',

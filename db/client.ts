@@ -1,21 +1,29 @@
-// One Kysely instance per process over better-sqlite3, chosen by DATABASE_URL
-// (default file:./data/quadrille.sqlite). Migrations run before first use.
+// One Kysely instance per process, chosen by DATABASE_URL: a `file:` URL opens
+// SQLite through better-sqlite3 (the default, file:./data/quadrille.sqlite);
+// `postgres://` or `postgresql://` opens a pg pool for multi-instance deployments.
+// Migrations run before first use.
 import fs from 'node:fs';
 import path from 'node:path';
 import SqliteDatabase from 'better-sqlite3';
-import { CamelCasePlugin, Kysely, Migrator, SqliteDialect } from 'kysely';
+import { CamelCasePlugin, CompiledQuery, type DatabaseConnection, Kysely, Migrator, PostgresDialect, SqliteDialect, SqliteDriver } from 'kysely';
+import pg from 'pg';
 import type { Database } from './database';
+import { type DbKind, kindOf } from './dialect';
 import { migrationProvider } from './migrations';
 
 export const DEFAULT_DATABASE_URL = 'file:./data/quadrille.sqlite';
 
-export type DbKind = 'sqlite';
+export type { DbKind };
+
+export function isPostgresUrl(url: string): boolean {
+  return /^postgres(ql)?:\/\//.test(url);
+}
 
 /** Resolves `file:relative/or/absolute.sqlite` to a path on disk. */
 export function sqlitePathFromUrl(url: string): string {
   if (!url.startsWith('file:')) {
     throw new Error(
-      `DATABASE_URL must be a file: URL for SQLite (got "${url.split(':')[0]}:…"); PostgreSQL support arrives with multi-instance deployments.`,
+      `DATABASE_URL must be a file: URL for SQLite or a postgres:// URL for PostgreSQL (got "${url.split(':')[0]}:…").`,
     );
   }
   const raw = url.slice('file:'.length).replace(/^\/\/(?=\/)/, '');
@@ -34,11 +42,40 @@ export function openSqlite(file: string): SqliteDatabase.Database {
   return sqlite;
 }
 
+// Write transactions take SQLite's write lock at BEGIN: a transaction that read
+// first and wrote later could otherwise fail with SQLITE_BUSY_SNAPSHOT when a
+// second process (a CLI, a test) writes the same file.
+class ImmediateSqliteDriver extends SqliteDriver {
+  override async beginTransaction(connection: DatabaseConnection): Promise<void> {
+    await connection.executeQuery(CompiledQuery.raw('begin immediate'));
+  }
+}
+class ImmediateSqliteDialect extends SqliteDialect {
+  constructor(private readonly sqliteConfig: ConstructorParameters<typeof SqliteDialect>[0]) {
+    super(sqliteConfig);
+  }
+  override createDriver() {
+    return new ImmediateSqliteDriver(this.sqliteConfig);
+  }
+}
+
+// pg returns 64-bit integers (count(*), bigint columns) and numerics (sum) as
+// strings; every value here fits a double, and SQLite gives numbers.
+pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));
+pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
+
+export function createPgPool(url: string): pg.Pool {
+  const pool = new pg.Pool({ connectionString: url, max: Number(process.env.DATABASE_POOL_SIZE || 10) });
+  // An idle client that loses its server must not crash the process; the next query reconnects.
+  pool.on('error', (err) => console.error('[db] idle PostgreSQL client error:', err.message));
+  return pool;
+}
+
 export function createDb(url = process.env.DATABASE_URL || DEFAULT_DATABASE_URL): Kysely<Database> {
-  return new Kysely<Database>({
-    dialect: new SqliteDialect({ database: openSqlite(sqlitePathFromUrl(url)) }),
-    plugins: [new CamelCasePlugin()],
-  });
+  const dialect = isPostgresUrl(url)
+    ? new PostgresDialect({ pool: createPgPool(url) })
+    : new ImmediateSqliteDialect({ database: openSqlite(sqlitePathFromUrl(url)) });
+  return new Kysely<Database>({ dialect, plugins: [new CamelCasePlugin()] });
 }
 
 export async function migrateToLatest(db: Kysely<any>): Promise<string[]> {
@@ -68,7 +105,9 @@ export async function getDb(): Promise<Kysely<Database>> {
 }
 
 export function dbKind(): DbKind {
-  return 'sqlite';
+  const holder = globalForDb.__quadrilleDb;
+  if (holder) return kindOf(holder.db);
+  return isPostgresUrl(process.env.DATABASE_URL || DEFAULT_DATABASE_URL) ? 'postgres' : 'sqlite';
 }
 
 /** For tests and scripts: close the shared connection. */

@@ -1,6 +1,8 @@
 import { type Kysely, sql } from 'kysely';
+import { columnTypes } from '../dialect';
 
 export async function up(db: Kysely<any>): Promise<void> {
+  const t = columnTypes(db);
   await db.schema
     .createTable('gags')
     .addColumn('id', 'text', (c) => c.primaryKey())
@@ -15,7 +17,7 @@ export async function up(db: Kysely<any>): Promise<void> {
           sql`status in ('idea', 'thumbnailing', 'in_review', 'ready_to_ink', 'inked', 'scanned', 'placed')`,
         ),
     )
-    .addColumn('position', 'real', (c) => c.notNull())
+    .addColumn('position', t.float, (c) => c.notNull())
     .addColumn('created_at', 'text', (c) => c.notNull())
     .addColumn('updated_at', 'text', (c) => c.notNull())
     .execute();

@@ -1,11 +1,13 @@
 import type { Kysely } from 'kysely';
+import { autoId, columnTypes } from '../dialect';
 
 export async function up(db: Kysely<any>): Promise<void> {
+  const t = columnTypes(db);
   await db.schema
     .createTable('sign_in_failures')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('email', 'text', (c) => c.notNull())
-    .addColumn('at', 'integer', (c) => c.notNull())
+    .addColumn('at', t.epochMs, (c) => c.notNull())
     .execute();
   await db.schema
     .createIndex('sign_in_failures_email_at_idx')

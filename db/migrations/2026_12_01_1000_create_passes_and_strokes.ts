@@ -1,9 +1,11 @@
 import { type Kysely, sql } from 'kysely';
+import { autoId, columnTypes } from '../dialect';
 
 // Passes and their append-only stroke model (see shared/STROKES.md):
 // one row per stroke version, tombstones for removals, one row per move,
 // a batch log for idempotent retries, and revisions to restore.
 export async function up(db: Kysely<any>): Promise<void> {
+  const t = columnTypes(db);
   await db.schema.alterTable('series').addColumn('page_spec', 'text').execute();
 
   await db.schema
@@ -21,23 +23,23 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('strokes')
-    .addColumn('row_id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('row_id', 'integer', autoId(db))
     .addColumn('pass_id', 'text', (c) => c.notNull().references('passes.id').onDelete('cascade'))
     .addColumn('stroke_id', 'text', (c) => c.notNull())
     .addColumn('panel', 'integer', (c) => c.notNull().check(sql`panel between 0 and 3`))
     .addColumn('tool', 'text', (c) => c.notNull().check(sql`tool in ('pen', 'tone')`))
     .addColumn('grey', 'integer', (c) => c.notNull())
-    .addColumn('size', 'real', (c) => c.notNull())
-    .addColumn('points', 'blob', (c) => c.notNull())
+    .addColumn('size', t.float, (c) => c.notNull())
+    .addColumn('points', t.bytes, (c) => c.notNull())
     .addColumn('point_count', 'integer', (c) => c.notNull())
     // Bounds of the stored points (mm), before the move offset below.
-    .addColumn('min_x', 'real', (c) => c.notNull())
-    .addColumn('min_y', 'real', (c) => c.notNull())
-    .addColumn('max_x', 'real', (c) => c.notNull())
-    .addColumn('max_y', 'real', (c) => c.notNull())
+    .addColumn('min_x', t.float, (c) => c.notNull())
+    .addColumn('min_y', t.float, (c) => c.notNull())
+    .addColumn('max_x', t.float, (c) => c.notNull())
+    .addColumn('max_y', t.float, (c) => c.notNull())
     // Current offset, the sum of this row's stroke_moves.
-    .addColumn('ox', 'real', (c) => c.notNull().defaultTo(0))
-    .addColumn('oy', 'real', (c) => c.notNull().defaultTo(0))
+    .addColumn('ox', t.float, (c) => c.notNull().defaultTo(0))
+    .addColumn('oy', t.float, (c) => c.notNull().defaultTo(0))
     .addColumn('added_seq', 'integer', (c) => c.notNull())
     .addColumn('removed_seq', 'integer')
     .addColumn('added_by', 'text')
@@ -48,12 +50,12 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('stroke_moves')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('row_id', 'integer', (c) => c.notNull().references('strokes.row_id').onDelete('cascade'))
     .addColumn('pass_id', 'text', (c) => c.notNull())
     .addColumn('seq', 'integer', (c) => c.notNull())
-    .addColumn('dx', 'real', (c) => c.notNull())
-    .addColumn('dy', 'real', (c) => c.notNull())
+    .addColumn('dx', t.float, (c) => c.notNull())
+    .addColumn('dy', t.float, (c) => c.notNull())
     .execute();
   await db.schema.createIndex('stroke_moves_row_idx').on('stroke_moves').columns(['row_id', 'seq']).execute();
   await db.schema.createIndex('stroke_moves_pass_idx').on('stroke_moves').columns(['pass_id', 'seq']).execute();
@@ -68,15 +70,15 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('rooms')
-    .addColumn('row_id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('row_id', 'integer', autoId(db))
     .addColumn('pass_id', 'text', (c) => c.notNull().references('passes.id').onDelete('cascade'))
     .addColumn('room_id', 'text', (c) => c.notNull())
     .addColumn('panel', 'integer', (c) => c.notNull().check(sql`panel between 0 and 3`))
     .addColumn('shape', 'text', (c) => c.notNull().check(sql`shape in ('rect', 'ellipse')`))
-    .addColumn('x', 'real', (c) => c.notNull())
-    .addColumn('y', 'real', (c) => c.notNull())
-    .addColumn('w', 'real', (c) => c.notNull())
-    .addColumn('h', 'real', (c) => c.notNull())
+    .addColumn('x', t.float, (c) => c.notNull())
+    .addColumn('y', t.float, (c) => c.notNull())
+    .addColumn('w', t.float, (c) => c.notNull())
+    .addColumn('h', t.float, (c) => c.notNull())
     .addColumn('added_seq', 'integer', (c) => c.notNull())
     .addColumn('removed_seq', 'integer')
     .execute();

@@ -1,9 +1,11 @@
 import { type Kysely, sql } from 'kysely';
+import { autoId, columnTypes } from '../dialect';
 
 // The review loop: checklist, stamps, comments, activity, invitations, mail log,
 // presence, and per-person notification settings.
 export async function up(db: Kysely<any>): Promise<void> {
-  await db.schema.alterTable('series').addColumn('ink_threshold', 'real', (c) => c.notNull().defaultTo(0.35)).execute();
+  const t = columnTypes(db);
+  await db.schema.alterTable('series').addColumn('ink_threshold', t.float, (c) => c.notNull().defaultTo(0.35)).execute();
   await db.schema.alterTable('gags').addColumn('created_by', 'text').execute();
   await db.schema.alterTable('users').addColumn('notify_email', 'integer', (c) => c.notNull().defaultTo(1)).execute();
 
@@ -12,7 +14,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('id', 'text', (c) => c.primaryKey())
     .addColumn('series_id', 'text', (c) => c.notNull().references('series.id').onDelete('cascade'))
     .addColumn('text', 'text', (c) => c.notNull())
-    .addColumn('position', 'real', (c) => c.notNull())
+    .addColumn('position', t.float, (c) => c.notNull())
     .addColumn('created_at', 'text', (c) => c.notNull())
     .addColumn('removed_at', 'text')
     .execute();
@@ -52,8 +54,8 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('pass_id', 'text', (c) => c.references('passes.id').onDelete('cascade'))
     .addColumn('panel', 'integer')
     .addColumn('beat', 'text')
-    .addColumn('x', 'real')
-    .addColumn('y', 'real')
+    .addColumn('x', t.float)
+    .addColumn('y', t.float)
     .addColumn('body', 'text', (c) => c.notNull())
     .addColumn('author_id', 'text', (c) => c.notNull())
     .addColumn('created_at', 'text', (c) => c.notNull())
@@ -65,7 +67,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('activity')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('series_id', 'text', (c) => c.notNull().references('series.id').onDelete('cascade'))
     .addColumn('gag_id', 'text')
     .addColumn('pass_id', 'text')
@@ -93,7 +95,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('mail_log')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', autoId(db))
     .addColumn('to', 'text', (c) => c.notNull())
     .addColumn('subject', 'text', (c) => c.notNull())
     .addColumn('kind', 'text', (c) => c.notNull())

@@ -1,15 +1,17 @@
 import { type Kysely, sql } from 'kysely';
+import { byteOrdered, columnTypes } from '../dialect';
 
 // Volumes with their print spec and running order (fractional order keys, so a
 // move rewrites one row). A gag is placed at most once.
 export async function up(db: Kysely<any>): Promise<void> {
+  const t = columnTypes(db);
   await db.schema
     .createTable('volumes')
     .addColumn('id', 'text', (c) => c.primaryKey())
     .addColumn('series_id', 'text', (c) => c.notNull().references('series.id').onDelete('cascade'))
     .addColumn('title', 'text', (c) => c.notNull())
     .addColumn('deadline', 'text', (c) => c.notNull())
-    .addColumn('hours_per_week', 'real', (c) => c.notNull().defaultTo(6))
+    .addColumn('hours_per_week', t.float, (c) => c.notNull().defaultTo(6))
     .addColumn('spec', 'text', (c) => c.notNull())
     .addColumn('hours_per_page', 'text', (c) => c.notNull())
     .addColumn('created_at', 'text', (c) => c.notNull())
@@ -23,7 +25,7 @@ export async function up(db: Kysely<any>): Promise<void> {
       c.notNull().check(sql`kind in ('gag', 'cover', 'inside-cover', 'title', 'credits', 'blank', 'afterword', 'inside-back', 'back-cover')`),
     )
     .addColumn('gag_id', 'text', (c) => c.references('gags.id').onDelete('cascade'))
-    .addColumn('position', 'text', (c) => c.notNull())
+    .addColumn('position', 'text', (c) => byteOrdered(db)(c).notNull())
     .addColumn('created_at', 'text', (c) => c.notNull())
     .execute();
   await db.schema.createIndex('volume_entries_order_idx').on('volume_entries').columns(['volume_id', 'position']).execute();

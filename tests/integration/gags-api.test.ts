@@ -5,7 +5,7 @@ import * as gagsRoute from '@/app/api/series/[seriesId]/gags/route';
 import * as seriesRoute from '@/app/api/series/route';
 import * as usersRoute from '@/app/api/users/route';
 import { callRoute } from '../support/call-route';
-import { DEMO_SERIES_ID, freshDb } from '../support/test-db';
+import { DEMO_SERIES_ID, freshDb, testDbKind } from '../support/test-db';
 
 let db: Awaited<ReturnType<typeof freshDb>>;
 beforeAll(async () => {
@@ -21,7 +21,7 @@ async function gagRow(id: string) {
 describe('health', () => {
   it('answers ok with the database kind', async () => {
     const r = await callRoute(healthRoute.GET, {});
-    expect(r).toEqual({ status: 200, body: { ok: true, db: 'sqlite' } });
+    expect(r).toEqual({ status: 200, body: { ok: true, db: testDbKind() } });
   });
 });
 

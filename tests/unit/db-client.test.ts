@@ -2,7 +2,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { openSqlite, sqlitePathFromUrl } from '@/db/client';
+import { createDb, isPostgresUrl, openSqlite, sqlitePathFromUrl } from '@/db/client';
+import { kindOf } from '@/db/dialect';
 
 describe('DATABASE_URL', () => {
   it('resolves file: URLs, relative to the working directory or absolute', () => {
@@ -11,7 +12,20 @@ describe('DATABASE_URL', () => {
     expect(sqlitePathFromUrl('file:///tmp/q.sqlite')).toBe('/tmp/q.sqlite');
   });
   it('refuses other schemes with a clear message', () => {
-    expect(() => sqlitePathFromUrl('postgres://x')).toThrow(/file: URL/);
+    expect(() => sqlitePathFromUrl('mysql://x')).toThrow(/file: URL for SQLite or a postgres:\/\/ URL/);
+  });
+  it('selects PostgreSQL for postgres:// and postgresql:// URLs, SQLite for file:', async () => {
+    expect(isPostgresUrl('postgres://u@h:5432/q')).toBe(true);
+    expect(isPostgresUrl('postgresql://u@h/q')).toBe(true);
+    expect(isPostgresUrl('file:./q.sqlite')).toBe(false);
+    // The pool connects lazily, so nothing needs to listen on this port.
+    const pgDb = createDb('postgres://nobody@127.0.0.1:1/none');
+    expect(kindOf(pgDb)).toBe('postgres');
+    await pgDb.destroy();
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-kind-'));
+    const sqliteDb = createDb(`file:${path.join(dir, 'k.sqlite')}`);
+    expect(kindOf(sqliteDb)).toBe('sqlite');
+    await sqliteDb.destroy();
   });
 });
 

@@ -1,0 +1,61 @@
+// Everything that differs between SQLite and PostgreSQL lives here, so queries
+// and migrations stay one set for both. Migrations import only this file.
+import { type ColumnDefinitionBuilder, type Kysely, PostgresAdapter, type Transaction, sql } from 'kysely';
+
+export type DbKind = 'sqlite' | 'postgres';
+
+export function kindOf(db: Kysely<any> | Transaction<any>): DbKind {
+  return db.getExecutor().adapter instanceof PostgresAdapter ? 'postgres' : 'sqlite';
+}
+
+/**
+ * Column types that mean the same on both engines. On SQLite these are exactly
+ * the types the first migrations used, so an existing SQLite file sees no change.
+ * - float: an 8-byte float (PostgreSQL's `real` is only 4 bytes: mm and order keys would drift)
+ * - bytes: stroke points (BLOB / bytea)
+ * - epochMs: milliseconds since 1970 (beyond a 4-byte integer)
+ */
+export function columnTypes(db: Kysely<any>) {
+  const pg = kindOf(db) === 'postgres';
+  return {
+    float: pg ? ('double precision' as const) : ('real' as const),
+    bytes: pg ? ('bytea' as const) : ('blob' as const),
+    epochMs: pg ? ('bigint' as const) : ('integer' as const),
+  };
+}
+
+/** An integer primary key the database numbers itself (AUTOINCREMENT / identity). */
+export function autoId(db: Kysely<any>) {
+  const pg = kindOf(db) === 'postgres';
+  return (c: ColumnDefinitionBuilder) => (pg ? c.primaryKey().generatedByDefaultAsIdentity() : c.primaryKey().autoIncrement());
+}
+
+/**
+ * Text compared byte by byte (fractional order keys rely on ASCII order). SQLite's
+ * default collation is already binary; PostgreSQL's follows the cluster's locale.
+ */
+export function byteOrdered(db: Kysely<any>) {
+  const pg = kindOf(db) === 'postgres';
+  return (c: ColumnDefinitionBuilder) => (pg ? c.modifyFront(sql`collate "C"`) : c);
+}
+
+/**
+ * Takes the write lock on one row for the rest of the transaction, so writers
+ * of the same pass, volume or gag queue up and each sees the others' commits.
+ * SQLite needs nothing: one connection per process runs one transaction at a
+ * time, and write transactions begin IMMEDIATE (see db/client.ts).
+ */
+export async function lockRow(trx: Transaction<any>, table: 'passes' | 'volumes' | 'gags' | 'invitations' | 'series', id: string): Promise<void> {
+  if (kindOf(trx) !== 'postgres') return;
+  await sql`select 1 from ${sql.table(table)} where id = ${id} for update`.execute(trx);
+}
+
+/**
+ * Serialises work on an arbitrary key (e.g. sign-in attempts for one address)
+ * for the rest of the transaction: a transaction-scoped advisory lock on
+ * PostgreSQL; on SQLite the write transaction is already exclusive.
+ */
+export async function lockKey(trx: Transaction<any>, key: string): Promise<void> {
+  if (kindOf(trx) !== 'postgres') return;
+  await sql`select pg_advisory_xact_lock(hashtextextended(${key}, 0))`.execute(trx);
+}
