@@ -267,9 +267,14 @@ export interface MailLogTable {
   createdAt: Timestamp;
 }
 
-export interface PresenceTable {
-  scope: string;
+export interface PresenceTabsTable {
+  tabId: string;
   userId: string;
+  gagId: string;
+  /** "page", "compare" or "pass:N". */
+  where: string;
+  /** The panel (0–3) the person is working on in the editor, if any. */
+  panel: number | null;
   seenAt: Timestamp;
 }
 
@@ -339,7 +344,7 @@ export interface Database {
   activity: ActivityTable;
   invitations: InvitationsTable;
   mailLog: MailLogTable;
-  presence: PresenceTable;
+  presenceTabs: PresenceTabsTable;
   volumes: VolumesTable;
   volumeEntries: VolumeEntriesTable;
   uploads: UploadsTable;

@@ -59,3 +59,8 @@ export async function lockKey(trx: Transaction<any>, key: string): Promise<void>
   if (kindOf(trx) !== 'postgres') return;
   await sql`select pg_advisory_xact_lock(hashtextextended(${key}, 0))`.execute(trx);
 }
+
+/** `select … for update` on PostgreSQL; SQLite's IMMEDIATE transaction already holds the write lock. */
+export function forUpdate<QB extends { forUpdate(): QB }>(db: Kysely<any> | Transaction<any>, qb: QB): QB {
+  return kindOf(db) === 'postgres' ? qb.forUpdate() : qb;
+}

@@ -9,6 +9,7 @@ import * as m1100 from './2026_12_01_1100_create_review_loop';
 import * as m1200 from './2026_12_01_1200_create_volumes';
 import * as m1300 from './2026_12_01_1300_create_uploads';
 import * as m20900 from './2026_12_02_0900_create_lightboxes';
+import * as m21000 from './2026_12_02_1000_presence_per_tab';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_0900_create_users_and_series': m0900,
@@ -19,6 +20,7 @@ export const migrations: Record<string, Migration> = {
   '2026_12_01_1200_create_volumes': m1200,
   '2026_12_01_1300_create_uploads': m1300,
   '2026_12_02_0900_create_lightboxes': m20900,
+  '2026_12_02_1000_presence_per_tab': m21000,
 };
 
 export const migrationProvider: MigrationProvider = {

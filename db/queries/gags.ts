@@ -3,6 +3,7 @@
 import type { Kysely, Transaction } from 'kysely';
 import { BEAT_KINDS, type BeatKind, type GagStatus } from '@/lib/gags/status';
 import type { Database } from '../database';
+import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 
 export type BeatDto = { kind: BeatKind; note: string; updatedAt: string };
@@ -104,6 +105,8 @@ export async function createGag(
 ): Promise<GagDto> {
   const now = input.now ?? new Date().toISOString();
   await db.transaction().execute(async (trx) => {
+    // Two new gags at once must not share a board position.
+    await lockRow(trx, 'series', input.seriesId);
     const last = await trx
       .selectFrom('gags')
       .select((eb) => eb.fn.max('position').as('max'))

@@ -1,9 +1,10 @@
 // Members and invitations. An invitation link carries a random token; only its
 // SHA-256 is stored. It works once and for 7 days.
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
-import type { Kysely } from 'kysely';
+import type { Kysely, Transaction } from 'kysely';
 import type { Role } from '@/lib/auth/permissions';
 import type { Database } from '../database';
+import { forUpdate, lockRow } from '../dialect';
 import { recordActivity } from './activity';
 
 export const INVITATION_DAYS = 7;
@@ -80,7 +81,8 @@ export async function invitationByToken(db: Kysely<Database>, token: string) {
 
 export async function acceptInvitation(db: Kysely<Database>, token: string, userId: string, now = new Date()) {
   return db.transaction().execute(async (trx) => {
-    const inv = await trx.selectFrom('invitations').selectAll().where('tokenHash', '=', hashToken(token)).executeTakeFirst();
+    // Locked: two accepts of one link at once → one membership, one 410.
+    const inv = await forUpdate(trx, trx.selectFrom('invitations').selectAll().where('tokenHash', '=', hashToken(token))).executeTakeFirst();
     if (!inv || inv.revokedAt) throw new MemberRefused(404, 'This invitation does not exist.');
     if (inv.acceptedAt) throw new MemberRefused(410, 'This invitation has already been used.');
     if (Date.parse(inv.expiresAt) <= now.getTime()) throw new MemberRefused(410, 'This invitation has expired. Ask the owner for a new one.');
@@ -94,12 +96,20 @@ export async function acceptInvitation(db: Kysely<Database>, token: string, user
   });
 }
 
-async function ownerCount(db: Kysely<Database>, seriesId: string) {
+async function ownerCount(db: Kysely<Database> | Transaction<Database>, seriesId: string) {
   const r = await db.selectFrom('memberships').select((eb) => eb.fn.countAll<number>().as('n')).where('seriesId', '=', seriesId).where('role', '=', 'owner').executeTakeFirstOrThrow();
   return Number(r.n);
 }
 
 export async function changeRole(db: Kysely<Database>, seriesId: string, userId: string, role: Role) {
+  return db.transaction().execute(async (trx) => {
+    // Two owners demoting each other at once must not leave the series without one.
+    await lockRow(trx, 'series', seriesId);
+    await changeRoleLocked(trx, seriesId, userId, role);
+  });
+}
+
+async function changeRoleLocked(db: Transaction<Database>, seriesId: string, userId: string, role: Role) {
   const m = await db.selectFrom('memberships').select('role').where('seriesId', '=', seriesId).where('userId', '=', userId).executeTakeFirst();
   if (!m) throw new MemberRefused(404, 'Not a member of this series.');
   if (m.role === 'owner' && role !== 'owner' && (await ownerCount(db, seriesId)) <= 1) {
@@ -109,6 +119,13 @@ export async function changeRole(db: Kysely<Database>, seriesId: string, userId:
 }
 
 export async function removeMember(db: Kysely<Database>, seriesId: string, userId: string) {
+  return db.transaction().execute(async (trx) => {
+    await lockRow(trx, 'series', seriesId);
+    await removeMemberLocked(trx, seriesId, userId);
+  });
+}
+
+async function removeMemberLocked(db: Transaction<Database>, seriesId: string, userId: string) {
   const m = await db.selectFrom('memberships').select('role').where('seriesId', '=', seriesId).where('userId', '=', userId).executeTakeFirst();
   if (!m) throw new MemberRefused(404, 'Not a member of this series.');
   if (m.role === 'owner' && (await ownerCount(db, seriesId)) <= 1) {

@@ -12,6 +12,7 @@ import { decodePoints, encodePoints } from '@/lib/strokes/codec';
 import { pointsBounds } from '@/lib/strokes/hit';
 import { type Lightbox, type Op, type Room, type Stroke, translatePoints } from '@/lib/strokes/types';
 import type { Database, RevisionReason } from '../database';
+import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 import { LIGHTBOXES, ROOMS, copyItems, itemsDelta, liveItems, removeItem, restoreItems, upsertItem } from './pass-items';
 import { passWithGag } from './pass-info';
@@ -212,6 +213,8 @@ export async function createPass(
   input: { gagId: string; userId: string; copyFrom?: number },
 ): Promise<{ id: string; number: number }> {
   return db.transaction().execute(async (trx) => {
+    // Two new passes at once must not both take number max + 1.
+    await lockRow(trx, 'gags', input.gagId);
     const last = await trx
       .selectFrom('passes')
       .select((eb) => eb.fn.max('number').as('max'))
@@ -321,15 +324,19 @@ async function applyOp(trx: Transaction<Database>, passId: string, seq: number, 
 export async function applyBatch(
   db: Kysely<Database>,
   input: { passId: string; batchId: string; ops: Op[]; userId: string; spec: PageSpec; now?: Date },
-): Promise<{ seq: number; replayed: boolean }> {
+): Promise<{ seq: number; replayed: boolean; stampCleared: boolean }> {
   return db.transaction().execute(async (trx) => {
+    // Writers of one pass queue here, so each batch takes the next seq (no gap, no
+    // duplicate), seqs commit in order (a since=seq read cannot miss a lower one),
+    // and a retry racing its original sees the original's row below.
+    await lockRow(trx, 'passes', input.passId);
     const seen = await trx
       .selectFrom('passBatches')
       .select('result')
       .where('passId', '=', input.passId)
       .where('batchId', '=', input.batchId)
       .executeTakeFirst();
-    if (seen) return { ...(JSON.parse(seen.result) as { seq: number }), replayed: true };
+    if (seen) return { ...(JSON.parse(seen.result) as { seq: number }), replayed: true, stampCleared: false };
 
     const pass = await trx.selectFrom('passes').select(['seq', 'updatedAt']).where('id', '=', input.passId).executeTakeFirstOrThrow();
     const now = input.now ?? new Date();
@@ -349,14 +356,14 @@ export async function applyBatch(
       await addRevision(trx, input.passId, seq, 'steady', input.userId);
     }
 
-    await clearStampOnChange(trx, input.passId, seq, input.userId);
+    const stampCleared = await clearStampOnChange(trx, input.passId, seq, input.userId);
     const result = { seq };
     await trx.updateTable('passes').set({ seq, updatedAt: now.toISOString() }).where('id', '=', input.passId).execute();
     await trx
       .insertInto('passBatches')
       .values({ passId: input.passId, batchId: input.batchId, seq, userId: input.userId, opCount: input.ops.length, result: JSON.stringify(result), createdAt: now.toISOString() })
       .execute();
-    return { ...result, replayed: false };
+    return { ...result, replayed: false, stampCleared };
   });
 }
 
@@ -390,6 +397,7 @@ export async function restoreRevision(
       .where('passId', '=', input.passId)
       .executeTakeFirst();
     if (!rev) return null;
+    await lockRow(trx, 'passes', input.passId);
     const pass = await trx.selectFrom('passes').select(['seq']).where('id', '=', input.passId).executeTakeFirstOrThrow();
     const seq = pass.seq + 1;
     const hasCurrent = await trx

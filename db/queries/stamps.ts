@@ -4,6 +4,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Kysely, Transaction } from 'kysely';
 import type { Database, StampDecision } from '../database';
+import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 import { passWithGag } from './pass-info';
 
@@ -31,8 +32,13 @@ export async function stampPass(
   input: { passId: string; userId: string; decision: StampDecision; note: string },
 ): Promise<StampDto> {
   const id = await db.transaction().execute(async (trx) => {
+    // Stamps and batches on one pass queue on its row: a stamp never names a seq a concurrent batch has passed.
+    await lockRow(trx, 'passes', input.passId);
     const pass = await passWithGag(trx, input.passId);
     if (!pass) throw new Error(`No pass ${input.passId}.`);
+    // …and stamps of one gag queue on the gag (pass before gag, as a batch that clears a stamp does),
+    // so two stamps at once leave one "ready" standing.
+    await lockRow(trx, 'gags', pass.gagId);
     if (!STAMPABLE.has(pass.status)) {
       throw new StampRefused(`This gag is already past "ready to ink" (it is ${pass.status.replace(/_/g, ' ')}); move it back before stamping a pass.`);
     }

@@ -1,6 +1,7 @@
 // Users and the sign-in failure log. Plain functions taking db or trx.
 import type { Kysely } from 'kysely';
 import type { Database, User } from '../database';
+import { lockKey } from '../dialect';
 
 export async function findUserByEmail(db: Kysely<Database>, email: string): Promise<User | undefined> {
   return db.selectFrom('users').selectAll().where('email', '=', email.toLowerCase()).executeTakeFirst();
@@ -39,4 +40,21 @@ export async function recordFailure(db: Kysely<Database>, email: string, atMs: n
 
 export async function clearFailures(db: Kysely<Database>, email: string): Promise<void> {
   await db.deleteFrom('signInFailures').where('email', '=', email.toLowerCase()).execute();
+}
+
+/** Counts and records one attempt in one step, under a per-address lock; false when `max` are already in the window. */
+export async function claimAttemptSlot(db: Kysely<Database>, email: string, atMs: number, sinceMs: number, max: number): Promise<boolean> {
+  const address = email.toLowerCase();
+  return db.transaction().execute(async (trx) => {
+    await lockKey(trx, `sign-in:${address}`);
+    const row = await trx
+      .selectFrom('signInFailures')
+      .select((eb) => eb.fn.countAll<number>().as('n'))
+      .where('email', '=', address)
+      .where('at', '>=', sinceMs)
+      .executeTakeFirstOrThrow();
+    if (Number(row.n) >= max) return false;
+    await trx.insertInto('signInFailures').values({ email: address, at: atMs }).execute();
+    return true;
+  });
 }

@@ -1,11 +1,12 @@
 // Volumes, their running order and what follows from it (flatplan, plan).
 import { randomUUID } from 'node:crypto';
 import { generateKeyBetween } from 'fractional-indexing';
-import type { Kysely, Selectable } from 'kysely';
+import type { Kysely, Selectable, Transaction } from 'kysely';
 import { type GagStatus } from '@/lib/gags/status';
 import { DEFAULT_VOLUME_SPEC, type Spread, type VolumeSpec, blankSuggestion, blanksNeeded, pageCountValid, printerSpreads, readerSpreads, sheetsNeeded, spineMm } from '@/lib/print/book';
 import { DEFAULT_HOURS, type Stage, plan } from '@/lib/planning/plan';
 import type { Database, EntryKind, VolumesTable } from '../database';
+import { lockRow } from '../dialect';
 
 export type VolumeDto = {
   id: string;
@@ -112,7 +113,7 @@ export async function listEntries(db: Kysely<Database>, volumeId: string): Promi
   });
 }
 
-async function lastKey(db: Kysely<Database>, volumeId: string): Promise<string | null> {
+async function lastKey(db: Kysely<Database> | Transaction<Database>, volumeId: string): Promise<string | null> {
   const row = await db.selectFrom('volumeEntries').select('position').where('volumeId', '=', volumeId).orderBy('position', 'desc').limit(1).executeTakeFirst();
   return row?.position ?? null;
 }
@@ -120,6 +121,16 @@ async function lastKey(db: Kysely<Database>, volumeId: string): Promise<string |
 /** Appends a gag page or a matter page at the end of the running order. */
 export async function addEntry(db: Kysely<Database>, volumeId: string, seriesId: string, input: { gagId?: string; kind?: EntryKind }): Promise<EntryDto> {
   const id = randomUUID();
+  await db.transaction().execute(async (trx) => {
+    // Appends to one volume queue (distinct last keys); placing one gag twice at once → one 409.
+    await lockRow(trx, 'volumes', volumeId);
+    if (input.gagId) await lockRow(trx, 'gags', input.gagId);
+    await addEntryLocked(trx, id, volumeId, seriesId, input);
+  });
+  return (await listEntries(db, volumeId)).find((e) => e.id === id)!;
+}
+
+async function addEntryLocked(db: Transaction<Database>, id: string, volumeId: string, seriesId: string, input: { gagId?: string; kind?: EntryKind }) {
   if (input.gagId) {
     const gag = await db.selectFrom('gags').select(['seriesId']).where('id', '=', input.gagId).executeTakeFirst();
     if (!gag || gag.seriesId !== seriesId) throw new VolumeRefused(422, 'That gag is not in this series.');
@@ -131,7 +142,6 @@ export async function addEntry(db: Kysely<Database>, volumeId: string, seriesId:
     .insertInto('volumeEntries')
     .values({ id, volumeId, kind: input.gagId ? 'gag' : input.kind!, gagId: input.gagId ?? null, position, createdAt: new Date().toISOString() })
     .execute();
-  return (await listEntries(db, volumeId)).find((e) => e.id === id)!;
 }
 
 export async function removeEntry(db: Kysely<Database>, volumeId: string, entryId: string): Promise<boolean> {
@@ -145,6 +155,8 @@ export async function removeEntry(db: Kysely<Database>, volumeId: string, entryI
  */
 export async function moveEntry(db: Kysely<Database>, volumeId: string, entryId: string, to: { before?: string; after?: string }) {
   return db.transaction().execute(async (trx) => {
+    // Moves in one volume queue: two at once never compute a key from the same neighbours.
+    await lockRow(trx, 'volumes', volumeId);
     const me = await trx.selectFrom('volumeEntries').select(['id', 'position']).where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
     if (!me) throw new VolumeRefused(404, 'Not found.');
     const anchorId = to.after ?? to.before!;

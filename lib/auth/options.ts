@@ -8,7 +8,7 @@ import { findUserByEmail } from '@/db/queries/users';
 import { signInSchema } from '@/lib/validation/account';
 import { dummyHash, verifyPassword } from './password';
 import { authSecret } from './secret';
-import { isThrottled, noteFailure, noteSuccess } from './throttle';
+import { claimAttempt, noteSuccess } from './throttle';
 
 export const authOptions: NextAuthOptions = {
   secret: authSecret(),
@@ -26,14 +26,12 @@ export const authOptions: NextAuthOptions = {
         if (!parsed.success) return null;
         const { email, password } = parsed.data;
         const db = await getDb();
-        // The route handler answers 429 before we get here; this is the second lock.
-        if (await isThrottled(db, email)) throw new Error('TooManyAttempts');
+        // The route handler answers 429 before we get here; this is the lock that holds in parallel:
+        // the attempt is counted (as a failure until it succeeds) before the password is checked.
+        if (!(await claimAttempt(db, email))) throw new Error('TooManyAttempts');
         const user = await findUserByEmail(db, email);
         const ok = await verifyPassword(password, user?.passwordHash ?? (await dummyHash()));
-        if (!user || !ok) {
-          await noteFailure(db, email);
-          return null;
-        }
+        if (!user || !ok) return null;
         await noteSuccess(db, email);
         return { id: user.id, email: user.email, name: user.name };
       },

@@ -29,6 +29,9 @@ import * as meRoute from '@/app/api/me/route';
 import { createInvitation } from '@/db/queries/members';
 import * as stampsRoute from '@/app/api/gags/[gagId]/stamps/route';
 import * as presenceRoute from '@/app/api/gags/[gagId]/presence/route';
+import * as gagEventsRoute from '@/app/api/gags/[gagId]/events/route';
+import * as passEventsRoute from '@/app/api/passes/[passId]/events/route';
+import * as seriesEventsRoute from '@/app/api/series/[seriesId]/events/route';
 import { createSeries } from '@/db/queries/series';
 import * as volumesRoute from '@/app/api/series/[seriesId]/volumes/route';
 import * as volumeRoute from '@/app/api/volumes/[volumeId]/route';
@@ -309,6 +312,21 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
+    route: 'GET /api/gags/:gagId/events', handler: gagEventsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { gagId: await newGag() } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/passes/:passId/events', handler: passEventsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { passId: (await newPass()).passId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/series/:seriesId/events', handler: seriesEventsRoute.GET, method: 'GET',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
     route: 'GET /api/series/:seriesId/volumes', handler: volumesRoute.GET, method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
@@ -472,7 +490,7 @@ async function snapshot() {
     comments: await db.selectFrom('comments').selectAll().orderBy('id').execute(),
     invitations: await db.selectFrom('invitations').selectAll().orderBy('id').execute(),
     notify: await db.selectFrom('users').select(['id', 'notifyEmail']).orderBy('id').execute(),
-    presence: await db.selectFrom('presence').selectAll().orderBy('scope').orderBy('userId').execute(),
+    presence: await db.selectFrom('presenceTabs').selectAll().orderBy('tabId').orderBy('userId').execute(),
     volumes: await db.selectFrom('volumes').selectAll().orderBy('id').execute(),
     entries: await db.selectFrom('volumeEntries').selectAll().orderBy('id').execute(),
     uploads: await db.selectFrom('uploads').select(['id', 'sha256']).orderBy('id').execute(),

@@ -75,14 +75,16 @@ describe('comments', () => {
 });
 
 describe('presence', () => {
-  it('a heartbeat says who is where; quiet people drop off after 20 s', async () => {
+  it('a heartbeat says who is where and on which panel; quiet people drop off after 20 s', async () => {
     const { POST, GET } = await import('@/app/api/gags/[gagId]/presence/route');
     await callRoute(POST, { method: 'POST', as: 'editor', params: { gagId: GAG }, body: { where: 'compare' } });
-    const r = await callRoute(POST, { method: 'POST', as: 'owner', params: { gagId: GAG }, body: { where: 'pass:2' } });
-    expect(r.body.map((p: { name: string; scope: string }) => `${p.name}@${p.scope.split(':').slice(1).join(':')}`).sort()).toEqual(['Ivo Sand@compare', 'Nell Harrow@pass:2']);
+    const r = await callRoute(POST, { method: 'POST', as: 'owner', params: { gagId: GAG }, body: { where: 'pass:2', tab: 'tab-a', panel: 3 } });
+    expect(r.body.map((p: { name: string; where: string; panel: number | null }) => `${p.name}@${p.where}/${p.panel}`).sort()).toEqual(['Ivo Sand@compare/null', 'Nell Harrow@pass:2/3']);
     const bad = await callRoute(POST, { method: 'POST', as: 'owner', params: { gagId: GAG }, body: { where: 'kitchen' } });
     expect(bad.status).toBe(422);
-    await db.updateTable('presence').set({ seenAt: new Date(Date.now() - 21_000).toISOString() }).where('userId', '=', 'demo-user-editor').execute();
+    const badTab = await callRoute(POST, { method: 'POST', as: 'owner', params: { gagId: GAG }, body: { where: 'page', tab: 'no spaces' } });
+    expect(badTab.status).toBe(422);
+    await db.updateTable('presenceTabs').set({ seenAt: new Date(Date.now() - 21_000).toISOString() }).where('userId', '=', 'demo-user-editor').execute();
     const later = await callRoute(GET, { as: 'viewer', params: { gagId: GAG } });
     expect(later.body.map((p: { name: string }) => p.name)).toEqual(['Nell Harrow']);
   });

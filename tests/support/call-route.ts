@@ -27,6 +27,13 @@ export async function callRoute(
   if (body !== undefined && !opts.form) headers.set('content-type', 'application/json');
   const req = new Request(`http://localhost${opts.url ?? '/'}`, { method: opts.method ?? 'GET', headers, body });
   const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
+  if ((res.headers.get('content-type') ?? '').startsWith('text/event-stream')) {
+    // A live stream never ends by itself: take its first chunk, then hang up as a browser tab would.
+    const reader = res.body!.getReader();
+    const { value } = await reader.read();
+    await reader.cancel();
+    return { status: res.status, body: new TextDecoder().decode(value) };
+  }
   const text = await res.text();
   const json = (res.headers.get('content-type') ?? '').includes('json');
   return { status: res.status, body: text && json ? JSON.parse(text) : text || null };

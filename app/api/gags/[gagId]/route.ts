@@ -4,6 +4,7 @@ import { checkManualMove } from '@/lib/gags/status';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { updateGagSchema } from '@/lib/validation/gag';
 import { byGagId } from '@/lib/http/series-of';
+import { gagChanged } from '@/lib/live/events';
 
 type Params = { gagId: string };
 const seriesOf = byGagId;
@@ -13,7 +14,7 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params 
 );
 
 /** Any of title, premise, status, beats. Status moves follow lib/gags/status. */
-export const PATCH = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params }) => {
+export const PATCH = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, seriesId }) => {
   const patch = await parseBody(req, updateGagSchema);
   await db.transaction().execute(async (trx) => {
     const current = await trx.selectFrom('gags').select('status').where('id', '=', params.gagId).executeTakeFirst();
@@ -26,6 +27,7 @@ export const PATCH = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, 
     }
     await updateGag(trx, params.gagId, patch);
   });
+  await gagChanged(seriesId, params.gagId, ['gag'], ['gags']);
   return Response.json(await findGag(db, params.gagId));
 });
 
@@ -36,5 +38,6 @@ export const DELETE = withSeriesRole<Params>('manage', seriesOf, async ({ db, pa
     await deleteGag(trx, params.gagId);
     await recordActivity(trx, { seriesId, userId: user.id, kind: 'gag.deleted', summary: `deleted the gag “${gag?.title ?? ''}”` });
   });
+  await gagChanged(seriesId, params.gagId, ['gag'], ['gags', 'activity']);
   return new Response(null, { status: 204 });
 });

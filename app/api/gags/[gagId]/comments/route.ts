@@ -4,6 +4,7 @@ import { notifyMentions } from '@/lib/mail/notify';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { commentCreateSchema } from '@/lib/validation/review';
 import { byGagId } from '@/lib/http/series-of';
+import { gagChanged } from '@/lib/live/events';
 
 type Params = { gagId: string };
 const seriesOf = byGagId;
@@ -16,6 +17,7 @@ export const POST = withSeriesRole<Params>('comment', seriesOf, async ({ req, db
   const input = await parseBody(req, commentCreateSchema);
   try {
     const comment = await createComment(db, { ...input, gagId: params.gagId, seriesId, authorId: user.id });
+    await gagChanged(seriesId, params.gagId, ['comments'], ['activity']);
     const gag = await findGag(db, params.gagId);
     const mentioned = await mentionedMembers(db, seriesId, input.body);
     if (gag && mentioned.length) await notifyMentions(db, { userIds: mentioned, author: user, gag: { id: gag.id, seriesId, title: gag.title }, body: input.body });

@@ -2,6 +2,8 @@ import { passChecklist, setTicks } from '@/db/queries/review';
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { checklistPutSchema } from '@/lib/validation/review';
 import { byPassId } from '@/lib/http/series-of';
+import { passWithGag } from '@/db/queries/pass-info';
+import { gagChanged } from '@/lib/live/events';
 
 type Params = { passId: string };
 const seriesOf = byPassId;
@@ -16,5 +18,6 @@ export const PUT = withSeriesRole<Params>('comment', seriesOf, async ({ req, db,
   const input = await parseBody(req, checklistPutSchema);
   const problem = await setTicks(db, seriesId, params.passId, user.id, input.ticked);
   if (problem) throw new HttpError(422, problem);
+  await gagChanged(seriesId, (await passWithGag(db, params.passId))!.gagId, ['checklist']);
   return Response.json(await passChecklist(db, seriesId, params.passId));
 });

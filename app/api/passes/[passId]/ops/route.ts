@@ -6,6 +6,8 @@ import { MAX_BATCH_BYTES, type Op } from '@/lib/strokes/types';
 import { batchSchema, checkOpsInside } from '@/lib/validation/pass';
 import { byPassId } from '@/lib/http/series-of';
 import { uploadsInSeries } from '@/db/queries/uploads';
+import { passWithGag } from '@/db/queries/pass-info';
+import { passChanged } from '@/lib/live/events';
 
 type Params = { passId: string };
 const seriesOf = byPassId;
@@ -22,7 +24,11 @@ export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, p
     if (missing) throw new HttpError(422, `There is no upload ${missing} in this series to place as a lightbox.`);
   }
   try {
-    const { seq } = await applyBatch(db, { passId: params.passId, batchId: batch.batchId, ops: batch.ops as Op[], userId: user.id, spec });
+    const { seq, replayed, stampCleared } = await applyBatch(db, { passId: params.passId, batchId: batch.batchId, ops: batch.ops as Op[], userId: user.id, spec });
+    if (!replayed) {
+      const gagId = (await passWithGag(db, params.passId))!.gagId;
+      await passChanged({ seriesId, gagId, passId: params.passId, seq, stampCleared });
+    }
     return Response.json({ seq });
   } catch (err) {
     if (err instanceof OpRefused) throw new HttpError(422, err.message);

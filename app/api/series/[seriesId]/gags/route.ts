@@ -3,6 +3,7 @@ import { createGag, listGags } from '@/db/queries/gags';
 import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { createGagSchema } from '@/lib/validation/gag';
 import { bySeriesId } from '@/lib/http/series-of';
+import { seriesChanged } from '@/lib/live/events';
 
 type Params = { seriesId: string };
 const seriesOf = bySeriesId;
@@ -14,5 +15,6 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesI
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, seriesId, user }) => {
   const input = await parseBody(req, createGagSchema);
   const gag = await createGag(db, { id: randomUUID(), seriesId, title: input.title, premise: input.premise, createdBy: user.id });
+  await seriesChanged(seriesId, ['gags', 'activity'], [gag.id]);
   return Response.json(gag, { status: 201 });
 });

@@ -2,6 +2,7 @@ import { MemberRefused, changeRole, listMembers, removeMember } from '@/db/queri
 import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
 import { roleSchema } from '@/lib/validation/members';
 import { bySeriesId } from '@/lib/http/series-of';
+import { accessChanged } from '@/lib/live/events';
 
 type Params = { seriesId: string; userId: string };
 const seriesOf = bySeriesId;
@@ -15,11 +16,13 @@ function refused(err: unknown): never {
 export const PATCH = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId, params }) => {
   const { role } = await parseBody(req, roleSchema);
   await changeRole(db, seriesId, params.userId, role).catch(refused);
+  await accessChanged(seriesId, params.userId);
   return Response.json((await listMembers(db, seriesId)).find((m) => m.userId === params.userId));
 });
 
 /** Owners remove a member; never the last owner. */
 export const DELETE = withSeriesRole<Params>('manage', seriesOf, async ({ db, seriesId, params }) => {
   await removeMember(db, seriesId, params.userId).catch(refused);
+  await accessChanged(seriesId, params.userId);
   return new Response(null, { status: 204 });
 });
