@@ -1,7 +1,8 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // better-sqlite3 is a native addon; it must stay a plain Node require on the server.
-  serverExternalPackages: ['better-sqlite3', 'smtp-server', 'mailparser', 'nodemailer', 's3rver', 'sharp'],
+  // kysely and pg too: one copy per process, shared by every route and the instrumentation hook.
+  serverExternalPackages: ['better-sqlite3', 'kysely', 'pg', 'smtp-server', 'mailparser', 'nodemailer', 's3rver', 'sharp'],
   poweredByHeader: false,
   // Let the dev server be opened as 127.0.0.1 as well as localhost.
   allowedDevOrigins: ['127.0.0.1'],

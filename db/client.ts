@@ -8,7 +8,7 @@ import SqliteDatabase from 'better-sqlite3';
 import { CamelCasePlugin, CompiledQuery, type DatabaseConnection, Kysely, Migrator, PostgresDialect, SqliteDialect, SqliteDriver } from 'kysely';
 import pg from 'pg';
 import type { Database } from './database';
-import { type DbKind, kindOf } from './dialect';
+import { type DbKind, kindOf, markAdapter } from './dialect';
 import { migrationProvider } from './migrations';
 
 export const DEFAULT_DATABASE_URL = 'file:./data/quadrille.sqlite';
@@ -57,6 +57,15 @@ class ImmediateSqliteDialect extends SqliteDialect {
   override createDriver() {
     return new ImmediateSqliteDriver(this.sqliteConfig);
   }
+  override createAdapter() {
+    return markAdapter(super.createAdapter(), 'sqlite');
+  }
+}
+
+class MarkedPostgresDialect extends PostgresDialect {
+  override createAdapter() {
+    return markAdapter(super.createAdapter(), 'postgres');
+  }
 }
 
 // pg returns 64-bit integers (count(*), bigint columns) and numerics (sum) as
@@ -73,7 +82,7 @@ export function createPgPool(url: string): pg.Pool {
 
 export function createDb(url = process.env.DATABASE_URL || DEFAULT_DATABASE_URL): Kysely<Database> {
   const dialect = isPostgresUrl(url)
-    ? new PostgresDialect({ pool: createPgPool(url) })
+    ? new MarkedPostgresDialect({ pool: createPgPool(url) })
     : new ImmediateSqliteDialect({ database: openSqlite(sqlitePathFromUrl(url)) });
   return new Kysely<Database>({ dialect, plugins: [new CamelCasePlugin()] });
 }

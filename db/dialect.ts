@@ -4,8 +4,21 @@ import { type ColumnDefinitionBuilder, type Kysely, PostgresAdapter, type Transa
 
 export type DbKind = 'sqlite' | 'postgres';
 
+const KIND = Symbol.for('quadrille.dbKind');
+
+/**
+ * Marks an adapter with its engine. A production build may hold more than one
+ * copy of kysely (one per server bundle), so `instanceof PostgresAdapter` alone
+ * can answer wrong for a database opened by another bundle; the mark cannot.
+ */
+export function markAdapter<A extends object>(adapter: A, kind: DbKind): A {
+  Object.defineProperty(adapter, KIND, { value: kind });
+  return adapter;
+}
+
 export function kindOf(db: Kysely<any> | Transaction<any>): DbKind {
-  return db.getExecutor().adapter instanceof PostgresAdapter ? 'postgres' : 'sqlite';
+  const adapter = db.getExecutor().adapter as unknown as { [KIND]?: DbKind };
+  return adapter[KIND] ?? (adapter instanceof PostgresAdapter ? 'postgres' : 'sqlite');
 }
 
 /**

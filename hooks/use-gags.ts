@@ -1,18 +1,20 @@
 'use client';
-import useSWR from 'swr';
+import { useLiveSWR } from '@/hooks/use-live';
 import type { GagDto } from '@/db/queries/gags';
 import { api, fetcher } from '@/lib/http/client';
 import type { CreateGagInput } from '@/lib/validation/gag';
 
 export function useGags(seriesId: string | null, fallbackData?: GagDto[]) {
-  const { data, error, isLoading, mutate } = useSWR<GagDto[]>(
-    seriesId ? `/api/series/${seriesId}/gags` : null,
-    fetcher,
-    { fallbackData },
-  );
+  // Others' new gags, moves and status changes arrive through the board's stream.
+  const { data, error, isLoading, mutate } = useLiveSWR<GagDto[]>(seriesId ? `/api/series/${seriesId}/gags` : null, fetcher, {
+    fallbackData,
+    types: ['gags'],
+    pollMs: 10_000,
+  });
   async function createGag(input: CreateGagInput) {
     const gag = await api<GagDto>(`/api/series/${seriesId}/gags`, { method: 'POST', json: input });
-    await mutate((list) => [...(list ?? []), gag], { revalidate: false });
+    // The board's stream may have brought the new gag in already.
+    await mutate((list) => [...(list ?? []).filter((g) => g.id !== gag.id), gag], { revalidate: false });
     return gag;
   }
   return { data, error, isLoading, mutate, createGag };

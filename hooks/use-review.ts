@@ -1,19 +1,20 @@
 'use client';
-// SWR hooks for the review loop. Live data polls every 2 s (others' comments,
-// stamps and ticks appear without a reload).
+// SWR hooks for the review loop. Live data follows the page's stream (others'
+// comments, stamps and ticks appear as they land); without one it polls every 2 s.
 import useSWR from 'swr';
+import { useLive, useLiveSWR } from '@/hooks/use-live';
 import type { CommentDto, ThreadDto } from '@/db/queries/comments';
 import type { MemberDto } from '@/db/queries/members';
+import type { PresenceDto } from '@/db/queries/presence';
 import type { ChecklistItemDto } from '@/db/queries/review';
 import type { StampDto } from '@/db/queries/stamps';
 import type { ActivityDto } from '@/db/queries/activity';
 import { api, fetcher } from '@/lib/http/client';
 import type { Findings } from '@/lib/review/findings';
 
-const LIVE = { refreshInterval: 2000 };
 
 export function useChecklist(passId: string | null) {
-  const swr = useSWR<ChecklistItemDto[]>(passId ? `/api/passes/${passId}/checklist` : null, fetcher, LIVE);
+  const swr = useLiveSWR<ChecklistItemDto[]>(passId ? `/api/passes/${passId}/checklist` : null, fetcher, { types: ['checklist'], pollMs: 2000 });
   async function setTicked(ids: string[]) {
     const next = await api<ChecklistItemDto[]>(`/api/passes/${passId}/checklist`, { method: 'PUT', json: { ticked: ids } });
     await swr.mutate(next, { revalidate: false });
@@ -22,11 +23,11 @@ export function useChecklist(passId: string | null) {
 }
 
 export function useFindings(passId: string | null, seq?: number) {
-  return useSWR<Findings>(passId ? `/api/passes/${passId}/findings${seq !== undefined ? `?v=${seq}` : ''}` : null, fetcher, { refreshInterval: 5000 });
+  return useLiveSWR<Findings>(passId ? `/api/passes/${passId}/findings${seq !== undefined ? `?v=${seq}` : ''}` : null, fetcher, { types: ['passes', 'gag'], pollMs: 5000 });
 }
 
 export function useStamps(gagId: string | null) {
-  const swr = useSWR<StampDto[]>(gagId ? `/api/gags/${gagId}/stamps` : null, fetcher, LIVE);
+  const swr = useLiveSWR<StampDto[]>(gagId ? `/api/gags/${gagId}/stamps` : null, fetcher, { types: ['stamps'], pollMs: 2000 });
   async function stamp(passId: string, decision: 'ready' | 'again', note: string) {
     const s = await api<StampDto>(`/api/passes/${passId}/stamp`, { method: 'POST', json: { decision, note } });
     await swr.mutate();
@@ -36,7 +37,7 @@ export function useStamps(gagId: string | null) {
 }
 
 export function useComments(gagId: string | null) {
-  const swr = useSWR<ThreadDto[]>(gagId ? `/api/gags/${gagId}/comments` : null, fetcher, LIVE);
+  const swr = useLiveSWR<ThreadDto[]>(gagId ? `/api/gags/${gagId}/comments` : null, fetcher, { types: ['comments'], pollMs: 2000 });
   async function post(body: Record<string, unknown>) {
     const c = await api<CommentDto>(`/api/gags/${gagId}/comments`, { method: 'POST', json: body });
     await swr.mutate();
@@ -49,15 +50,20 @@ export function useComments(gagId: string | null) {
   return { ...swr, post, patch };
 }
 
-export type Presence = { userId: string; name: string; scope: string; seenAt: string };
+export type Presence = PresenceDto;
 
-/** Sends a heartbeat every 5 s and returns who else is on this gag. */
-export function usePresence(gagId: string | null, where: string) {
-  return useSWR<Presence[]>(
-    gagId ? [`/api/gags/${gagId}/presence`, where] : null,
-    ([url]: [string]) => api<Presence[]>(url, { method: 'POST', json: { where } }),
+/**
+ * Who is on this gag, and where. The page's stream carries it (and keeps this
+ * tab's place); without a stream, a heartbeat every 5 s does.
+ */
+export function usePresence(gagId: string | null, where: string): { data: Presence[] | undefined } {
+  const live = useLive();
+  const polled = useSWR<Presence[]>(
+    gagId && !live.connected ? [`/api/gags/${gagId}/presence`, where, live.tab] : null,
+    ([url]: [string]) => api<Presence[]>(url, { method: 'POST', json: { where, tab: live.tab } }),
     { refreshInterval: 5000, revalidateOnFocus: true },
   );
+  return { data: live.connected && live.presence ? live.presence : polled.data };
 }
 
 export function useMembers(seriesId: string | null) {
@@ -65,5 +71,5 @@ export function useMembers(seriesId: string | null) {
 }
 
 export function useActivity(seriesId: string) {
-  return useSWR<{ items: ActivityDto[]; nextBefore: number | null }>(`/api/series/${seriesId}/activity?limit=15`, fetcher, { refreshInterval: 5000 });
+  return useLiveSWR<{ items: ActivityDto[]; nextBefore: number | null }>(`/api/series/${seriesId}/activity?limit=15`, fetcher, { types: ['activity'], pollMs: 5000 });
 }

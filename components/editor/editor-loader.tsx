@@ -1,6 +1,7 @@
 'use client';
 // Konva needs a browser: the editor is loaded on the client only.
 import dynamic from 'next/dynamic';
+import { LiveProvider } from '@/components/live/live-provider';
 import type { EditorProps } from './editor';
 
 const Editor = dynamic(() => import('./editor'), {
@@ -12,6 +13,11 @@ const Editor = dynamic(() => import('./editor'), {
   ),
 });
 
+/** The editor inside its pass's live stream (others' strokes, comments, who is on which panel). */
 export function EditorLoader(props: EditorProps) {
-  return <Editor {...props} />;
+  return (
+    <LiveProvider url={`/api/passes/${props.passId}/events`} gagId={props.gagId} where={`pass:${props.passNumber}`}>
+      <Editor {...props} />
+    </LiveProvider>
+  );
 }

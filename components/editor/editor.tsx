@@ -10,6 +10,7 @@ import useSWR from 'swr';
 import { Circle, Ellipse, Group, Image as KImage, Layer, Rect, Shape, Stage, Text, Transformer } from 'react-konva';
 import { CommentsPanel } from '@/components/review/comments-panel';
 import { PresenceBar } from '@/components/review/presence-bar';
+import { useLive, useLiveEvents } from '@/hooks/use-live';
 import { useComments, useFindings } from '@/hooks/use-review';
 import { type PageSpec, type Rect as MmRect, bleedBox, panelAt, panelRects, safeBox } from '@/lib/print/geometry';
 import { type View, fitView, toPage, zoomAt } from '@/lib/print/view';
@@ -189,6 +190,11 @@ export default function Editor(props: EditorProps) {
     // The pass is fixed for the life of this component (the page remounts per pass).
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
+
+  // Others' strokes: the page's live stream says when the pass has a new seq.
+  const live = useLive();
+  useEffect(() => syncRef.current?.setLive(live.connected), [live.connected]);
+  useLiveEvents((e) => syncRef.current?.onLive(e));
 
   useEffect(() => {
     const el = wrapRef.current;
@@ -425,6 +431,7 @@ export default function Editor(props: EditorProps) {
           };
           // O(1): draw into the panel's bitmap; no redraw of the other strokes.
           sync.commit([{ op: 'add', stroke }], { emit: false });
+          live.setPanel(stroke.panel);
           rasters.drawStroke(stroke);
           strokesLayerRef.current?.batchDraw();
           setStrokeCount(sync.doc.strokes.size);

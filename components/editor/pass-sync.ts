@@ -1,6 +1,7 @@
 // Keeps one pass in step with the server: applies local operations at once
 // (optimistic), saves them through the persistent outbox, sends batches one at
-// a time, and polls for everyone else's changes every second.
+// a time, and reads everyone else's changes (?since=seq) when the page's live
+// stream announces a new seq or (re)opens. Without a stream it polls every second.
 import { nanoid } from 'nanoid';
 import { Outbox } from '@/lib/strokes/outbox';
 import { type PassDoc, applyDelta, applyOp, docFrom } from '@/lib/strokes/pass-model';
@@ -14,7 +15,10 @@ export type DocChange = { panels: Set<number>; full: boolean; items: boolean };
 type ServerState = { seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
 type ServerDelta = ServerState & { removedStrokes: string[]; removedRooms: string[]; removedLightboxes: string[] };
 
+/** Polling while there is no live stream… */
 const POLL_MS = 1000;
+/** …and a slow safety net while there is one. */
+const LIVE_SAFETY_POLL_MS = 30_000;
 const SEAL_AFTER_MS = 150;
 
 export class PassSync {
@@ -33,6 +37,9 @@ export class PassSync {
   private sealTimer: ReturnType<typeof setTimeout> | null = null;
   private retryTimer: ReturnType<typeof setTimeout> | null = null;
   private pollTimer: ReturnType<typeof setInterval> | null = null;
+  private live = false;
+  /** A poll was asked for while a batch was in flight: run it when the send ends. */
+  private pollWanted = false;
   private stopped = false;
   private readonly onOnline = () => void this.kick();
 
@@ -57,8 +64,29 @@ export class PassSync {
       window.addEventListener('online', this.onOnline);
       void this.kick();
     }
-    this.pollTimer = setInterval(() => void this.poll(), POLL_MS);
+    this.schedulePolling();
     this.updateStatus();
+  }
+
+  private schedulePolling() {
+    if (this.pollTimer) clearInterval(this.pollTimer);
+    if (this.stopped) return;
+    this.pollTimer = setInterval(() => void this.poll(), this.live ? LIVE_SAFETY_POLL_MS : POLL_MS);
+  }
+
+  /** The page's stream opened (true) or dropped (false): poll only while it is down. */
+  setLive(connected: boolean) {
+    if (connected === this.live) return;
+    this.live = connected;
+    this.schedulePolling();
+  }
+
+  /** An event of the page's stream: a new seq of this pass, or a (re)opening to catch up from. */
+  onLive(e: { topic: string; type: string; seq?: number }) {
+    if (e.type === 'open' || e.type === 'resync' || (e.type === 'seq' && e.topic === `pass:${this.passId}` && (e.seq ?? Infinity) > this.seq)) {
+      if (this.sending) this.pollWanted = true;
+      else void this.poll();
+    }
   }
 
   stop() {
@@ -160,6 +188,10 @@ export class PassSync {
       }
     } finally {
       this.sending = false;
+      if (this.pollWanted && !this.stopped) {
+        this.pollWanted = false;
+        void this.poll();
+      }
     }
   }
 

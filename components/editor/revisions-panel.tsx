@@ -1,6 +1,6 @@
 'use client';
 import { History } from 'lucide-react';
-import useSWR from 'swr';
+import { useLiveSWR } from '@/hooks/use-live';
 import { useState } from 'react';
 import type { RevisionDto } from '@/db/queries/passes';
 import { api, fetcher, messageOf } from '@/lib/http/client';
@@ -15,7 +15,7 @@ const REASONS: Record<RevisionDto['reason'], string> = {
 };
 
 export function RevisionsPanel({ passId, canRestore, onRestored }: { passId: string; canRestore: boolean; onRestored: () => void }) {
-  const { data, mutate } = useSWR<RevisionDto[]>(`/api/passes/${passId}/revisions`, fetcher, { refreshInterval: 5000 });
+  const { data, mutate } = useLiveSWR<RevisionDto[]>(`/api/passes/${passId}/revisions`, fetcher, { types: ['seq'], pollMs: 5000 });
   const [busy, setBusy] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
   async function restore(id: string) {

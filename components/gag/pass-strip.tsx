@@ -1,9 +1,9 @@
 'use client';
 // All passes side by side, each an SVG page rendered on the server (the same
-// geometry as the editor), with the beat notes under its panels. The list is
-// polled, so strokes others draw show up here without a reload.
+// geometry as the editor), with the beat notes under its panels. The list
+// follows the page's stream, so strokes others draw show up here without a reload.
 import Link from 'next/link';
-import useSWR from 'swr';
+import { useLiveSWR } from '@/hooks/use-live';
 import type { PassSummary } from '@/db/queries/passes';
 import { fetcher } from '@/lib/http/client';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
@@ -22,7 +22,7 @@ export function PassStrip({
   beats: { kind: BeatKind; note: string }[];
   canEdit: boolean;
 }) {
-  const { data } = useSWR<PassSummary[]>(`/api/gags/${gagId}/passes`, fetcher, { fallbackData: initial, refreshInterval: 2000 });
+  const { data } = useLiveSWR<PassSummary[]>(`/api/gags/${gagId}/passes`, fetcher, { fallbackData: initial, types: ['passes'], pollMs: 2000 });
   const passes = data ?? initial;
   const notes = Object.fromEntries(beats.map((b) => [b.kind, b.note])) as Record<BeatKind, string>;
   return (

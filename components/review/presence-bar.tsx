@@ -1,20 +1,23 @@
 'use client';
 import { Users } from 'lucide-react';
 import { usePresence } from '@/hooks/use-review';
+import { BEAT_KINDS, BEAT_LABELS } from '@/lib/gags/status';
 
-function whereLabel(scope: string) {
-  const where = scope.split(':').slice(1).join(':');
-  if (where.startsWith('pass:')) return `in pass ${where.slice(5)}`;
+function whereLabel(where: string, panel: number | null) {
+  if (where.startsWith('pass:')) {
+    const beat = panel !== null ? BEAT_KINDS[panel] : undefined;
+    return `in pass ${where.slice(5)}${beat ? `, ${BEAT_LABELS[beat].toLowerCase()} panel` : ''}`;
+  }
   if (where === 'compare') return 'comparing passes';
   return 'on this page';
 }
 
-/** Who else has this gag open right now. */
+/** Who else has this gag open right now, where, and on which panel. */
 export function PresenceBar({ gagId, where, meId }: { gagId: string; where: string; meId: string }) {
   const { data } = usePresence(gagId, where);
   const others = (data ?? []).filter((p) => p.userId !== meId);
   const byPerson = new Map<string, string[]>();
-  for (const p of others) byPerson.set(p.name, [...(byPerson.get(p.name) ?? []), whereLabel(p.scope)]);
+  for (const p of others) byPerson.set(p.name, [...(byPerson.get(p.name) ?? []), whereLabel(p.where, p.panel)]);
   return (
     <p className="inline-flex items-center gap-1.5 text-sm text-graphite-soft" aria-live="polite" data-testid="presence">
       <Users aria-hidden className="h-4 w-4" />

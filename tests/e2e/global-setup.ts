@@ -1,29 +1,15 @@
 // Builds the production app into .next-test, seeds a temporary SQLite database,
 // and serves it with `next start` on 127.0.0.1 for the browser tests.
-import { type ChildProcess, execFileSync, spawn } from 'node:child_process';
+import { execFileSync, spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { freePort } from '../support/free-port';
+import { waitForHealth } from '../support/instances';
 
 const root = path.resolve(import.meta.dirname, '../..');
 const DIST = '.next-test';
-
-async function waitForHealth(url: string, server: ChildProcess, log: () => string) {
-  const deadline = Date.now() + 60_000;
-  while (Date.now() < deadline) {
-    if (server.exitCode !== null) throw new Error(`next start exited early:\n${log()}`);
-    try {
-      const res = await fetch(`${url}/api/health`);
-      if (res.ok) return;
-    } catch {
-      /* not up yet */
-    }
-    await new Promise((r) => setTimeout(r, 300));
-  }
-  throw new Error(`next start did not answer within 60 s:\n${log()}`);
-}
 
 declare module 'vitest' {
   export interface ProvidedContext {

@@ -29,7 +29,8 @@ describe('owner on the board', () => {
   });
 
   it('writes a beat note that survives a reload', async () => {
-    await page.getByRole('link', { name: 'Periwinkle Parade' }).click();
+    // Exact: the activity feed, now live, links "added the gag “Periwinkle Parade”" too.
+    await page.getByRole('link', { name: 'Periwinkle Parade', exact: true }).click();
     await page.waitForURL(/\/gags\//);
     gagUrl = page.url();
     const setup = page.getByLabel('Setup', { exact: true });

@@ -1,0 +1,46 @@
+'use client';
+// The page's live stream (components/live/live-provider.tsx), for hooks and
+// components. Without a provider, or while the stream is down, `connected` is
+// false and data hooks poll as before.
+import { useContext, useEffect, useRef } from 'react';
+import useSWR, { type Key, type SWRConfiguration } from 'swr';
+import { LiveContext, type LiveContextValue, type LiveMessage } from '@/components/live/live-provider';
+
+const OFFLINE: LiveContextValue = {
+  connected: false,
+  subscribe: () => () => {},
+  presence: null,
+  tab: 'poll',
+  where: null,
+  gagId: null,
+  setPanel: () => {},
+};
+
+export function useLive(): LiveContextValue {
+  return useContext(LiveContext) ?? OFFLINE;
+}
+
+/** Calls `fn` for every event of the page's stream (the latest `fn`, without resubscribing). */
+export function useLiveEvents(fn: (e: LiveMessage) => void) {
+  const live = useLive();
+  const ref = useRef(fn);
+  ref.current = fn;
+  useEffect(() => live.subscribe((e) => ref.current(e)), [live]);
+}
+
+/**
+ * SWR data that the stream keeps fresh: refetched when an event of one of
+ * `types` arrives (and whenever the stream (re)opens, to catch up); polled
+ * every `pollMs` only while there is no stream.
+ */
+export function useLiveSWR<T>(key: Key, fetcher: ((...args: any[]) => Promise<T>) | null, opts: SWRConfiguration<T> & { types: string[]; pollMs: number }) {
+  const { types, pollMs, ...swrOpts } = opts;
+  const live = useLive();
+  const swr = useSWR<T>(key, fetcher, { ...swrOpts, refreshInterval: live.connected ? 0 : pollMs });
+  const mutate = swr.mutate;
+  useLiveEvents((e) => {
+    if (key === null) return;
+    if (e.type === 'open' || e.type === 'resync' || types.includes(e.type)) void mutate();
+  });
+  return swr;
+}
