@@ -1,9 +1,9 @@
 'use client';
 import { Circle, Eraser, Hand, Highlighter, ImageUp, Keyboard, Lasso, MapPin, PenLine, Redo2, Square, SquareDashed, Undo2, ZoomIn, ZoomOut, Maximize } from 'lucide-react';
 import { TONE_GREYS, type RoomShape, greyToCss } from '@/lib/strokes/types';
-import type { Guides } from './editor';
+import { type Guides, type Tool, toolAllowed } from './tools';
 
-export type Tool = 'pen' | 'tone' | 'eraser' | 'lasso' | 'room' | 'pan' | 'pin' | 'lightbox';
+export type { Tool };
 
 export const TOOL_INFO: { tool: Tool; label: string; key: string; Icon: typeof PenLine }[] = [
   { tool: 'pen', label: 'Pen', key: '1', Icon: PenLine },
@@ -60,7 +60,7 @@ export function EditorToolbar(p: {
   fit: () => void;
   openHelp: () => void;
 }) {
-  const tools = TOOL_INFO.filter((t) => (t.tool === 'pan' ? true : t.tool === 'pin' ? p.canComment : p.canDraw));
+  const tools = TOOL_INFO.filter((t) => toolAllowed(t.tool, { draw: p.canDraw, comment: p.canComment }));
   return (
     <div className="panel flex shrink-0 flex-row flex-wrap items-start gap-3 p-2 lg:w-48 lg:flex-col lg:flex-nowrap lg:overflow-y-auto" role="toolbar" aria-label="Sketch tools">
       <div className="flex flex-wrap gap-1" role="group" aria-label="Tool">

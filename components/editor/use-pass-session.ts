@@ -1,0 +1,176 @@
+'use client';
+// The pass's life in the editor: its sync (outbox, batches, live catch-up) and
+// its panel bitmaps, created once per pass; the state React shows of it (rooms,
+// lightboxes, counts, the save status); committing operations and the person's
+// own undo history. Drawing never redraws the whole pass (see PanelRasters).
+import type Konva from 'konva';
+import { useCallback, useEffect, useRef, useState } from 'react';
+import { useLive, useLiveEvents } from '@/hooks/use-live';
+import type { PageSpec } from '@/lib/print/geometry';
+import { strokesOfPanel } from '@/lib/strokes/pass-model';
+import type { Lightbox, Op, Room, Stroke } from '@/lib/strokes/types';
+import { PanelRasters } from './panel-rasters';
+import { PassSync, type SyncStatus } from './pass-sync';
+import { UndoStack, type UndoEntry } from './undo';
+
+export type PassInitial = { seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
+
+export function usePassSession(opts: { passId: string; initial: PassInitial; canDraw: boolean; spec: PageSpec; pxPerMm: () => number }) {
+  const syncRef = useRef<PassSync | null>(null);
+  const rastersRef = useRef<PanelRasters | null>(null);
+  const strokesLayerRef = useRef<Konva.Layer>(null);
+  const undoStack = useRef(new UndoStack());
+  const [rooms, setRooms] = useState<Room[]>(opts.initial.rooms);
+  const [lightboxes, setLightboxes] = useState<Lightbox[]>(opts.initial.lightboxes);
+  const [strokeCount, setStrokeCount] = useState(opts.initial.strokes.length);
+  const [seqSeen, setSeqSeen] = useState(opts.initial.seq);
+  const [status, setStatus] = useState<SyncStatus>({ state: 'saved', waiting: 0, message: null });
+  const [undoState, setUndoState] = useState({ canUndo: false, canRedo: false });
+  /** Bumped when the rasters exist, so the stage shows them. */
+  const [ready, setReady] = useState(false);
+  /** Strokes gone from the pass (someone else's eraser, a restore): selections drop them. */
+  const [docVersion, setDocVersion] = useState(0);
+
+  const redrawStrokes = useCallback(() => strokesLayerRef.current?.batchDraw(), []);
+
+  // Created once per pass (the page remounts the editor for another pass): reading the
+  // first props only is the point, so the effect has no dependencies on purpose.
+  const first = useRef(opts);
+  useEffect(() => {
+    const { passId, initial, canDraw, spec, pxPerMm } = first.current;
+    const rasters = new PanelRasters(spec);
+    rastersRef.current = rasters;
+    const sync = new PassSync(passId, initial, window.localStorage, !canDraw);
+    syncRef.current = sync;
+    const offDoc = sync.onDoc((change) => {
+      if (change.full) rasters.redrawAll(sync.doc.strokes.values());
+      else for (const p of change.panels) rasters.redrawPanel(p, strokesOfPanel(sync.doc, p));
+      strokesLayerRef.current?.batchDraw();
+      if (change.items) {
+        setRooms([...sync.doc.rooms.values()]);
+        setLightboxes([...sync.doc.lightboxes.values()]);
+      }
+      setStrokeCount(sync.doc.strokes.size);
+      setSeqSeen(sync.seq);
+      setDocVersion((v) => v + 1);
+    });
+    const offStatus = sync.onStatus(setStatus);
+    rasters.setScale(pxPerMm() * (window.devicePixelRatio || 1));
+    sync.start();
+    setReady(true);
+    const flush = () => sync.flush();
+    window.addEventListener('pagehide', flush);
+    return () => {
+      window.removeEventListener('pagehide', flush);
+      sync.flush();
+      offDoc();
+      offStatus();
+      sync.stop();
+    };
+  }, []);
+
+  // Others' strokes: the page's live stream says when the pass has a new seq.
+  const live = useLive();
+  useEffect(() => syncRef.current?.setLive(live.connected), [live.connected]);
+  useLiveEvents((e) => syncRef.current?.onLive(e));
+
+  const refreshUndo = useCallback(() => setUndoState({ canUndo: undoStack.current.canUndo, canRedo: undoStack.current.canRedo }), []);
+
+  /** Applies operations now and queues them; `undo` records them in the person's history. */
+  const commit = useCallback(
+    (ops: Op[], undo?: UndoEntry) => {
+      syncRef.current?.commit(ops);
+      if (undo) {
+        undoStack.current.push(undo);
+        refreshUndo();
+      }
+    },
+    [refreshUndo],
+  );
+
+  /** A stroke under the pen just ended: into its panel's bitmap only, O(1) whatever the pass holds. */
+  const commitDrawn = useCallback(
+    (stroke: Stroke, undo: UndoEntry) => {
+      const sync = syncRef.current;
+      const rasters = rastersRef.current;
+      if (!sync || !rasters) return;
+      sync.commit([{ op: 'add', stroke }], { emit: false });
+      rasters.drawStroke(stroke);
+      redrawStrokes();
+      setStrokeCount(sync.doc.strokes.size);
+      undoStack.current.push(undo);
+      refreshUndo();
+      live.setPanel(stroke.panel);
+    },
+    [live, redrawStrokes, refreshUndo],
+  );
+
+  /** The eraser took strokes away: re-raster only their panels. */
+  const commitErased = useCallback(
+    (ops: Op[]) => {
+      const sync = syncRef.current;
+      const rasters = rastersRef.current;
+      if (!sync || !rasters) return;
+      const touched = sync.commit(ops, { emit: false });
+      for (const p of touched) rasters.redrawPanel(p, strokesOfPanel(sync.doc, p));
+      redrawStrokes();
+      setStrokeCount(sync.doc.strokes.size);
+    },
+    [redrawStrokes],
+  );
+
+  const pushUndo = useCallback(
+    (entry: UndoEntry) => {
+      undoStack.current.push(entry);
+      refreshUndo();
+    },
+    [refreshUndo],
+  );
+
+  const runUndo = useCallback(
+    (which: 'undo' | 'redo') => {
+      const ops = which === 'undo' ? undoStack.current.undo() : undoStack.current.redo();
+      if (ops) syncRef.current?.commit(ops);
+      refreshUndo();
+    },
+    [refreshUndo],
+  );
+
+  /** Re-rasters every panel at a new resolution (after a zoom settles). */
+  const rescale = useCallback(
+    (pxPerMm: number) => {
+      const r = rastersRef.current;
+      const sync = syncRef.current;
+      if (!r || !sync) return;
+      const ratio = pxPerMm / r.scale;
+      if (ratio >= 0.8 && ratio <= 1.25) return;
+      r.setScale(pxPerMm);
+      r.redrawAll(sync.doc.strokes.values());
+      redrawStrokes();
+    },
+    [redrawStrokes],
+  );
+
+  return {
+    syncRef,
+    rastersRef,
+    strokesLayerRef,
+    ready,
+    docVersion,
+    rooms,
+    setRooms,
+    lightboxes,
+    strokeCount,
+    seqSeen,
+    status,
+    undoState,
+    commit,
+    commitDrawn,
+    commitErased,
+    pushUndo,
+    runUndo,
+    rescale,
+  };
+}
+
+export type PassSession = ReturnType<typeof usePassSession>;
