@@ -20,7 +20,14 @@ export function useAutosave<P>(opts: {
   const inflight = useRef<Promise<void> | null>(null);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const optsRef = useRef(opts);
-  optsRef.current = opts;
+  useEffect(() => {
+    optsRef.current = opts;
+  });
+  /** The latest flush, for timers set by an earlier one. */
+  const flushRef = useRef<() => Promise<void>>(async () => {});
+  const later = useCallback((ms: number) => {
+    timer.current = setTimeout(() => void flushRef.current(), ms);
+  }, []);
 
   const flush = useCallback(async (): Promise<void> => {
     if (timer.current) clearTimeout(timer.current);
@@ -43,26 +50,27 @@ export function useAutosave<P>(opts: {
         setMessage(err instanceof Error ? err.message : 'Could not save.');
         setState('error');
         // A refused edit (4xx) will be refused again; wait for the person to change it.
-        if (!clientError) timer.current = setTimeout(() => void flush(), retryMs);
+        if (!clientError) later(retryMs);
       }
     })();
     inflight.current = run;
     await run;
     inflight.current = null;
     // Edits typed while this save was in flight go out after the usual pause.
-    if (!failed && pending.current !== null && !timer.current) {
-      timer.current = setTimeout(() => void flush(), delay);
-    }
-  }, [delay, retryMs]);
+    if (!failed && pending.current !== null && !timer.current) later(delay);
+  }, [delay, retryMs, later]);
+  useEffect(() => {
+    flushRef.current = flush;
+  }, [flush]);
 
   const queue = useCallback(
     (patch: P) => {
       pending.current = pending.current === null ? patch : optsRef.current.merge(pending.current, patch);
       setState((s) => (s === 'saving' ? s : 'pending'));
       if (timer.current) clearTimeout(timer.current);
-      timer.current = setTimeout(() => void flush(), delay);
+      later(delay);
     },
-    [delay, flush],
+    [delay, later],
   );
 
   useEffect(() => {

@@ -2,7 +2,7 @@
 // The page's live stream (components/live/live-provider.tsx), for hooks and
 // components. Without a provider, or while the stream is down, `connected` is
 // false and data hooks poll as before.
-import { useContext, useEffect, useRef } from 'react';
+import { useContext, useEffect, useEffectEvent } from 'react';
 import useSWR, { type Key, type SWRConfiguration } from 'swr';
 import { LiveContext, type LiveContextValue, type LiveMessage } from '@/components/live/live-provider';
 
@@ -23,9 +23,8 @@ export function useLive(): LiveContextValue {
 /** Calls `fn` for every event of the page's stream (the latest `fn`, without resubscribing). */
 export function useLiveEvents(fn: (e: LiveMessage) => void) {
   const live = useLive();
-  const ref = useRef(fn);
-  ref.current = fn;
-  useEffect(() => live.subscribe((e) => ref.current(e)), [live]);
+  const onEvent = useEffectEvent(fn);
+  useEffect(() => live.subscribe((e) => onEvent(e)), [live]);
 }
 
 /**
@@ -33,7 +32,7 @@ export function useLiveEvents(fn: (e: LiveMessage) => void) {
  * `types` arrives (and whenever the stream (re)opens, to catch up); polled
  * every `pollMs` only while there is no stream.
  */
-export function useLiveSWR<T>(key: Key, fetcher: ((...args: any[]) => Promise<T>) | null, opts: SWRConfiguration<T> & { types: string[]; pollMs: number }) {
+export function useLiveSWR<T>(key: Key, fetcher: ((url: string) => Promise<T>) | null, opts: SWRConfiguration<T> & { types: string[]; pollMs: number }) {
   const { types, pollMs, ...swrOpts } = opts;
   const live = useLive();
   const swr = useSWR<T>(key, fetcher, { ...swrOpts, refreshInterval: live.connected ? 0 : pollMs });

@@ -77,6 +77,8 @@ export function GagTable({
     ],
     [seriesId, canEdit, onStatus],
   );
+  // TanStack Table hands back functions the React Compiler cannot memoize; this table re-renders as a whole.
+  // eslint-disable-next-line react-hooks/incompatible-library -- see the line above
   const table = useReactTable({
     data: gags,
     columns,

@@ -32,7 +32,7 @@ export function EditorStage(p: {
   notes: Record<BeatKind, string>;
   tool: Tool;
   canDraw: boolean;
-  rasters: PanelRasters | null;
+  rasters: PanelRasters;
   lightboxes: Lightbox[];
   lightboxPreview: Lightbox | null;
   images: Map<string, LoadedImage>;
@@ -48,7 +48,9 @@ export function EditorStage(p: {
   pointPin: { x: number; y: number } | null;
   drawOverlay: (ctx: Konva.Context) => void;
 }) {
-  const { view, spec, panels, bleed, safe, guides, tool, canDraw } = p;
+  // Refs are taken out of the props first: the rest of the props are plain values to render.
+  const { stageRef, strokesLayerRef, overlayLayerRef, rasters, ...v } = p;
+  const { view, spec, panels, bleed, safe, guides, tool, canDraw } = v;
   const roomTransformer = useRef<Konva.Transformer>(null);
   const roomNodes = useRef(new Map<string, Konva.Shape>());
   const lightboxTransformer = useRef<Konva.Transformer>(null);
@@ -60,23 +62,23 @@ export function EditorStage(p: {
   useEffect(() => {
     const tr = roomTransformer.current;
     if (!tr) return;
-    const node = p.selectedRoom ? roomNodes.current.get(p.selectedRoom) : undefined;
+    const node = v.selectedRoom ? roomNodes.current.get(v.selectedRoom) : undefined;
     tr.nodes(node && tool === 'room' ? [node] : []);
     tr.getLayer()?.batchDraw();
-  }, [p.selectedRoom, p.rooms, tool]);
+  }, [v.selectedRoom, v.rooms, tool]);
   useEffect(() => {
     const tr = lightboxTransformer.current;
     if (!tr) return;
-    const node = p.selectedLightbox ? lightboxNodes.current.get(p.selectedLightbox) : undefined;
+    const node = v.selectedLightbox ? lightboxNodes.current.get(v.selectedLightbox) : undefined;
     tr.nodes(node && arranging ? [node] : []);
     tr.getLayer()?.batchDraw();
-  }, [p.selectedLightbox, p.lightboxes, arranging, p.images]);
+  }, [v.selectedLightbox, v.lightboxes, arranging, v.images]);
 
   const layer = { x: view.originX, y: view.originY, scaleX: view.scale, scaleY: view.scale };
   const hair = { strokeScaleEnabled: false, listening: false } as const;
 
   return (
-    <Stage ref={p.stageRef} width={p.size.w} height={p.size.h}>
+    <Stage ref={stageRef} width={v.size.w} height={v.size.h}>
       <Layer listening={false} {...layer}>
         <Rect x={bleed.x} y={bleed.y} width={bleed.w} height={bleed.h} fill="#ffffff" shadowColor="#2a2a2d" shadowOpacity={0.15} shadowBlur={8} />
         {guides.bleed && (
@@ -96,7 +98,7 @@ export function EditorStage(p: {
               x={r.x}
               y={i < 2 ? bleed.y - 5 : bleed.y + bleed.h + 1.2}
               width={r.w}
-              text={`${i + 1} ${BEAT_LABELS[kind]}${p.notes[kind] ? ` — ${p.notes[kind]}` : ''}`}
+              text={`${i + 1} ${BEAT_LABELS[kind]}${v.notes[kind] ? ` — ${v.notes[kind]}` : ''}`}
               fontSize={2.6}
               fill="#4a4a50"
               wrap="none"
@@ -106,11 +108,11 @@ export function EditorStage(p: {
         })}
       </Layer>
       <Layer listening={arranging} {...layer}>
-        {p.lightboxes.map((saved) => {
-          const l = p.lightboxPreview?.id === saved.id ? p.lightboxPreview : saved;
+        {v.lightboxes.map((saved) => {
+          const l = v.lightboxPreview?.id === saved.id ? v.lightboxPreview : saved;
           if (!l.visible) return null;
-          const area = p.areaOf(l.panel);
-          const img = p.images.get(l.uploadId);
+          const area = v.areaOf(l.panel);
+          const img = v.images.get(l.uploadId);
           const iw = turned(l.rotation) ? l.h : l.w;
           const ih = turned(l.rotation) ? l.w : l.h;
           const common = {
@@ -123,9 +125,9 @@ export function EditorStage(p: {
             height: ih,
             rotation: l.rotation,
             draggable: arranging,
-            onPointerDown: () => p.onLightboxDown(l.id),
-            onDragEnd: (e: Konva.KonvaEventObject<DragEvent>) => p.onLightboxEdited(l.id, e.target),
-            onTransformEnd: (e: Konva.KonvaEventObject<Event>) => p.onLightboxEdited(l.id, e.target),
+            onPointerDown: () => v.onLightboxDown(l.id),
+            onDragEnd: (e: Konva.KonvaEventObject<DragEvent>) => v.onLightboxEdited(l.id, e.target),
+            onTransformEnd: (e: Konva.KonvaEventObject<Event>) => v.onLightboxEdited(l.id, e.target),
             ref: (node: Konva.Node | null) => {
               if (node) lightboxNodes.current.set(l.id, node);
               else lightboxNodes.current.delete(l.id);
@@ -146,13 +148,15 @@ export function EditorStage(p: {
         })}
         <Transformer ref={lightboxTransformer} rotateEnabled={false} keepRatio enabledAnchors={['top-left', 'top-right', 'bottom-left', 'bottom-right']} ignoreStroke />
       </Layer>
-      <Layer ref={p.strokesLayerRef} listening={false} {...layer}>
-        {p.rasters && panels.map((r, i) => <KImage key={i} image={p.rasters!.canvases[i]} x={r.x} y={r.y} width={r.w} height={r.h} />)}
+      <Layer ref={strokesLayerRef} listening={false} {...layer}>
+        {panels.map((r, i) => (
+          <KImage key={i} image={rasters.canvases[i]} x={r.x} y={r.y} width={r.w} height={r.h} />
+        ))}
       </Layer>
-      <Layer ref={p.overlayLayerRef} {...layer}>
+      <Layer ref={overlayLayerRef} {...layer}>
         {guides.trim && <Rect x={0} y={0} width={spec.trimW} height={spec.trimH} stroke={WARN} strokeWidth={1} {...hair} />}
         {guides.safe && <Rect x={safe.x} y={safe.y} width={safe.w} height={safe.h} stroke={INK} strokeWidth={1} dash={[4, 3]} {...hair} />}
-        {p.rooms.map((room) => {
+        {v.rooms.map((room) => {
           const common = {
             name: 'room',
             fill: 'rgba(219,232,240,0.55)',
@@ -162,9 +166,9 @@ export function EditorStage(p: {
             dash: [5, 3],
             listening: roomsEditable,
             draggable: roomsEditable,
-            onPointerDown: () => p.onRoomDown(room.id),
-            onDragEnd: (e: Konva.KonvaEventObject<DragEvent>) => p.onRoomEdited(room.id, e.target as Konva.Shape),
-            onTransformEnd: (e: Konva.KonvaEventObject<Event>) => p.onRoomEdited(room.id, e.target as Konva.Shape),
+            onPointerDown: () => v.onRoomDown(room.id),
+            onDragEnd: (e: Konva.KonvaEventObject<DragEvent>) => v.onRoomEdited(room.id, e.target as Konva.Shape),
+            onTransformEnd: (e: Konva.KonvaEventObject<Event>) => v.onRoomEdited(room.id, e.target as Konva.Shape),
             ref: (node: Konva.Shape | null) => {
               if (node) roomNodes.current.set(room.id, node);
               else roomNodes.current.delete(room.id);
@@ -177,7 +181,7 @@ export function EditorStage(p: {
             <Rect key={key} x={room.x} y={room.y} width={room.w} height={room.h} cornerRadius={1} {...common} />
           );
         })}
-        {p.pins.map((t, i) => {
+        {v.pins.map((t, i) => {
           const r = panels[t.panel ?? 0]!;
           const x = t.target === 'point' && t.x !== null ? t.x : r.x + 3;
           const y = t.target === 'point' && t.y !== null ? t.y : r.y + 3;
@@ -189,9 +193,9 @@ export function EditorStage(p: {
             </Group>
           );
         })}
-        {p.pointPin && <Circle x={p.pointPin.x} y={p.pointPin.y} radius={6 / view.scale} fill={WARN} stroke="#ffffff" strokeWidth={1.5} strokeScaleEnabled={false} listening={false} />}
+        {v.pointPin && <Circle x={v.pointPin.x} y={v.pointPin.y} radius={6 / view.scale} fill={WARN} stroke="#ffffff" strokeWidth={1.5} strokeScaleEnabled={false} listening={false} />}
         <Transformer ref={roomTransformer} rotateEnabled={false} ignoreStroke keepRatio={false} />
-        <Shape sceneFunc={p.drawOverlay} listening={false} />
+        <Shape sceneFunc={v.drawOverlay} listening={false} />
       </Layer>
     </Stage>
   );

@@ -167,8 +167,7 @@ export default function Editor(props: EditorProps) {
 
   const paintOverlay = (ctx: Konva.Context) => {
     const doc = session.syncRef.current?.doc;
-    const rasters = session.rastersRef.current;
-    if (!rasters) return;
+    const rasters = session.rasters;
     const px = 1 / v.viewRef.current.scale;
     const cursor = gestures.cursorRef.current;
     drawOverlay(ctx._context as CanvasRenderingContext2D, {
@@ -269,7 +268,7 @@ export default function Editor(props: EditorProps) {
             notes={notes}
             tool={tool}
             canDraw={canDraw}
-            rasters={session.ready ? session.rastersRef.current : null}
+            rasters={session.rasters}
             lightboxes={lightboxes}
             lightboxPreview={arranging.preview}
             images={images}

@@ -17,7 +17,8 @@ export type PassInitial = { seq: number; strokes: Stroke[]; rooms: Room[]; light
 
 export function usePassSession(opts: { passId: string; initial: PassInitial; canDraw: boolean; spec: PageSpec; pxPerMm: () => number }) {
   const syncRef = useRef<PassSync | null>(null);
-  const rastersRef = useRef<PanelRasters | null>(null);
+  // Plain canvases with no life of their own, so made once while rendering (the editor runs in the browser only).
+  const [rasters] = useState(() => new PanelRasters(opts.spec));
   const strokesLayerRef = useRef<Konva.Layer>(null);
   const undoStack = useRef(new UndoStack());
   const [rooms, setRooms] = useState<Room[]>(opts.initial.rooms);
@@ -26,20 +27,14 @@ export function usePassSession(opts: { passId: string; initial: PassInitial; can
   const [seqSeen, setSeqSeen] = useState(opts.initial.seq);
   const [status, setStatus] = useState<SyncStatus>({ state: 'saved', waiting: 0, message: null });
   const [undoState, setUndoState] = useState({ canUndo: false, canRedo: false });
-  /** Bumped when the rasters exist, so the stage shows them. */
-  const [ready, setReady] = useState(false);
-  /** Strokes gone from the pass (someone else's eraser, a restore): selections drop them. */
-  const [docVersion, setDocVersion] = useState(0);
 
   const redrawStrokes = useCallback(() => strokesLayerRef.current?.batchDraw(), []);
 
-  // Created once per pass (the page remounts the editor for another pass): reading the
-  // first props only is the point, so the effect has no dependencies on purpose.
+  // The sync lives as long as the editor of this pass (the page remounts the editor for
+  // another pass): it takes the first props only, on purpose.
   const first = useRef(opts);
   useEffect(() => {
-    const { passId, initial, canDraw, spec, pxPerMm } = first.current;
-    const rasters = new PanelRasters(spec);
-    rastersRef.current = rasters;
+    const { passId, initial, canDraw, pxPerMm } = first.current;
     const sync = new PassSync(passId, initial, window.localStorage, !canDraw);
     syncRef.current = sync;
     const offDoc = sync.onDoc((change) => {
@@ -52,12 +47,10 @@ export function usePassSession(opts: { passId: string; initial: PassInitial; can
       }
       setStrokeCount(sync.doc.strokes.size);
       setSeqSeen(sync.seq);
-      setDocVersion((v) => v + 1);
     });
     const offStatus = sync.onStatus(setStatus);
     rasters.setScale(pxPerMm() * (window.devicePixelRatio || 1));
     sync.start();
-    setReady(true);
     const flush = () => sync.flush();
     window.addEventListener('pagehide', flush);
     return () => {
@@ -67,7 +60,7 @@ export function usePassSession(opts: { passId: string; initial: PassInitial; can
       offStatus();
       sync.stop();
     };
-  }, []);
+  }, [rasters]);
 
   // Others' strokes: the page's live stream says when the pass has a new seq.
   const live = useLive();
@@ -92,8 +85,7 @@ export function usePassSession(opts: { passId: string; initial: PassInitial; can
   const commitDrawn = useCallback(
     (stroke: Stroke, undo: UndoEntry) => {
       const sync = syncRef.current;
-      const rasters = rastersRef.current;
-      if (!sync || !rasters) return;
+      if (!sync) return;
       sync.commit([{ op: 'add', stroke }], { emit: false });
       rasters.drawStroke(stroke);
       redrawStrokes();
@@ -102,21 +94,20 @@ export function usePassSession(opts: { passId: string; initial: PassInitial; can
       refreshUndo();
       live.setPanel(stroke.panel);
     },
-    [live, redrawStrokes, refreshUndo],
+    [live, rasters, redrawStrokes, refreshUndo],
   );
 
   /** The eraser took strokes away: re-raster only their panels. */
   const commitErased = useCallback(
     (ops: Op[]) => {
       const sync = syncRef.current;
-      const rasters = rastersRef.current;
-      if (!sync || !rasters) return;
+      if (!sync) return;
       const touched = sync.commit(ops, { emit: false });
       for (const p of touched) rasters.redrawPanel(p, strokesOfPanel(sync.doc, p));
       redrawStrokes();
       setStrokeCount(sync.doc.strokes.size);
     },
-    [redrawStrokes],
+    [rasters, redrawStrokes],
   );
 
   const pushUndo = useCallback(
@@ -139,24 +130,21 @@ export function usePassSession(opts: { passId: string; initial: PassInitial; can
   /** Re-rasters every panel at a new resolution (after a zoom settles). */
   const rescale = useCallback(
     (pxPerMm: number) => {
-      const r = rastersRef.current;
       const sync = syncRef.current;
-      if (!r || !sync) return;
-      const ratio = pxPerMm / r.scale;
+      if (!sync) return;
+      const ratio = pxPerMm / rasters.scale;
       if (ratio >= 0.8 && ratio <= 1.25) return;
-      r.setScale(pxPerMm);
-      r.redrawAll(sync.doc.strokes.values());
+      rasters.setScale(pxPerMm);
+      rasters.redrawAll(sync.doc.strokes.values());
       redrawStrokes();
     },
-    [redrawStrokes],
+    [rasters, redrawStrokes],
   );
 
   return {
     syncRef,
-    rastersRef,
+    rasters,
     strokesLayerRef,
-    ready,
-    docVersion,
     rooms,
     setRooms,
     lightboxes,

@@ -40,18 +40,19 @@ export function copiesInPanel(strokes: Stroke[], panels: Rect[], target: number,
 
 export function useSelection(o: { session: PassSession; panels: Rect[] }) {
   const { session, panels } = o;
-  const { commit, syncRef, ready, setRooms } = session;
+  const { commit, syncRef, setRooms } = session;
   const [ids, setIds] = useState<string[]>([]);
   const [room, setRoom] = useState<string | null>(null);
 
   useEffect(() => {
+    // The session's effect, declared earlier, has made the sync by now.
     const sync = syncRef.current;
-    if (!ready || !sync) return;
+    if (!sync) return;
     const off = sync.onDoc(() => setIds((sel) => (sel.some((id) => !sync.doc.strokes.has(id)) ? sel.filter((id) => sync.doc.strokes.has(id)) : sel)));
     return () => {
       off();
     };
-  }, [ready, syncRef]);
+  }, [syncRef]);
 
   const strokes = useCallback((): Stroke[] => {
     const doc = syncRef.current?.doc;

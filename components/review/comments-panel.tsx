@@ -2,7 +2,7 @@
 // Comment threads of a gag: pinned to the gag, a pass, a panel, a beat or a
 // point; replies; edit your own; resolve and reopen; @name mentions a member.
 import { MessageSquare } from 'lucide-react';
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import type { ThreadDto } from '@/db/queries/comments';
 import { useComments, useMembers } from '@/hooks/use-review';
@@ -54,9 +54,13 @@ export function CommentsPanel({
   const [body, setBody] = useState('');
   const [error, setError] = useState<string | null>(null);
   const [showResolved, setShowResolved] = useState(false);
-  useEffect(() => {
-    if (point) setPinKey('point');
-  }, [point?.x, point?.y, point?.panel]); // eslint-disable-line react-hooks/exhaustive-deps
+  // A new point pinned on the canvas becomes the target (adjusted while rendering, as React advises).
+  const pointKey = point ? `${point.panel}:${point.x}:${point.y}` : null;
+  const [seenPoint, setSeenPoint] = useState(pointKey);
+  if (pointKey !== seenPoint) {
+    setSeenPoint(pointKey);
+    if (pointKey) setPinKey('point');
+  }
   const threads = (data ?? []).filter((t) => (onlyPassId ? t.passId === onlyPassId || t.target === 'gag' : true)).filter((t) => showResolved || !t.resolvedAt);
 
   const pinOptions: { key: string; label: string; pin: Pin }[] = [

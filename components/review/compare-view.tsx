@@ -2,7 +2,7 @@
 // Two passes side by side or overlaid (the older tinted, at an adjustable
 // opacity), at real printed size after a one-time calibration, or squinted.
 import Link from 'next/link';
-import { useEffect, useMemo, useState } from 'react';
+import { useMemo, useState, useSyncExternalStore } from 'react';
 import { useComments } from '@/hooks/use-review';
 import type { PageSpec } from '@/lib/print/geometry';
 import { panelRects } from '@/lib/print/geometry';
@@ -15,6 +15,25 @@ export const ID1_MM = { w: 85.6, h: 53.98 };
 /** CSS assumes 96 px per inch: 96 / 25.4 px per mm, until the screen is calibrated. */
 export const CSS_PX_PER_MM = 96 / 25.4;
 const CAL_KEY = 'quadrille.pxPerMm';
+const CAL_EVENT = 'quadrille:calibrated';
+
+// The calibration is kept in this browser's storage; the server renders the browser's guess.
+function subscribeCalibration(changed: () => void) {
+  window.addEventListener('storage', changed);
+  window.addEventListener(CAL_EVENT, changed);
+  return () => {
+    window.removeEventListener('storage', changed);
+    window.removeEventListener(CAL_EVENT, changed);
+  };
+}
+function useCalibration(): [number, (pxPerMm: number) => void] {
+  const value = useSyncExternalStore(subscribeCalibration, () => Number(localStorage.getItem(CAL_KEY)) || CSS_PX_PER_MM, () => CSS_PX_PER_MM);
+  const save = (pxPerMm: number) => {
+    localStorage.setItem(CAL_KEY, String(pxPerMm));
+    window.dispatchEvent(new Event(CAL_EVENT));
+  };
+  return [value, save];
+}
 
 type PassSvg = { id: string; number: number; svg: string };
 type Mode = 'side' | 'overlay' | 'print' | 'squint';
@@ -29,13 +48,9 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
   const [b, setB] = useState(passes[passes.length - 1]?.id ?? '');
   const [mode, setMode] = useState<Mode>('side');
   const [opacity, setOpacity] = useState(0.5);
-  const [pxPerMm, setPxPerMm] = useState(CSS_PX_PER_MM);
+  const [pxPerMm, setPxPerMm] = useCalibration();
   const [calibrating, setCalibrating] = useState(false);
   const { data: threads } = useComments(gagId);
-  useEffect(() => {
-    const saved = Number(localStorage.getItem(CAL_KEY));
-    if (saved > 0) setPxPerMm(saved);
-  }, []);
   const passA = passes.find((p) => p.id === a);
   const passB = passes.find((p) => p.id === b);
   const bleedW = spec.trimW + 2 * spec.bleed;
@@ -169,7 +184,6 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
                   onChange={(e) => {
                     const v = Number(e.target.value) / ID1_MM.w;
                     setPxPerMm(v);
-                    localStorage.setItem(CAL_KEY, String(v));
                   }}
                   className="flex-1"
                 />

@@ -5,12 +5,11 @@ import type { Kysely, Selectable } from 'kysely';
 import type { BeatKind } from '@/lib/gags/status';
 import type { CommentTarget, CommentsTable, Database } from '../database';
 import { recordActivity } from './activity';
+import { Refused } from '@/lib/refused';
 
 /** A comment row as the API shows it, with its pass's number and its author's name. */
 export type CommentDto = Selectable<CommentsTable> & { passNumber: number | null; author: string };
 export type ThreadDto = CommentDto & { replies: CommentDto[] };
-
-export class CommentRefused extends Error {}
 
 function baseQuery(db: Kysely<Database>) {
   return db
@@ -76,12 +75,12 @@ export async function createComment(
     let pin = { target: input.target, passId: input.passId ?? null, panel: input.panel ?? null, beat: input.beat ?? null, x: input.x ?? null, y: input.y ?? null };
     if (input.parentId) {
       const parent = await trx.selectFrom('comments').selectAll().where('id', '=', input.parentId).executeTakeFirst();
-      if (!parent || parent.gagId !== input.gagId) throw new CommentRefused('The thread you reply to is not on this gag.');
-      if (parent.parentId) throw new CommentRefused('Reply to the thread, not to a reply.');
+      if (!parent || parent.gagId !== input.gagId) throw new Refused(422, 'The thread you reply to is not on this gag.');
+      if (parent.parentId) throw new Refused(422, 'Reply to the thread, not to a reply.');
       pin = { target: parent.target, passId: parent.passId, panel: parent.panel, beat: parent.beat, x: parent.x, y: parent.y };
     } else if (pin.passId) {
       const pass = await trx.selectFrom('passes').select('gagId').where('id', '=', pin.passId).executeTakeFirst();
-      if (!pass || pass.gagId !== input.gagId) throw new CommentRefused('That pass is not one of this gag’s passes.');
+      if (!pass || pass.gagId !== input.gagId) throw new Refused(422, 'That pass is not one of this gag’s passes.');
     }
     if (pin.target === 'gag' || pin.target === 'beat') pin = { ...pin, passId: null, panel: null, x: null, y: null };
     await trx

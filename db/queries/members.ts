@@ -6,17 +6,9 @@ import type { Role } from '@/lib/auth/permissions';
 import type { Database } from '../database';
 import { forUpdate, lockRow } from '../dialect';
 import { recordActivity } from './activity';
+import { Refused } from '@/lib/refused';
 
 export const INVITATION_DAYS = 7;
-
-export class MemberRefused extends Error {
-  constructor(
-    public status: number,
-    message: string,
-  ) {
-    super(message);
-  }
-}
 
 export const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 
@@ -57,7 +49,7 @@ export async function createInvitation(
     .where('m.seriesId', '=', input.seriesId)
     .where('u.email', '=', input.email)
     .executeTakeFirst();
-  if (already) throw new MemberRefused(409, `${input.email} is already a member of this series.`);
+  if (already) throw new Refused(409, `${input.email} is already a member of this series.`);
   const token = randomBytes(24).toString('base64url');
   const id = randomUUID();
   const expiresAt = new Date(now.getTime() + INVITATION_DAYS * 24 * 3600 * 1000);
@@ -83,11 +75,11 @@ export async function acceptInvitation(db: Kysely<Database>, token: string, user
   return db.transaction().execute(async (trx) => {
     // Locked: two accepts of one link at once → one membership, one 410.
     const inv = await forUpdate(trx, trx.selectFrom('invitations').selectAll().where('tokenHash', '=', hashToken(token))).executeTakeFirst();
-    if (!inv || inv.revokedAt) throw new MemberRefused(404, 'This invitation does not exist.');
-    if (inv.acceptedAt) throw new MemberRefused(410, 'This invitation has already been used.');
-    if (Date.parse(inv.expiresAt) <= now.getTime()) throw new MemberRefused(410, 'This invitation has expired. Ask the owner for a new one.');
+    if (!inv || inv.revokedAt) throw new Refused(404, 'This invitation does not exist.');
+    if (inv.acceptedAt) throw new Refused(410, 'This invitation has already been used.');
+    if (Date.parse(inv.expiresAt) <= now.getTime()) throw new Refused(410, 'This invitation has expired. Ask the owner for a new one.');
     const existing = await trx.selectFrom('memberships').select('role').where('seriesId', '=', inv.seriesId).where('userId', '=', userId).executeTakeFirst();
-    if (existing) throw new MemberRefused(409, 'You are already a member of this series.');
+    if (existing) throw new Refused(409, 'You are already a member of this series.');
     await trx.insertInto('memberships').values({ seriesId: inv.seriesId, userId, role: inv.role, createdAt: now.toISOString() }).execute();
     await trx.updateTable('invitations').set({ acceptedAt: now.toISOString(), acceptedBy: userId }).where('id', '=', inv.id).execute();
     const u = await trx.selectFrom('users').select('name').where('id', '=', userId).executeTakeFirstOrThrow();
@@ -111,9 +103,9 @@ export async function changeRole(db: Kysely<Database>, seriesId: string, userId:
 
 async function changeRoleLocked(db: Transaction<Database>, seriesId: string, userId: string, role: Role) {
   const m = await db.selectFrom('memberships').select('role').where('seriesId', '=', seriesId).where('userId', '=', userId).executeTakeFirst();
-  if (!m) throw new MemberRefused(404, 'Not a member of this series.');
+  if (!m) throw new Refused(404, 'Not a member of this series.');
   if (m.role === 'owner' && role !== 'owner' && (await ownerCount(db, seriesId)) <= 1) {
-    throw new MemberRefused(409, 'A series keeps at least one owner: make someone else owner first.');
+    throw new Refused(409, 'A series keeps at least one owner: make someone else owner first.');
   }
   await db.updateTable('memberships').set({ role }).where('seriesId', '=', seriesId).where('userId', '=', userId).execute();
 }
@@ -127,9 +119,9 @@ export async function removeMember(db: Kysely<Database>, seriesId: string, userI
 
 async function removeMemberLocked(db: Transaction<Database>, seriesId: string, userId: string) {
   const m = await db.selectFrom('memberships').select('role').where('seriesId', '=', seriesId).where('userId', '=', userId).executeTakeFirst();
-  if (!m) throw new MemberRefused(404, 'Not a member of this series.');
+  if (!m) throw new Refused(404, 'Not a member of this series.');
   if (m.role === 'owner' && (await ownerCount(db, seriesId)) <= 1) {
-    throw new MemberRefused(409, 'The last owner cannot be removed.');
+    throw new Refused(409, 'The last owner cannot be removed.');
   }
   await db.deleteFrom('memberships').where('seriesId', '=', seriesId).where('userId', '=', userId).execute();
 }

@@ -50,7 +50,6 @@ export const LIGHTBOXES: Kind<Lightbox, LightboxRow> = {
 
 // The two tables share their shape but not their column names; Kysely cannot
 // type a table chosen at run time, so the queries below go through `any`.
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 const loose = (db: Db) => db as unknown as Kysely<any>;
 
 /** Where a kind of item lives, without its item type. */

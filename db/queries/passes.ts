@@ -17,6 +17,7 @@ import { recordActivity } from './activity';
 import { LIGHTBOXES, ROOMS, copyItems, itemsDelta, liveItems, removeItem, restoreItems, upsertItem } from './pass-items';
 import { passWithGag } from './pass-info';
 import { clearStampOnChange } from './stamps';
+import { Refused } from '@/lib/refused';
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -24,8 +25,6 @@ type Db = Kysely<Database> | Transaction<Database>;
 export const REVISION_PAUSE_MS = 30_000;
 /** …and so does every this-many batches of steady drawing. */
 export const REVISION_EVERY_BATCHES = 50;
-
-export class OpRefused extends Error {}
 
 export type PassSummary = { id: string; gagId: string; number: number; seq: number; strokeCount: number; copiedFrom: number | null; createdAt: string; updatedAt: string };
 export type PassState = { id: string; gagId: string; number: number; seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
@@ -228,7 +227,10 @@ export async function createPass(
     let sourceLightboxes: Lightbox[] = [];
     if (input.copyFrom !== undefined) {
       const from = await findPassByNumber(trx, input.gagId, input.copyFrom);
-      if (!from) throw new OpRefused(`There is no pass ${input.copyFrom} to copy.`);
+      if (!from) {
+        const message = `There is no pass ${input.copyFrom} to copy.`;
+        throw new Refused(422, message, [{ path: ['copyFrom'], message }]);
+      }
       source = await liveStrokes(trx, from.id);
       sourceRooms = await liveRooms(trx, from.id);
       sourceLightboxes = await liveLightboxes(trx, from.id);
@@ -299,7 +301,7 @@ async function applyOp(trx: Transaction<Database>, passId: string, seq: number, 
         const ox = row.ox + op.dx;
         const oy = row.oy + op.dy;
         if (row.minX + ox < b.x - 1e-9 || row.minY + oy < b.y - 1e-9 || row.maxX + ox > b.x + b.w + 1e-9 || row.maxY + oy > b.y + b.h + 1e-9) {
-          throw new OpRefused(`Moving stroke ${strokeId} by (${op.dx}, ${op.dy}) mm would take it outside the bleed box.`);
+          throw new Refused(422, `Moving stroke ${strokeId} by (${op.dx}, ${op.dy}) mm would take it outside the bleed box.`);
         }
         await trx.insertInto('strokeMoves').values({ rowId: row.rowId, passId, seq, dx: op.dx, dy: op.dy }).execute();
         await trx.updateTable('strokes').set({ ox, oy }).where('rowId', '=', row.rowId).execute();

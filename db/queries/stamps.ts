@@ -7,10 +7,9 @@ import type { Database, StampDecision } from '../database';
 import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 import { passWithGag } from './pass-info';
+import { Refused } from '@/lib/refused';
 
 type Db = Kysely<Database> | Transaction<Database>;
-
-export class StampRefused extends Error {}
 
 export type StampDto = {
   id: string;
@@ -40,7 +39,7 @@ export async function stampPass(
     // so two stamps at once leave one "ready" standing.
     await lockRow(trx, 'gags', pass.gagId);
     if (!STAMPABLE.has(pass.status)) {
-      throw new StampRefused(`This gag is already past "ready to ink" (it is ${pass.status.replace(/_/g, ' ')}); move it back before stamping a pass.`);
+      throw new Refused(409, `This gag is already past "ready to ink" (it is ${pass.status.replace(/_/g, ' ')}); move it back before stamping a pass.`);
     }
     const now = new Date().toISOString();
     // A new stamp supersedes any "ready" stamp still standing on this gag.

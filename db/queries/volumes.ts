@@ -7,6 +7,7 @@ import { DEFAULT_VOLUME_SPEC, type Spread, type VolumeSpec, blankSuggestion, bla
 import { DEFAULT_HOURS, type Stage, plan } from '@/lib/planning/plan';
 import type { Database, EntryKind, VolumesTable } from '../database';
 import { lockRow } from '../dialect';
+import { Refused } from '@/lib/refused';
 
 export type VolumeDto = {
   id: string;
@@ -19,12 +20,6 @@ export type VolumeDto = {
 };
 
 export type EntryDto = { id: string; kind: EntryKind; gagId: string | null; position: string; title: string | null; status: GagStatus | null; latestPass: { id: string; seq: number } | null };
-
-export class VolumeRefused extends Error {
-  constructor(public status: number, message: string) {
-    super(message);
-  }
-}
 
 function toDto(row: Selectable<VolumesTable>): VolumeDto {
   return {
@@ -133,9 +128,9 @@ export async function addEntry(db: Kysely<Database>, volumeId: string, seriesId:
 async function addEntryLocked(db: Transaction<Database>, id: string, volumeId: string, seriesId: string, input: { gagId?: string; kind?: EntryKind }) {
   if (input.gagId) {
     const gag = await db.selectFrom('gags').select(['seriesId']).where('id', '=', input.gagId).executeTakeFirst();
-    if (!gag || gag.seriesId !== seriesId) throw new VolumeRefused(422, 'That gag is not in this series.');
+    if (!gag || gag.seriesId !== seriesId) throw new Refused(422, 'That gag is not in this series.');
     const placed = await db.selectFrom('volumeEntries').select('volumeId').where('gagId', '=', input.gagId).executeTakeFirst();
-    if (placed) throw new VolumeRefused(409, 'That gag is already placed in a volume; a gag is one page of one book.');
+    if (placed) throw new Refused(409, 'That gag is already placed in a volume; a gag is one page of one book.');
   }
   const position = generateKeyBetween(await lastKey(db, volumeId), null);
   await db
@@ -158,11 +153,11 @@ export async function moveEntry(db: Kysely<Database>, volumeId: string, entryId:
     // Moves in one volume queue: two at once never compute a key from the same neighbours.
     await lockRow(trx, 'volumes', volumeId);
     const me = await trx.selectFrom('volumeEntries').select(['id', 'position']).where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
-    if (!me) throw new VolumeRefused(404, 'Not found.');
+    if (!me) throw new Refused(404, 'Not found.');
     const anchorId = to.after ?? to.before!;
     if (anchorId === entryId) return me.position;
     const anchor = await trx.selectFrom('volumeEntries').select(['id', 'position']).where('id', '=', anchorId).where('volumeId', '=', volumeId).executeTakeFirst();
-    if (!anchor) throw new VolumeRefused(422, 'The entry to move next to is not in this volume.');
+    if (!anchor) throw new Refused(422, 'The entry to move next to is not in this volume.');
     let lo: string | null;
     let hi: string | null;
     // The other side of the gap is the anchor's neighbour in that direction, leaving out the entry that moves.

@@ -1,6 +1,7 @@
 // Route handler wrappers. Every handler runs in one order:
 // session (401) → series membership (404) and role (403) → body validation (422)
 // → the handler's own work. Using these wrappers makes skipping a check impossible.
+// A `Refused` thrown anywhere below (a query, a service) becomes its JSON answer here.
 import type { Kysely } from 'kysely';
 import type { z } from 'zod';
 import { getDb } from '@/db/client';
@@ -8,16 +9,9 @@ import type { Database } from '@/db/database';
 import { authorizeSeries } from '@/lib/auth/guard';
 import type { Action, Role } from '@/lib/auth/permissions';
 import { type SessionUser, userFromRequest } from '@/lib/auth/session';
+import { Refused } from '@/lib/refused';
 
-export class HttpError extends Error {
-  constructor(
-    public status: number,
-    message: string,
-    public issues?: unknown,
-  ) {
-    super(message);
-  }
-}
+export { Refused };
 
 export function jsonError(status: number, message: string, issues?: unknown): Response {
   return Response.json(issues === undefined ? { error: message } : { error: message, issues }, { status });
@@ -32,16 +26,16 @@ export async function parseBody<S extends z.ZodType>(
   let raw: unknown;
   const text = await req.text();
   if (opts.maxBytes !== undefined && Buffer.byteLength(text) > opts.maxBytes) {
-    throw new HttpError(422, `The body is over ${opts.maxBytes.toLocaleString('en')} bytes; send it in smaller batches.`);
+    throw new Refused(422, `The body is over ${opts.maxBytes.toLocaleString('en')} bytes; send it in smaller batches.`);
   }
   try {
     raw = JSON.parse(text);
   } catch {
-    throw new HttpError(422, 'The body must be JSON.');
+    throw new Refused(422, 'The body must be JSON.');
   }
   const parsed = schema.safeParse(raw);
   if (!parsed.success) {
-    throw new HttpError(
+    throw new Refused(
       422,
       parsed.error.issues.map((i) => i.message).join(' '),
       parsed.error.issues.map((i) => ({ path: i.path, message: i.message, code: i.code })),
@@ -59,7 +53,7 @@ async function run(fn: () => Promise<Response>): Promise<Response> {
   try {
     return await fn();
   } catch (err) {
-    if (err instanceof HttpError) return jsonError(err.status, err.message, err.issues);
+    if (err instanceof Refused) return jsonError(err.status, err.message, err.issues);
     console.error(err);
     return jsonError(500, 'Something went wrong on our side; nothing was changed.');
   }

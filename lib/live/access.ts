@@ -4,7 +4,7 @@ import 'server-only';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
 import { authorizeSeries } from '@/lib/auth/guard';
-import { HttpError } from '@/lib/http/route';
+import { Refused } from '@/lib/http/route';
 import { streamQuery } from '@/lib/validation/live';
 
 export function stillReadable(userId: string, seriesId: string, db: Kysely<Database>, seriesOf: (db: Kysely<Database>) => Promise<string | null>) {
@@ -14,6 +14,6 @@ export function stillReadable(userId: string, seriesId: string, db: Kysely<Datab
 /** `?tab=&where=&panel=` of a stream request; 422 when malformed. */
 export function streamParams(req: Request) {
   const parsed = streamQuery.safeParse(Object.fromEntries(new URL(req.url).searchParams));
-  if (!parsed.success) throw new HttpError(422, parsed.error.issues.map((i) => i.message).join(' '));
+  if (!parsed.success) throw new Refused(422, parsed.error.issues.map((i) => i.message).join(' '));
   return parsed.data;
 }

@@ -4,6 +4,7 @@
 import { createHash } from 'node:crypto';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
+import { Refused } from '@/lib/refused';
 
 export const MAX_UPLOAD_BYTES = 25 * 1024 * 1024;
 export const MAX_PIXELS = 50_000_000;
@@ -11,12 +12,6 @@ export const WORKING_MAX_SIDE = 4096;
 export const PREVIEW_MAX_SIDE = 320;
 export const ACCEPTED = { 'image/png': 'png', 'image/jpeg': 'jpeg', 'image/webp': 'webp' } as const;
 export type AcceptedMime = keyof typeof ACCEPTED;
-
-export class UploadRefused extends Error {
-  constructor(public status: 413 | 415 | 422, message: string) {
-    super(message);
-  }
-}
 
 export type Prepared = {
   sha256: string;
@@ -30,10 +25,10 @@ export type Prepared = {
 };
 
 export async function prepareUpload(input: Buffer): Promise<Prepared> {
-  if (input.byteLength > MAX_UPLOAD_BYTES) throw new UploadRefused(413, `The file is over 25 MB (${(input.byteLength / 1048576).toFixed(1)} MB).`);
+  if (input.byteLength > MAX_UPLOAD_BYTES) throw new Refused(413, `The file is over 25 MB (${(input.byteLength / 1048576).toFixed(1)} MB).`);
   const type = await fileTypeFromBuffer(input);
   if (!type || !(type.mime in ACCEPTED)) {
-    throw new UploadRefused(415, `Only PNG, JPEG and WebP images can be used${type ? ` (this file is ${type.mime})` : ''}.`);
+    throw new Refused(415, `Only PNG, JPEG and WebP images can be used${type ? ` (this file is ${type.mime})` : ''}.`);
   }
   const mime = type.mime as AcceptedMime;
   const format = ACCEPTED[mime];
@@ -41,10 +36,10 @@ export async function prepareUpload(input: Buffer): Promise<Prepared> {
   try {
     meta = await sharp(input, { limitInputPixels: false }).metadata();
   } catch {
-    throw new UploadRefused(422, 'The image is damaged and cannot be read.');
+    throw new Refused(422, 'The image is damaged and cannot be read.');
   }
   if ((meta.width ?? 0) * (meta.height ?? 0) > MAX_PIXELS) {
-    throw new UploadRefused(413, `The image is ${meta.width} × ${meta.height} px, over 50 megapixels.`);
+    throw new Refused(413, `The image is ${meta.width} × ${meta.height} px, over 50 megapixels.`);
   }
   const base = () => sharp(input, { limitInputPixels: MAX_PIXELS, failOn: 'error' }).rotate(); // EXIF orientation applied; no metadata kept
   try {
@@ -62,7 +57,7 @@ export async function prepareUpload(input: Buffer): Promise<Prepared> {
       preview,
     };
   } catch (err) {
-    if (err instanceof UploadRefused) throw err;
-    throw new UploadRefused(422, 'The image is damaged and cannot be read.');
+    if (err instanceof Refused) throw err;
+    throw new Refused(422, 'The image is damaged and cannot be read.');
   }
 }

@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createDb } from '@/db/client';
 import type { Database } from '@/db/database';
 import { createGag } from '@/db/queries/gags';
-import { acceptInvitation, createInvitation, MemberRefused } from '@/db/queries/members';
+import { acceptInvitation, createInvitation } from '@/db/queries/members';
 import { applyBatch, createPass, passDelta, passState } from '@/db/queries/passes';
 import { stampPass } from '@/db/queries/stamps';
 import { insertUser } from '@/db/queries/users';
@@ -20,6 +20,7 @@ import { claimAttempt, MAX_FAILURES } from '@/lib/auth/throttle';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import type { Op, Stroke } from '@/lib/strokes/types';
 import { freshDb, testDbKind } from '../support/test-db';
+import { Refused } from '@/lib/refused';
 
 let a: Kysely<Database>;
 let b: Kysely<Database>;
@@ -173,8 +174,8 @@ describe('invitations', () => {
     const tries = await Promise.allSettled(users.map((u, i) => acceptInvitation(i % 2 ? a : b, token, u)));
     expect(tries.filter((t) => t.status === 'fulfilled')).toHaveLength(1);
     for (const t of tries.filter((t) => t.status === 'rejected') as PromiseRejectedResult[]) {
-      expect(t.reason).toBeInstanceOf(MemberRefused);
-      expect((t.reason as MemberRefused).status).toBe(410);
+      expect(t.reason).toBeInstanceOf(Refused);
+      expect((t.reason as Refused).status).toBe(410);
     }
     const members = await a.selectFrom('memberships').select('userId').where('seriesId', '=', DEMO_SERIES_ID).where('userId', 'in', users).execute();
     expect(members).toHaveLength(1);

@@ -188,7 +188,7 @@ describe('thumbnails', () => {
 
 describe('bad batches: 422 with the reason, and nothing stored', () => {
   const huge = stroke('huge', 0, 10, 10, 10_001);
-  huge.points = huge.points.map(([x, y, pr], i) => [10 + (i % 100) * 0.1, y, pr]);
+  huge.points = huge.points.map(([, y, pr], i) => [10 + (i % 100) * 0.1, y, pr]);
   const cases: [string, unknown[], RegExp][] = [
     ['a point outside the bleed box', [{ op: 'add', stroke: stroke('out', 0, 155, 10, 2) }], /outside the bleed box/],
     ['a non-number', [{ op: 'add', stroke: { ...stroke('nan'), points: [[10, 'ten', 0.5]] } }], /numbers/],

@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { getDb } from '@/db/client';
 import { findUserByEmail, insertUser } from '@/db/queries/users';
 import { hashPassword } from '@/lib/auth/password';
-import { HttpError, jsonError, parseBody } from '@/lib/http/route';
+import { Refused, jsonError, parseBody } from '@/lib/http/route';
 import { signUpSchema } from '@/lib/validation/account';
 
 export async function POST(req: Request) {
@@ -17,7 +17,7 @@ export async function POST(req: Request) {
     await insertUser(db, { id, email: input.email, name: input.name, passwordHash: await hashPassword(input.password) });
     return Response.json({ id, email: input.email, name: input.name }, { status: 201 });
   } catch (err) {
-    if (err instanceof HttpError) return jsonError(err.status, err.message, err.issues);
+    if (err instanceof Refused) return jsonError(err.status, err.message, err.issues);
     throw err;
   }
 }

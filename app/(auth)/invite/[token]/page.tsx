@@ -15,7 +15,9 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
   if (!inv || inv.revokedAt) notFound();
   const problem = inv.acceptedAt
     ? 'This invitation has already been used.'
-    : Date.parse(inv.expiresAt) <= Date.now()
+    : // A server component renders once per request: "now" is that request's time.
+      // eslint-disable-next-line react-hooks/purity -- the check belongs to this request, not to a re-render
+      Date.parse(inv.expiresAt) <= Date.now()
       ? 'This invitation has expired. Ask the owner for a new one.'
       : null;
   const user = await currentUser();

@@ -1,7 +1,7 @@
 import { recordActivity } from '@/db/queries/activity';
 import { deleteGag, findGag, updateGag } from '@/db/queries/gags';
 import { checkManualMove } from '@/lib/gags/status';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { Refused, parseBody, withSeriesRole } from '@/lib/http/route';
 import { updateGagSchema } from '@/lib/validation/gag';
 import { byGagId } from '@/lib/http/series-of';
 import { gagChanged } from '@/lib/live/events';
@@ -18,11 +18,11 @@ export const PATCH = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, 
   const patch = await parseBody(req, updateGagSchema);
   await db.transaction().execute(async (trx) => {
     const current = await trx.selectFrom('gags').select('status').where('id', '=', params.gagId).executeTakeFirst();
-    if (!current) throw new HttpError(404, 'Not found.');
+    if (!current) throw new Refused(404, 'Not found.');
     if (patch.status) {
       const check = checkManualMove(current.status, patch.status);
       if (!check.ok) {
-        throw new HttpError(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
+        throw new Refused(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
       }
     }
     await updateGag(trx, params.gagId, patch);

@@ -1,5 +1,5 @@
 import { findVolume, listEntries, unplacedGags, updateVolume } from '@/db/queries/volumes';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { Refused, parseBody, withSeriesRole } from '@/lib/http/route';
 import { specIssues, updateVolumeSchema } from '@/lib/validation/volume';
 import { byVolumeId } from '@/lib/http/series-of';
 
@@ -17,6 +17,6 @@ export const PATCH = withSeriesRole<Params>('manage', seriesOf, async ({ req, db
   const patch = await parseBody(req, updateVolumeSchema);
   const cur = (await findVolume(db, params.volumeId))!;
   const problems = specIssues({ ...cur.spec, ...patch.spec });
-  if (problems.length) throw new HttpError(422, problems.join(' '));
+  if (problems.length) throw new Refused(422, problems.join(' '));
   return Response.json(await updateVolume(db, params.volumeId, patch));
 });

@@ -1,7 +1,7 @@
-import { CommentRefused, createComment, listThreads, mentionedMembers } from '@/db/queries/comments';
+import { createComment, listThreads, mentionedMembers } from '@/db/queries/comments';
 import { findGag } from '@/db/queries/gags';
 import { notifyMentions } from '@/lib/mail/notify';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { commentCreateSchema } from '@/lib/validation/review';
 import { byGagId } from '@/lib/http/series-of';
 import { gagChanged } from '@/lib/live/events';
@@ -15,15 +15,10 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params 
 /** A new thread or a reply; @name mentions a member, who is told by e-mail. */
 export const POST = withSeriesRole<Params>('comment', seriesOf, async ({ req, db, params, user, seriesId }) => {
   const input = await parseBody(req, commentCreateSchema);
-  try {
-    const comment = await createComment(db, { ...input, gagId: params.gagId, seriesId, authorId: user.id });
-    await gagChanged(seriesId, params.gagId, ['comments'], ['activity']);
-    const gag = await findGag(db, params.gagId);
-    const mentioned = await mentionedMembers(db, seriesId, input.body);
-    if (gag && mentioned.length) await notifyMentions(db, { userIds: mentioned, author: user, gag: { id: gag.id, seriesId, title: gag.title }, body: input.body });
-    return Response.json({ ...comment, mentioned }, { status: 201 });
-  } catch (err) {
-    if (err instanceof CommentRefused) throw new HttpError(422, err.message);
-    throw err;
-  }
+  const comment = await createComment(db, { ...input, gagId: params.gagId, seriesId, authorId: user.id });
+  await gagChanged(seriesId, params.gagId, ['comments'], ['activity']);
+  const gag = await findGag(db, params.gagId);
+  const mentioned = await mentionedMembers(db, seriesId, input.body);
+  if (gag && mentioned.length) await notifyMentions(db, { userIds: mentioned, author: user, gag: { id: gag.id, seriesId, title: gag.title }, body: input.body });
+  return Response.json({ ...comment, mentioned }, { status: 201 });
 });

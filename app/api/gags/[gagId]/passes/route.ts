@@ -1,5 +1,5 @@
-import { OpRefused, createPass, listPasses } from '@/db/queries/passes';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { createPass, listPasses } from '@/db/queries/passes';
+import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { createPassSchema } from '@/lib/validation/pass';
 import { byGagId } from '@/lib/http/series-of';
 import { gagChanged } from '@/lib/live/events';
@@ -14,12 +14,7 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params 
 /** A new pass, blank or as a copy of an earlier one: `{ copyFrom?: passNumber }`. */
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, user, seriesId }) => {
   const input = await parseBody(req, createPassSchema);
-  try {
-    const pass = await createPass(db, { gagId: params.gagId, userId: user.id, copyFrom: input.copyFrom });
-    await gagChanged(seriesId, params.gagId, ['passes'], ['gags', 'activity']);
-    return Response.json(pass, { status: 201 });
-  } catch (err) {
-    if (err instanceof OpRefused) throw new HttpError(422, err.message, [{ path: ['copyFrom'], message: err.message }]);
-    throw err;
-  }
+  const pass = await createPass(db, { gagId: params.gagId, userId: user.id, copyFrom: input.copyFrom });
+  await gagChanged(seriesId, params.gagId, ['passes'], ['gags', 'activity']);
+  return Response.json(pass, { status: 201 });
 });

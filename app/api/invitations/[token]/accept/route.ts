@@ -1,15 +1,10 @@
-import { MemberRefused, acceptInvitation } from '@/db/queries/members';
-import { HttpError, withUser } from '@/lib/http/route';
+import { acceptInvitation } from '@/db/queries/members';
+import { withUser } from '@/lib/http/route';
 import { seriesChanged } from '@/lib/live/events';
 
 /** The signed-in person joins the series with the invited role. 410 when used or expired. */
 export const POST = withUser<{ token: string }>(async ({ db, params, user }) => {
-  try {
-    const joined = await acceptInvitation(db, params.token, user.id);
-    await seriesChanged(joined.seriesId, ['members', 'activity']);
-    return Response.json(joined);
-  } catch (err) {
-    if (err instanceof MemberRefused) throw new HttpError(err.status, err.message);
-    throw err;
-  }
+  const joined = await acceptInvitation(db, params.token, user.id);
+  await seriesChanged(joined.seriesId, ['members', 'activity']);
+  return Response.json(joined);
 });

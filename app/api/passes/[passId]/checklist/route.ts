@@ -1,5 +1,5 @@
 import { passChecklist, setTicks } from '@/db/queries/review';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { Refused, parseBody, withSeriesRole } from '@/lib/http/route';
 import { checklistPutSchema } from '@/lib/validation/review';
 import { byPassId } from '@/lib/http/series-of';
 import { passWithGag } from '@/db/queries/pass-info';
@@ -17,7 +17,7 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params,
 export const PUT = withSeriesRole<Params>('comment', seriesOf, async ({ req, db, params, seriesId, user }) => {
   const input = await parseBody(req, checklistPutSchema);
   const problem = await setTicks(db, seriesId, params.passId, user.id, input.ticked);
-  if (problem) throw new HttpError(422, problem);
+  if (problem) throw new Refused(422, problem);
   await gagChanged(seriesId, (await passWithGag(db, params.passId))!.gagId, ['checklist']);
   return Response.json(await passChecklist(db, seriesId, params.passId));
 });

@@ -1,6 +1,6 @@
-import { StampRefused, stampPass } from '@/db/queries/stamps';
+import { stampPass } from '@/db/queries/stamps';
 import { notifyStamp } from '@/lib/mail/notify';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { stampSchema } from '@/lib/validation/review';
 import { byPassId } from '@/lib/http/series-of';
 import { passWithGag } from '@/db/queries/pass-info';
@@ -12,13 +12,8 @@ const seriesOf = byPassId;
 /** Editors and owners: `{ decision: "ready" | "again", note }`. */
 export const POST = withSeriesRole<Params>('stamp', seriesOf, async ({ req, db, params, user, seriesId }) => {
   const input = await parseBody(req, stampSchema);
-  try {
-    const stamp = await stampPass(db, { passId: params.passId, userId: user.id, decision: input.decision, note: input.note });
-    await gagChanged(seriesId, (await passWithGag(db, params.passId))!.gagId, ['stamps', 'gag'], ['gags', 'activity']);
-    await notifyStamp(db, { stampId: stamp.id, by: user });
-    return Response.json(stamp, { status: 201 });
-  } catch (err) {
-    if (err instanceof StampRefused) throw new HttpError(409, err.message);
-    throw err;
-  }
+  const stamp = await stampPass(db, { passId: params.passId, userId: user.id, decision: input.decision, note: input.note });
+  await gagChanged(seriesId, (await passWithGag(db, params.passId))!.gagId, ['stamps', 'gag'], ['gags', 'activity']);
+  await notifyStamp(db, { stampId: stamp.id, by: user });
+  return Response.json(stamp, { status: 201 });
 });

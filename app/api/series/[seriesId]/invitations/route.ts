@@ -1,9 +1,9 @@
-import { MemberRefused, createInvitation, listInvitations } from '@/db/queries/members';
+import { createInvitation, listInvitations } from '@/db/queries/members';
 import { findSeries } from '@/db/queries/series';
 import { invitationMail } from '@/lib/mail/templates';
 import { appUrl } from '@/lib/mail/notify';
 import { sendMail } from '@/lib/mail/transport';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { inviteSchema } from '@/lib/validation/members';
 import { bySeriesId } from '@/lib/http/series-of';
 
@@ -16,18 +16,13 @@ export const GET = withSeriesRole<Params>('manage', seriesOf, async ({ db, serie
 /** `{ email, role }` → 201; the invitation goes out by e-mail with a one-time link valid 7 days. */
 export const POST = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId, user }) => {
   const input = await parseBody(req, inviteSchema);
-  try {
-    const inv = await createInvitation(db, { seriesId, email: input.email, role: input.role, invitedBy: user.id });
-    const series = await findSeries(db, seriesId);
-    const sent = await sendMail(
-      db,
-      input.email,
-      'invitation',
-      invitationMail({ seriesTitle: series!.title, inviter: user.name, role: input.role, link: `${appUrl()}/invite/${inv.token}`, expiresAt: inv.expiresAt }),
-    );
-    return Response.json({ id: inv.id, email: input.email, role: input.role, expiresAt: inv.expiresAt.toISOString(), mailed: sent.ok }, { status: 201 });
-  } catch (err) {
-    if (err instanceof MemberRefused) throw new HttpError(err.status, err.message);
-    throw err;
-  }
+  const inv = await createInvitation(db, { seriesId, email: input.email, role: input.role, invitedBy: user.id });
+  const series = await findSeries(db, seriesId);
+  const sent = await sendMail(
+    db,
+    input.email,
+    'invitation',
+    invitationMail({ seriesTitle: series!.title, inviter: user.name, role: input.role, link: `${appUrl()}/invite/${inv.token}`, expiresAt: inv.expiresAt }),
+  );
+  return Response.json({ id: inv.id, email: input.email, role: input.role, expiresAt: inv.expiresAt.toISOString(), mailed: sent.ok }, { status: 201 });
 });

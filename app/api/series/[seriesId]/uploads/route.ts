@@ -1,8 +1,8 @@
 // Uploads of scans and photos (multipart, field "file", several allowed).
 import { findUploadBySha, insertUpload, listUploads } from '@/db/queries/uploads';
-import { HttpError, jsonError, withSeriesRole } from '@/lib/http/route';
+import { jsonError, withSeriesRole } from '@/lib/http/route';
 import { putObject } from '@/lib/storage/s3';
-import { ACCEPTED, MAX_UPLOAD_BYTES, UploadRefused, prepareUpload } from '@/lib/uploads/process';
+import { ACCEPTED, MAX_UPLOAD_BYTES, prepareUpload } from '@/lib/uploads/process';
 import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
@@ -23,13 +23,7 @@ export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, s
   const file = form.get('file');
   if (!(file instanceof Blob)) return jsonError(422, 'Send the image in a field named "file".');
   if (file.size > MAX_UPLOAD_BYTES) return jsonError(413, 'The file is over 25 MB.');
-  let prepared;
-  try {
-    prepared = await prepareUpload(Buffer.from(await file.arrayBuffer()));
-  } catch (err) {
-    if (err instanceof UploadRefused) throw new HttpError(err.status, err.message);
-    throw err;
-  }
+  const prepared = await prepareUpload(Buffer.from(await file.arrayBuffer()));
   const existing = await findUploadBySha(db, seriesId, prepared.sha256);
   if (existing) return Response.json({ ...existing, duplicate: true }, { status: 200 });
   const ext = ACCEPTED[prepared.mime];

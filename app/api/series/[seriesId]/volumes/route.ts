@@ -1,5 +1,5 @@
 import { createVolume, listVolumes } from '@/db/queries/volumes';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { Refused, parseBody, withSeriesRole } from '@/lib/http/route';
 import { DEFAULT_VOLUME_SPEC } from '@/lib/print/book';
 import { createVolumeSchema, specIssues } from '@/lib/validation/volume';
 import { bySeriesId } from '@/lib/http/series-of';
@@ -13,6 +13,6 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesI
 export const POST = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId }) => {
   const input = await parseBody(req, createVolumeSchema);
   const problems = specIssues({ ...DEFAULT_VOLUME_SPEC, ...input.spec });
-  if (problems.length) throw new HttpError(422, problems.join(' '));
+  if (problems.length) throw new Refused(422, problems.join(' '));
   return Response.json(await createVolume(db, { seriesId, ...input }), { status: 201 });
 });

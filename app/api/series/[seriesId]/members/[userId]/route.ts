@@ -1,5 +1,5 @@
-import { MemberRefused, changeRole, listMembers, removeMember } from '@/db/queries/members';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { changeRole, listMembers, removeMember } from '@/db/queries/members';
+import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { roleSchema } from '@/lib/validation/members';
 import { bySeriesId } from '@/lib/http/series-of';
 import { accessChanged } from '@/lib/live/events';
@@ -7,22 +7,17 @@ import { accessChanged } from '@/lib/live/events';
 type Params = { seriesId: string; userId: string };
 const seriesOf = bySeriesId;
 
-function refused(err: unknown): never {
-  if (err instanceof MemberRefused) throw new HttpError(err.status, err.message);
-  throw err;
-}
-
 /** Owners change a member's role (`{ role }`); the last owner stays an owner. */
 export const PATCH = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId, params }) => {
   const { role } = await parseBody(req, roleSchema);
-  await changeRole(db, seriesId, params.userId, role).catch(refused);
+  await changeRole(db, seriesId, params.userId, role);
   await accessChanged(seriesId, params.userId);
   return Response.json((await listMembers(db, seriesId)).find((m) => m.userId === params.userId));
 });
 
 /** Owners remove a member; never the last owner. */
 export const DELETE = withSeriesRole<Params>('manage', seriesOf, async ({ db, seriesId, params }) => {
-  await removeMember(db, seriesId, params.userId).catch(refused);
+  await removeMember(db, seriesId, params.userId);
   await accessChanged(seriesId, params.userId);
   return new Response(null, { status: 204 });
 });

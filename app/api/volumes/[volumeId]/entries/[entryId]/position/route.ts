@@ -1,5 +1,5 @@
-import { VolumeRefused, moveEntry } from '@/db/queries/volumes';
-import { HttpError, parseBody, withSeriesRole } from '@/lib/http/route';
+import { moveEntry } from '@/db/queries/volumes';
+import { parseBody, withSeriesRole } from '@/lib/http/route';
 import { moveEntrySchema } from '@/lib/validation/volume';
 import { byVolumeId } from '@/lib/http/series-of';
 
@@ -9,10 +9,5 @@ const seriesOf = byVolumeId;
 /** `{ before: entryId }` or `{ after: entryId }`: one row is rewritten. */
 export const PUT = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params }) => {
   const to = await parseBody(req, moveEntrySchema);
-  try {
-    return Response.json({ id: params.entryId, position: await moveEntry(db, params.volumeId, params.entryId, to) });
-  } catch (err) {
-    if (err instanceof VolumeRefused) throw new HttpError(err.status, err.message);
-    throw err;
-  }
+  return Response.json({ id: params.entryId, position: await moveEntry(db, params.volumeId, params.entryId, to) });
 });
