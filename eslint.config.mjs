@@ -39,9 +39,24 @@ const config = [
           patterns: [
             { group: ['@/db/*', '@/db', '../db/*', '**/db/*'], message: 'The pure core imports nothing from the database layer.' },
             { group: ['next', 'next/*', 'next-auth', 'next-auth/*'], message: 'The pure core imports nothing from Next.' },
-            { group: ['react', 'react-dom', 'react/*', 'swr', 'konva', 'react-konva'], message: 'The pure core imports nothing from React or the canvas.' },
             {
-              group: ['@/lib/auth/*', '@/lib/http/*', '@/lib/live/*', '@/lib/mail/*', '@/lib/storage/*', '@/lib/data/*', '@/lib/uploads/*', '@/lib/export/*', '@/components/*', '@/hooks/*', '@/app/*'],
+              group: ['react', 'react-dom', 'react/*', 'swr', 'konva', 'react-konva'],
+              message: 'The pure core imports nothing from React or the canvas.',
+            },
+            {
+              group: [
+                '@/lib/auth/*',
+                '@/lib/http/*',
+                '@/lib/live/*',
+                '@/lib/mail/*',
+                '@/lib/storage/*',
+                '@/lib/data/*',
+                '@/lib/uploads/*',
+                '@/lib/export/*',
+                '@/components/*',
+                '@/hooks/*',
+                '@/app/*',
+              ],
               message: 'The pure core imports no server service and no UI.',
             },
             { group: ['server-only', 'node:*'], message: 'The pure core runs anywhere: no server-only or Node modules.' },

@@ -13,7 +13,9 @@ export async function register() {
       console.log(`[mail] local SMTP fake on 127.0.0.1:${port}; caught mail at /dev/mail`);
     } catch (err) {
       const code = (err as { code?: string }).code;
-      console.log(code === 'EADDRINUSE' ? `[mail] port ${port} busy: using the SMTP fake already there` : `[mail] SMTP fake not started: ${String(err)}`);
+      console.log(
+        code === 'EADDRINUSE' ? `[mail] port ${port} busy: using the SMTP fake already there` : `[mail] SMTP fake not started: ${String(err)}`,
+      );
     }
   }
   if (!process.env.S3_ENDPOINT && process.env.S3_FAKE !== 'off') {
@@ -25,7 +27,9 @@ export async function register() {
       console.log(`[storage] local S3 fake on 127.0.0.1:${port}`);
     } catch (err) {
       const code = (err as { code?: string }).code;
-      console.log(code === 'EADDRINUSE' ? `[storage] port ${port} busy: using the S3 fake already there` : `[storage] S3 fake not started: ${String(err)}`);
+      console.log(
+        code === 'EADDRINUSE' ? `[storage] port ${port} busy: using the S3 fake already there` : `[storage] S3 fake not started: ${String(err)}`,
+      );
     }
   }
 }

@@ -10,7 +10,11 @@ const config: Config = {
         paper: { DEFAULT: '#f7f2e8', deep: '#efe7d6', edge: '#ded3bd' },
         graphite: { DEFAULT: '#2a2a2d', soft: '#4a4a50', faint: '#77767d' },
         marker: {
-          10: '#ecebe8', 20: '#d9d7d2', 40: '#b4b1aa', 60: '#8c8983', 80: '#5f5d59',
+          10: '#ecebe8',
+          20: '#d9d7d2',
+          40: '#b4b1aa',
+          60: '#8c8983',
+          80: '#5f5d59',
         },
         ink: { DEFAULT: '#1d4e6e', hover: '#163c55', light: '#dbe8f0' },
         stamp: { DEFAULT: '#b8321f', light: '#f6dcd6' },

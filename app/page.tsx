@@ -11,12 +11,10 @@ export default async function Landing() {
     <main className="mx-auto grid min-h-screen max-w-5xl items-center gap-10 px-4 py-10 md:grid-cols-[1.2fr_1fr]">
       <section className="space-y-5">
         <Wordmark />
-        <h1 className="text-4xl font-extrabold leading-tight md:text-5xl">
-          Four beats. One square page. No words needed.
-        </h1>
+        <h1 className="text-4xl font-extrabold leading-tight md:text-5xl">Four beats. One square page. No words needed.</h1>
         <p className="max-w-prose text-lg text-graphite-soft">
-          Quadrille is the shared thumbnail board for wordless four-panel gags: rough out the setup, build, turn and
-          payoff, compare passes, talk them over, and let your editor stamp the one that is ready to ink.
+          Quadrille is the shared thumbnail board for wordless four-panel gags: rough out the setup, build, turn and payoff, compare passes, talk them
+          over, and let your editor stamp the one that is ready to ink.
         </p>
         <ol className="grid max-w-md grid-cols-2 gap-2 text-sm" aria-label="The four beats">
           {['Setup', 'Build', 'Turn', 'Payoff'].map((b, i) => (

@@ -22,9 +22,7 @@ export function isPostgresUrl(url: string): boolean {
 /** Resolves `file:relative/or/absolute.sqlite` to a path on disk. */
 export function sqlitePathFromUrl(url: string): string {
   if (!url.startsWith('file:')) {
-    throw new Error(
-      `DATABASE_URL must be a file: URL for SQLite or a postgres:// URL for PostgreSQL (got "${url.split(':')[0]}:…").`,
-    );
+    throw new Error(`DATABASE_URL must be a file: URL for SQLite or a postgres:// URL for PostgreSQL (got "${url.split(':')[0]}:…").`);
   }
   const raw = url.slice('file:'.length).replace(/^\/\/(?=\/)/, '');
   return path.resolve(raw);

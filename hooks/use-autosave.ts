@@ -7,12 +7,7 @@ import { ApiError } from '@/lib/http/client';
 
 export type SaveState = 'saved' | 'pending' | 'saving' | 'error';
 
-export function useAutosave<P>(opts: {
-  save: (patch: P) => Promise<void>;
-  merge: (older: P, newer: P) => P;
-  delay?: number;
-  retryMs?: number;
-}) {
+export function useAutosave<P>(opts: { save: (patch: P) => Promise<void>; merge: (older: P, newer: P) => P; delay?: number; retryMs?: number }) {
   const { delay = 700, retryMs = 3000 } = opts;
   const [state, setState] = useState<SaveState>('saved');
   const [message, setMessage] = useState<string | null>(null);
@@ -81,9 +76,12 @@ export function useAutosave<P>(opts: {
     return () => window.removeEventListener('beforeunload', warn);
   }, []);
 
-  useEffect(() => () => {
-    if (timer.current) clearTimeout(timer.current);
-  }, []);
+  useEffect(
+    () => () => {
+      if (timer.current) clearTimeout(timer.current);
+    },
+    [],
+  );
 
   return { state, message, queue, flush };
 }

@@ -32,7 +32,11 @@ export function useLiveEvents(fn: (e: LiveMessage) => void) {
  * `types` arrives (and whenever the stream (re)opens, to catch up); polled
  * every `pollMs` only while there is no stream.
  */
-export function useLiveSWR<T>(key: Key, fetcher: ((url: string) => Promise<T>) | null, opts: SWRConfiguration<T> & { types: string[]; pollMs: number }) {
+export function useLiveSWR<T>(
+  key: Key,
+  fetcher: ((url: string) => Promise<T>) | null,
+  opts: SWRConfiguration<T> & { types: string[]; pollMs: number },
+) {
   const { types, pollMs, ...swrOpts } = opts;
   const live = useLive();
   const swr = useSWR<T>(key, fetcher, { ...swrOpts, refreshInterval: live.connected ? 0 : pollMs });

@@ -12,7 +12,6 @@ import type { ActivityDto } from '@/db/queries/activity';
 import { api, fetcher } from '@/lib/http/client';
 import type { Findings } from '@/lib/review/findings';
 
-
 export function useChecklist(passId: string | null) {
   const swr = useLiveSWR<ChecklistItemDto[]>(passId ? `/api/passes/${passId}/checklist` : null, fetcher, { types: ['checklist'], pollMs: 2000 });
   async function setTicked(ids: string[]) {
@@ -23,7 +22,10 @@ export function useChecklist(passId: string | null) {
 }
 
 export function useFindings(passId: string | null, seq?: number) {
-  return useLiveSWR<Findings>(passId ? `/api/passes/${passId}/findings${seq !== undefined ? `?v=${seq}` : ''}` : null, fetcher, { types: ['passes', 'gag'], pollMs: 5000 });
+  return useLiveSWR<Findings>(passId ? `/api/passes/${passId}/findings${seq !== undefined ? `?v=${seq}` : ''}` : null, fetcher, {
+    types: ['passes', 'gag'],
+    pollMs: 5000,
+  });
 }
 
 export function useStamps(gagId: string | null) {
@@ -71,5 +73,8 @@ export function useMembers(seriesId: string | null) {
 }
 
 export function useActivity(seriesId: string) {
-  return useLiveSWR<{ items: ActivityDto[]; nextBefore: number | null }>(`/api/series/${seriesId}/activity?limit=15`, fetcher, { types: ['activity'], pollMs: 5000 });
+  return useLiveSWR<{ items: ActivityDto[]; nextBefore: number | null }>(`/api/series/${seriesId}/activity?limit=15`, fetcher, {
+    types: ['activity'],
+    pollMs: 5000,
+  });
 }

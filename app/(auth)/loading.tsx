@@ -1,3 +1,7 @@
 export default function Loading() {
-  return <p role="status" className="text-graphite-faint">One moment…</p>;
+  return (
+    <p role="status" className="text-graphite-faint">
+      One moment…
+    </p>
+  );
 }

@@ -23,9 +23,7 @@ function safeReturn(url: string | null | undefined): string {
 
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl?: string; initialError?: string }) {
   const router = useRouter();
-  const [error, setError] = useState<string | null>(
-    initialError ? (MESSAGES[initialError] ?? 'Sign-in failed. Try again.') : null,
-  );
+  const [error, setError] = useState<string | null>(initialError ? (MESSAGES[initialError] ?? 'Sign-in failed. Try again.') : null);
   const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
 
   const onSubmit = handleSubmit(async (values) => {

@@ -18,17 +18,7 @@ import { NewGagForm } from './new-gag-form';
 
 type View = 'board' | 'table';
 
-export function Board({
-  seriesId,
-  seriesTitle,
-  role,
-  initialGags,
-}: {
-  seriesId: string;
-  seriesTitle: string;
-  role: Role;
-  initialGags: GagDto[];
-}) {
+export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: string; seriesTitle: string; role: Role; initialGags: GagDto[] }) {
   const { data, createGag, mutate } = useGags(seriesId, initialGags);
   const [view, setView] = useState<View>('board');
   const [query, setQuery] = useState('');
@@ -58,7 +48,10 @@ export function Board({
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <p className="text-sm text-graphite-faint">
-            <Link href="/series" className="hover:underline">My series</Link> / board
+            <Link href="/series" className="hover:underline">
+              My series
+            </Link>{' '}
+            / board
           </p>
           <h1 className="text-3xl font-extrabold">{seriesTitle}</h1>
           <p className="text-sm text-graphite-soft">
@@ -110,12 +103,7 @@ export function Board({
           <label htmlFor="status-filter" className="mb-1 block text-sm font-bold text-graphite-soft">
             Status
           </label>
-          <select
-            id="status-filter"
-            value={status}
-            onChange={(e) => setStatus(e.target.value as GagStatus | 'all')}
-            className="field w-auto"
-          >
+          <select id="status-filter" value={status} onChange={(e) => setStatus(e.target.value as GagStatus | 'all')} className="field w-auto">
             <option value="all">All statuses</option>
             {GAG_STATUSES.map((s) => (
               <option key={s} value={s}>
@@ -141,11 +129,7 @@ export function Board({
           {columns.map((s) => {
             const inColumn = gags.filter((g) => g.status === s);
             return (
-              <section
-                key={s}
-                aria-label={STATUS_LABELS[s]}
-                className="w-64 shrink-0 rounded-lg border border-paper-edge bg-paper-deep/50 p-2"
-              >
+              <section key={s} aria-label={STATUS_LABELS[s]} className="w-64 shrink-0 rounded-lg border border-paper-edge bg-paper-deep/50 p-2">
                 <h2 className="flex items-center justify-between px-1 pb-2 font-sans text-sm font-bold">
                   <span>{STATUS_LABELS[s]}</span>
                   <span className="rounded-full bg-white px-2 text-xs text-graphite-faint">

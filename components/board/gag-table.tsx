@@ -1,14 +1,7 @@
 'use client';
 // The table view of the board (TanStack Table): sortable columns; the search
 // and status filter are applied by the board before rows arrive here.
-import {
-  type ColumnDef,
-  type SortingState,
-  flexRender,
-  getCoreRowModel,
-  getSortedRowModel,
-  useReactTable,
-} from '@tanstack/react-table';
+import { type ColumnDef, type SortingState, flexRender, getCoreRowModel, getSortedRowModel, useReactTable } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown } from 'lucide-react';
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
@@ -97,12 +90,7 @@ export function GagTable({
                 const dir = h.column.getIsSorted();
                 const Icon = dir === 'asc' ? ArrowUp : dir === 'desc' ? ArrowDown : ArrowUpDown;
                 return (
-                  <th
-                    key={h.id}
-                    scope="col"
-                    aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}
-                    className="px-3 py-2"
-                  >
+                  <th key={h.id} scope="col" aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'} className="px-3 py-2">
                     <button
                       type="button"
                       onClick={h.column.getToggleSortingHandler()}

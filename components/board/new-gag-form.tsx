@@ -37,7 +37,11 @@ export function NewGagForm({ onCreate }: { onCreate: (input: CreateGagInput) => 
         Add gag
       </Button>
       <div className="md:col-span-3" aria-live="polite">
-        {error && <p role="alert" className="text-sm text-stamp">{error}</p>}
+        {error && (
+          <p role="alert" className="text-sm text-stamp">
+            {error}
+          </p>
+        )}
         {created && !error && <p className="text-sm text-graphite-soft">Added “{created}” as an idea.</p>}
       </div>
     </form>

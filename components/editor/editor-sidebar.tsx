@@ -12,7 +12,15 @@ import type { LightboxArranging } from './use-lightbox-arranging';
 
 export type PointPin = { panel: number; x: number; y: number };
 
-export function FindingsPanel({ findings, highlight, setHighlight }: { findings: Findings; highlight: boolean; setHighlight: (on: boolean) => void }) {
+export function FindingsPanel({
+  findings,
+  highlight,
+  setHighlight,
+}: {
+  findings: Findings;
+  highlight: boolean;
+  setHighlight: (on: boolean) => void;
+}) {
   return (
     <section className="panel p-3 text-sm" aria-labelledby="editor-findings">
       <div className="mb-1 flex items-center justify-between">

@@ -146,7 +146,13 @@ export function EditorStage(p: {
             </Group>
           );
         })}
-        <Transformer ref={lightboxTransformer} rotateEnabled={false} keepRatio enabledAnchors={['top-left', 'top-right', 'bottom-left', 'bottom-right']} ignoreStroke />
+        <Transformer
+          ref={lightboxTransformer}
+          rotateEnabled={false}
+          keepRatio
+          enabledAnchors={['top-left', 'top-right', 'bottom-left', 'bottom-right']}
+          ignoreStroke
+        />
       </Layer>
       <Layer ref={strokesLayerRef} listening={false} {...layer}>
         {panels.map((r, i) => (
@@ -189,11 +195,33 @@ export function EditorStage(p: {
           return (
             <Group key={t.id} x={x} y={y} listening={false} name="comment-pin">
               <Circle radius={rad} fill={INK} stroke="#ffffff" strokeWidth={1.5} strokeScaleEnabled={false} />
-              <Text text={String(i + 1)} fontSize={11 / view.scale} fill="#ffffff" width={2 * rad} height={2 * rad} offsetX={rad} offsetY={rad} align="center" verticalAlign="middle" fontStyle="bold" />
+              <Text
+                text={String(i + 1)}
+                fontSize={11 / view.scale}
+                fill="#ffffff"
+                width={2 * rad}
+                height={2 * rad}
+                offsetX={rad}
+                offsetY={rad}
+                align="center"
+                verticalAlign="middle"
+                fontStyle="bold"
+              />
             </Group>
           );
         })}
-        {v.pointPin && <Circle x={v.pointPin.x} y={v.pointPin.y} radius={6 / view.scale} fill={WARN} stroke="#ffffff" strokeWidth={1.5} strokeScaleEnabled={false} listening={false} />}
+        {v.pointPin && (
+          <Circle
+            x={v.pointPin.x}
+            y={v.pointPin.y}
+            radius={6 / view.scale}
+            fill={WARN}
+            stroke="#ffffff"
+            strokeWidth={1.5}
+            strokeScaleEnabled={false}
+            listening={false}
+          />
+        )}
         <Transformer ref={roomTransformer} rotateEnabled={false} ignoreStroke keepRatio={false} />
         <Shape sceneFunc={v.drawOverlay} listening={false} />
       </Layer>

@@ -111,7 +111,16 @@ export default function Editor(props: EditorProps) {
     if (fx.panBy) v.panBy(fx.panBy.dx, fx.panBy.dy);
   };
   const redrawOverlay = () => overlayLayerRef.current?.batchDraw();
-  const gestures = usePointerGestures({ wrapRef, stageRef, view: () => v.viewRef.current, setView: v.setView, settings, scene, apply, redraw: redrawOverlay });
+  const gestures = usePointerGestures({
+    wrapRef,
+    stageRef,
+    view: () => v.viewRef.current,
+    setView: v.setView,
+    settings,
+    scene,
+    apply,
+    redraw: redrawOverlay,
+  });
 
   useEffect(() => {
     overlayLayerRef.current?.batchDraw();

@@ -80,7 +80,10 @@ export type Effects = {
 
 export type Step = { gesture: Gesture | null; effects: Effects };
 
-const clampToBox = (p: { x: number; y: number }, b: Rect) => ({ x: Math.min(b.x + b.w, Math.max(b.x, p.x)), y: Math.min(b.y + b.h, Math.max(b.y, p.y)) });
+const clampToBox = (p: { x: number; y: number }, b: Rect) => ({
+  x: Math.min(b.x + b.w, Math.max(b.x, p.x)),
+  y: Math.min(b.y + b.h, Math.max(b.y, p.y)),
+});
 const r2 = (n: number) => Math.round(n * 100) / 100;
 
 /** The panel under a point, or the nearest one when the point is in a gutter or the margin. */
@@ -101,7 +104,10 @@ export function nearestPanel(spec: PageSpec, x: number, y: number): number {
 
 export function unionBounds(strokes: Stroke[]): Rect | null {
   if (strokes.length === 0) return null;
-  return pointsBounds(strokes.flatMap((s) => s.points), Math.max(...strokes.map((s) => s.size)) / 2);
+  return pointsBounds(
+    strokes.flatMap((s) => s.points),
+    Math.max(...strokes.map((s) => s.size)) / 2,
+  );
 }
 
 function eraseAt(scene: Scene, g: Extract<Gesture, { kind: 'erase' }>, x: number, y: number): Effects {
@@ -143,7 +149,13 @@ export function pointerDown(settings: Settings, scene: Scene, e: PointerInput): 
     case 'pen':
     case 'tone':
       return {
-        gesture: { kind: 'draw', pointerId: e.pointerId, panel: nearestPanel(scene.spec, at.x, at.y), points: [[at.x, at.y, pressureOf(e.pointerType, e.pressure)]], tool },
+        gesture: {
+          kind: 'draw',
+          pointerId: e.pointerId,
+          panel: nearestPanel(scene.spec, at.x, at.y),
+          points: [[at.x, at.y, pressureOf(e.pointerType, e.pressure)]],
+          tool,
+        },
         effects: { capture: true },
       };
     case 'eraser': {
@@ -153,7 +165,10 @@ export function pointerDown(settings: Settings, scene: Scene, e: PointerInput): 
     case 'lasso': {
       const b = unionBounds(scene.selection);
       if (b && e.x >= b.x && e.x <= b.x + b.w && e.y >= b.y && e.y <= b.y + b.h) {
-        return { gesture: { kind: 'drag-selection', pointerId: e.pointerId, start: { x: e.x, y: e.y }, dx: 0, dy: 0, bounds: b }, effects: { capture: true } };
+        return {
+          gesture: { kind: 'drag-selection', pointerId: e.pointerId, start: { x: e.x, y: e.y }, dx: 0, dy: 0, bounds: b },
+          effects: { capture: true },
+        };
       }
       return { gesture: { kind: 'lasso', pointerId: e.pointerId, path: [[e.x, e.y]] }, effects: { select: [], capture: true } };
     }
@@ -232,7 +247,15 @@ export function pointerUp(g: Gesture | null, settings: Settings, scene: Scene, e
       const w = Math.abs(g.end.x - g.start.x);
       const h = Math.abs(g.end.y - g.start.y);
       if (w <= 2 || h <= 2) return { gesture: null, effects: {} };
-      const room: Room = { id: scene.newId(), panel: g.panel, shape: settings.roomShape, x: Math.min(g.start.x, g.end.x), y: Math.min(g.start.y, g.end.y), w, h };
+      const room: Room = {
+        id: scene.newId(),
+        panel: g.panel,
+        shape: settings.roomShape,
+        x: Math.min(g.start.x, g.end.x),
+        y: Math.min(g.start.y, g.end.y),
+        w,
+        h,
+      };
       return { gesture: null, effects: { ops: [{ op: 'room', room }], undo: roomChanged(null, room), selectRoom: room.id } };
     }
     case 'pan':

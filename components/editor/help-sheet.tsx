@@ -3,7 +3,6 @@ import { Button } from '@/components/ui/button';
 import { Modal } from '@/components/ui/modal';
 import { SHORTCUTS } from './shortcuts';
 
-
 export function HelpSheet({ open, onClose }: { open: boolean; onClose: () => void }) {
   return (
     <Modal open={open} onClose={onClose} labelledBy="help-title" width="34rem">

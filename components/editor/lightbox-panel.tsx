@@ -19,9 +19,12 @@ export const targetLabel = (t: Target) => (t === null ? 'Whole page' : `Panel ${
 function useDraft(value: number, commit: (v: number) => void, wait = 250) {
   const [draft, setDraft] = useState<number | null>(null);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
-  useEffect(() => () => {
-    if (timer.current) clearTimeout(timer.current);
-  }, []);
+  useEffect(
+    () => () => {
+      if (timer.current) clearTimeout(timer.current);
+    },
+    [],
+  );
   const change = (v: number) => {
     setDraft(v);
     if (timer.current) clearTimeout(timer.current);
@@ -37,7 +40,16 @@ function SliderRow(p: { label: string; aria: string; min: number; max: number; v
   return (
     <label className="flex items-center gap-2 text-xs">
       <span className="w-14">{p.label}</span>
-      <input type="range" min={p.min} max={p.max} step={5} value={p.value} aria-label={p.aria} onChange={(e) => p.onChange(Number(e.target.value))} className="flex-1" />
+      <input
+        type="range"
+        min={p.min}
+        max={p.max}
+        step={5}
+        value={p.value}
+        aria-label={p.aria}
+        onChange={(e) => p.onChange(Number(e.target.value))}
+        className="flex-1"
+      />
       <output className="w-9 text-right">{p.value}%</output>
     </label>
   );
@@ -64,7 +76,11 @@ function PlacedLightbox(p: {
   const check = upload ? printCheck(lightboxPpi(l, upload)) : null;
   const name = upload?.name ?? 'Deleted scan';
   return (
-    <li className={`space-y-1 rounded border p-2 ${p.selected ? 'border-ink' : 'border-paper-edge'}`} data-testid="lightbox-item" aria-label={`Lightbox ${name}`}>
+    <li
+      className={`space-y-1 rounded border p-2 ${p.selected ? 'border-ink' : 'border-paper-edge'}`}
+      data-testid="lightbox-item"
+      aria-label={`Lightbox ${name}`}
+    >
       <div className="flex items-center gap-2">
         {upload ? (
           // eslint-disable-next-line @next/next/no-img-element -- served by our own route after a role check
@@ -89,7 +105,11 @@ function PlacedLightbox(p: {
         )}
       </div>
       {check && (
-        <p className={`text-xs ${check.level === 'low' ? 'font-bold text-stamp' : 'text-graphite-soft'}`} data-testid="print-check" role={check.level === 'low' ? 'status' : undefined}>
+        <p
+          className={`text-xs ${check.level === 'low' ? 'font-bold text-stamp' : 'text-graphite-soft'}`}
+          data-testid="print-check"
+          role={check.level === 'low' ? 'status' : undefined}
+        >
           Print check: {check.message}
         </p>
       )}

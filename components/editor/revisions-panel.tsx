@@ -36,7 +36,11 @@ export function RevisionsPanel({ passId, canRestore, onRestored }: { passId: str
       <h2 id="revisions-title" className="mb-2 inline-flex items-center gap-1.5 font-display text-lg font-extrabold">
         <History aria-hidden className="h-4 w-4" /> Revisions
       </h2>
-      {error && <p role="alert" className="text-sm text-stamp">{error}</p>}
+      {error && (
+        <p role="alert" className="text-sm text-stamp">
+          {error}
+        </p>
+      )}
       <ul className="max-h-64 space-y-1 overflow-y-auto text-sm">
         {(data ?? []).map((r) => (
           <li key={r.id} className="flex items-center justify-between gap-2 rounded px-1 py-0.5 hover:bg-paper-deep/60">
@@ -47,7 +51,12 @@ export function RevisionsPanel({ passId, canRestore, onRestored }: { passId: str
               </span>
             </span>
             {canRestore && (
-              <button type="button" disabled={busy !== null} onClick={() => void restore(r.id)} className="rounded px-2 py-0.5 text-xs font-bold text-ink hover:underline disabled:opacity-50">
+              <button
+                type="button"
+                disabled={busy !== null}
+                onClick={() => void restore(r.id)}
+                className="rounded px-2 py-0.5 text-xs font-bold text-ink hover:underline disabled:opacity-50"
+              >
                 {busy === r.id ? 'Restoring…' : 'Restore'}
               </button>
             )}

@@ -1,5 +1,22 @@
 'use client';
-import { Circle, Eraser, Hand, Highlighter, ImageUp, Keyboard, Lasso, MapPin, PenLine, Redo2, Square, SquareDashed, Undo2, ZoomIn, ZoomOut, Maximize } from 'lucide-react';
+import {
+  Circle,
+  Eraser,
+  Hand,
+  Highlighter,
+  ImageUp,
+  Keyboard,
+  Lasso,
+  MapPin,
+  PenLine,
+  Redo2,
+  Square,
+  SquareDashed,
+  Undo2,
+  ZoomIn,
+  ZoomOut,
+  Maximize,
+} from 'lucide-react';
 import { TONE_GREYS, type RoomShape, greyToCss } from '@/lib/strokes/types';
 import { type Guides, type Tool, toolAllowed } from './tools';
 
@@ -16,7 +33,19 @@ export const TOOL_INFO: { tool: Tool; label: string; key: string; Icon: typeof P
   { tool: 'lightbox', label: 'Arrange the lightbox', key: '8', Icon: ImageUp },
 ];
 
-function IconButton({ label, pressed, onClick, disabled, children }: { label: string; pressed?: boolean; onClick: () => void; disabled?: boolean; children: React.ReactNode }) {
+function IconButton({
+  label,
+  pressed,
+  onClick,
+  disabled,
+  children,
+}: {
+  label: string;
+  pressed?: boolean;
+  onClick: () => void;
+  disabled?: boolean;
+  children: React.ReactNode;
+}) {
   return (
     <button
       type="button"
@@ -62,7 +91,11 @@ export function EditorToolbar(p: {
 }) {
   const tools = TOOL_INFO.filter((t) => toolAllowed(t.tool, { draw: p.canDraw, comment: p.canComment }));
   return (
-    <div className="panel flex shrink-0 flex-row flex-wrap items-start gap-3 p-2 lg:w-48 lg:flex-col lg:flex-nowrap lg:overflow-y-auto" role="toolbar" aria-label="Sketch tools">
+    <div
+      className="panel flex shrink-0 flex-row flex-wrap items-start gap-3 p-2 lg:w-48 lg:flex-col lg:flex-nowrap lg:overflow-y-auto"
+      role="toolbar"
+      aria-label="Sketch tools"
+    >
       <div className="flex flex-wrap gap-1" role="group" aria-label="Tool">
         {tools.map(({ tool, label, key, Icon }) => (
           <IconButton key={tool} label={`${label} (${key})`} pressed={p.tool === tool} onClick={() => p.setTool(tool)}>

@@ -45,7 +45,15 @@ export function useLightboxArranging(o: { seriesId: string; session: PassSession
 
   const place = useCallback(
     (upload: Pick<UploadDto, 'id' | 'width' | 'height'>, target: Target) => {
-      const l: Lightbox = { id: nanoid(), uploadId: upload.id, panel: target, ...fitInto(areaOf(target), upload, 0), rotation: 0, opacity: 0.5, visible: true };
+      const l: Lightbox = {
+        id: nanoid(),
+        uploadId: upload.id,
+        panel: target,
+        ...fitInto(areaOf(target), upload, 0),
+        rotation: 0,
+        opacity: 0.5,
+        visible: true,
+      };
       change(null, l);
       setSelected(l.id);
     },
@@ -119,7 +127,27 @@ export function useLightboxArranging(o: { seriesId: string; session: PassSession
     [startJobs],
   );
 
-  return { uploads, selected, setSelected, preview, setPreview, areaOf, change, remove, removeSelected, place, placeById, edited, nudge, turn, fit, scale, fitWidthOf, jobs, upload };
+  return {
+    uploads,
+    selected,
+    setSelected,
+    preview,
+    setPreview,
+    areaOf,
+    change,
+    remove,
+    removeSelected,
+    place,
+    placeById,
+    edited,
+    nudge,
+    turn,
+    fit,
+    scale,
+    fitWidthOf,
+    jobs,
+    upload,
+  };
 }
 
 export type LightboxArranging = ReturnType<typeof useLightboxArranging>;

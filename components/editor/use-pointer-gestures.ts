@@ -56,7 +56,12 @@ export function usePointerGestures(o: Opts) {
     // Rooms and lightboxes are Konva shapes with their own drag and resize handles.
     const hit = o.stageRef.current?.getIntersection(pt);
     const handles = hit?.getParent()?.className === 'Transformer';
-    const over = hit && (hit.name() === 'room' || (handles && o.settings.tool === 'room')) ? 'room' : hit && (hit.name() === 'lightbox' || (handles && o.settings.tool === 'lightbox')) ? 'lightbox' : null;
+    const over =
+      hit && (hit.name() === 'room' || (handles && o.settings.tool === 'room'))
+        ? 'room'
+        : hit && (hit.name() === 'lightbox' || (handles && o.settings.tool === 'lightbox'))
+          ? 'lightbox'
+          : null;
     const step = pointerDown(o.settings, o.scene(), input(e, over));
     gestureRef.current = step.gesture;
     if (step.effects.capture) o.wrapRef.current?.setPointerCapture(e.pointerId);

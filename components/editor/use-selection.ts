@@ -61,7 +61,11 @@ export function useSelection(o: { session: PassSession; panels: Rect[] }) {
 
   const deleteStrokes = () => {
     const chosen = strokes();
-    if (chosen.length) commit(chosen.map((s) => ({ op: 'remove', strokeId: s.id })), removedStrokes(chosen));
+    if (chosen.length)
+      commit(
+        chosen.map((s) => ({ op: 'remove', strokeId: s.id })),
+        removedStrokes(chosen),
+      );
     setIds([]);
   };
 
@@ -75,7 +79,10 @@ export function useSelection(o: { session: PassSession; panels: Rect[] }) {
     const chosen = strokes();
     if (!chosen.length) return;
     const copies = copiesInPanel(chosen, panels, target);
-    commit(copies.map((stroke) => ({ op: 'add', stroke })), addedStrokes(copies));
+    commit(
+      copies.map((stroke) => ({ op: 'add', stroke })),
+      addedStrokes(copies),
+    );
     setIds(copies.map((c) => c.id));
   };
 
@@ -86,7 +93,10 @@ export function useSelection(o: { session: PassSession; panels: Rect[] }) {
     const sx = node.scaleX();
     const sy = node.scaleY();
     node.scale({ x: 1, y: 1 });
-    const size = before.shape === 'ellipse' ? { w: (node as Konva.Ellipse).radiusX() * 2, h: (node as Konva.Ellipse).radiusY() * 2 } : { w: node.width(), h: node.height() };
+    const size =
+      before.shape === 'ellipse'
+        ? { w: (node as Konva.Ellipse).radiusX() * 2, h: (node as Konva.Ellipse).radiusY() * 2 }
+        : { w: node.width(), h: node.height() };
     const after = roomFromNode(before, { x: node.x(), y: node.y(), ...size, sx, sy }, panels[before.panel]!);
     commit([{ op: 'room', room: after }], roomChanged(before, after));
     setRooms([...sync.doc.rooms.values()]);

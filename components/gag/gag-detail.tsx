@@ -31,17 +31,7 @@ function mergeDrafts(a: Draft, b: Draft): Draft {
   return { ...a, ...b, beats: a.beats || b.beats ? { ...a.beats, ...b.beats } : undefined };
 }
 
-export function GagDetail({
-  seriesId,
-  seriesTitle,
-  role,
-  initial,
-}: {
-  seriesId: string;
-  seriesTitle: string;
-  role: Role;
-  initial: GagDto;
-}) {
+export function GagDetail({ seriesId, seriesTitle, role, initial }: { seriesId: string; seriesTitle: string; role: Role; initial: GagDto }) {
   const router = useRouter();
   const { data, update, remove } = useGag(initial.id, initial);
   const gag = data ?? initial;
@@ -64,9 +54,7 @@ export function GagDetail({
       await update({
         title: draft.title,
         premise: draft.premise,
-        beats: draft.beats
-          ? Object.entries(draft.beats).map(([kind, note]) => ({ kind: kind as BeatKind, note: note ?? '' }))
-          : undefined,
+        beats: draft.beats ? Object.entries(draft.beats).map(([kind, note]) => ({ kind: kind as BeatKind, note: note ?? '' })) : undefined,
       });
     },
   });
@@ -232,11 +220,7 @@ export function GagDetail({
       <ConfirmDialog
         open={confirming}
         title="Delete this gag?"
-        body={
-          <>
-            “{gag.title}” and its beat notes will be gone for everyone in the series. This cannot be undone.
-          </>
-        }
+        body={<>“{gag.title}” and its beat notes will be gone for everyone in the series. This cannot be undone.</>}
         confirmLabel={deleting ? 'Deleting…' : 'Delete gag'}
         busy={deleting}
         onCancel={() => setConfirming(false)}

@@ -41,7 +41,11 @@ export function NewPassButton({ seriesId, gagId, passNumbers }: { seriesId: stri
       <Button onClick={() => void start()} disabled={busy}>
         <Plus aria-hidden className="h-4 w-4" /> New pass
       </Button>
-      {error && <p role="alert" className="text-sm text-stamp">{error}</p>}
+      {error && (
+        <p role="alert" className="text-sm text-stamp">
+          {error}
+        </p>
+      )}
     </div>
   );
 }

@@ -45,7 +45,13 @@ export function PassStrip({
                 aria-label={`Open pass ${p.number} (${p.strokeCount} strokes)`}
               >
                 {/* eslint-disable-next-line @next/next/no-img-element -- a private SVG from our own route, versioned by seq */}
-                <img src={`/api/passes/${p.id}/thumbnail.svg?v=${p.seq}`} alt={`Pass ${p.number}`} width={272} height={272} className="aspect-square w-full bg-white" />
+                <img
+                  src={`/api/passes/${p.id}/thumbnail.svg?v=${p.seq}`}
+                  alt={`Pass ${p.number}`}
+                  width={272}
+                  height={272}
+                  className="aspect-square w-full bg-white"
+                />
                 <p className="mt-1 flex justify-between text-sm">
                   <span className="font-bold">Pass {p.number}</span>
                   <span className="text-graphite-faint" data-testid={`pass-${p.number}-strokes`}>

@@ -5,7 +5,21 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { api, messageOf } from '@/lib/http/client';
 
-export function AcceptInvitation({ token, signedIn, seriesTitle, role, invitedBy, problem }: { token: string; signedIn: boolean; seriesTitle: string; role: string; invitedBy: string; problem: string | null }) {
+export function AcceptInvitation({
+  token,
+  signedIn,
+  seriesTitle,
+  role,
+  invitedBy,
+  problem,
+}: {
+  token: string;
+  signedIn: boolean;
+  seriesTitle: string;
+  role: string;
+  invitedBy: string;
+  problem: string | null;
+}) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(problem);
   const back = encodeURIComponent(`/invite/${token}`);
@@ -15,7 +29,11 @@ export function AcceptInvitation({ token, signedIn, seriesTitle, role, invitedBy
       <p className="text-graphite-soft">
         {invitedBy} invites you as <strong>{role}</strong>.
       </p>
-      {error && <p role="alert" className="rounded-md border border-stamp/40 bg-stamp-light px-3 py-2 text-sm text-stamp">{error}</p>}
+      {error && (
+        <p role="alert" className="rounded-md border border-stamp/40 bg-stamp-light px-3 py-2 text-sm text-stamp">
+          {error}
+        </p>
+      )}
       {!problem &&
         (signedIn ? (
           <Button

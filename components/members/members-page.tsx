@@ -59,13 +59,20 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
               <th className="px-3 py-2">Name</th>
               <th className="px-3 py-2">E-mail</th>
               <th className="px-3 py-2">Role</th>
-              {canManage && <th className="px-3 py-2"><span className="sr-only">Actions</span></th>}
+              {canManage && (
+                <th className="px-3 py-2">
+                  <span className="sr-only">Actions</span>
+                </th>
+              )}
             </tr>
           </thead>
           <tbody>
             {(members ?? []).map((m: MemberDto) => (
               <tr key={m.userId} className="border-b border-paper-edge/60 last:border-0">
-                <td className="px-3 py-2 font-bold">{m.name}{m.userId === meId ? ' (you)' : ''}</td>
+                <td className="px-3 py-2 font-bold">
+                  {m.name}
+                  {m.userId === meId ? ' (you)' : ''}
+                </td>
                 <td className="px-3 py-2">{m.email}</td>
                 <td className="px-3 py-2">
                   {canManage ? (
@@ -73,7 +80,12 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
                       aria-label={`Role of ${m.name}`}
                       className="field w-auto py-1"
                       value={m.role}
-                      onChange={(e) => void act(() => api(`/api/series/${seriesId}/members/${m.userId}`, { method: 'PATCH', json: { role: e.target.value } }), `${m.name} is now ${ROLE_LABELS[e.target.value as Role]}.`)}
+                      onChange={(e) =>
+                        void act(
+                          () => api(`/api/series/${seriesId}/members/${m.userId}`, { method: 'PATCH', json: { role: e.target.value } }),
+                          `${m.name} is now ${ROLE_LABELS[e.target.value as Role]}.`,
+                        )
+                      }
                     >
                       {ROLES.map((r) => (
                         <option key={r} value={r}>
@@ -87,7 +99,13 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
                 </td>
                 {canManage && (
                   <td className="px-3 py-2 text-right">
-                    <Button variant="ghost" className="text-stamp" onClick={() => void act(() => api(`/api/series/${seriesId}/members/${m.userId}`, { method: 'DELETE' }), `${m.name} was removed.`)}>
+                    <Button
+                      variant="ghost"
+                      className="text-stamp"
+                      onClick={() =>
+                        void act(() => api(`/api/series/${seriesId}/members/${m.userId}`, { method: 'DELETE' }), `${m.name} was removed.`)
+                      }
+                    >
                       Remove
                     </Button>
                   </td>
@@ -125,7 +143,8 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
             <ul className="space-y-1 text-sm">
               {invitations.data!.map((i) => (
                 <li key={i.id}>
-                  {i.email} as {ROLE_LABELS[i.role]} — invited by {i.invitedBy}, until <span suppressHydrationWarning>{new Date(i.expiresAt).toLocaleDateString()}</span>
+                  {i.email} as {ROLE_LABELS[i.role]} — invited by {i.invitedBy}, until{' '}
+                  <span suppressHydrationWarning>{new Date(i.expiresAt).toLocaleDateString()}</span>
                 </li>
               ))}
             </ul>
@@ -141,7 +160,15 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
           <input
             type="checkbox"
             checked={me.data?.notifyEmail ?? true}
-            onChange={(e) => void act(async () => { await api('/api/me', { method: 'PATCH', json: { notifyEmail: e.target.checked } }); await me.mutate(); }, e.target.checked ? 'E-mail notifications on.' : 'E-mail notifications off.')}
+            onChange={(e) =>
+              void act(
+                async () => {
+                  await api('/api/me', { method: 'PATCH', json: { notifyEmail: e.target.checked } });
+                  await me.mutate();
+                },
+                e.target.checked ? 'E-mail notifications on.' : 'E-mail notifications off.',
+              )
+            }
           />
           E-mail me when I am mentioned or a gag I started is stamped
         </label>

@@ -61,7 +61,9 @@ export function CommentsPanel({
     setSeenPoint(pointKey);
     if (pointKey) setPinKey('point');
   }
-  const threads = (data ?? []).filter((t) => (onlyPassId ? t.passId === onlyPassId || t.target === 'gag' : true)).filter((t) => showResolved || !t.resolvedAt);
+  const threads = (data ?? [])
+    .filter((t) => (onlyPassId ? t.passId === onlyPassId || t.target === 'gag' : true))
+    .filter((t) => showResolved || !t.resolvedAt);
 
   const pinOptions: { key: string; label: string; pin: Pin }[] = [
     ...(point
@@ -73,7 +75,11 @@ export function CommentsPanel({
       .filter((p) => !onlyPassId || p.id === onlyPassId)
       .flatMap((p) => [
         { key: `pass:${p.id}`, label: `Pass ${p.number}`, pin: { target: 'pass' as const, passId: p.id } },
-        ...BEAT_KINDS.map((b, i) => ({ key: `panel:${p.id}:${i}`, label: `Pass ${p.number}, panel ${i + 1} (${BEAT_LABELS[b]})`, pin: { target: 'panel' as const, passId: p.id, panel: i } })),
+        ...BEAT_KINDS.map((b, i) => ({
+          key: `panel:${p.id}:${i}`,
+          label: `Pass ${p.number}, panel ${i + 1} (${BEAT_LABELS[b]})`,
+          pin: { target: 'panel' as const, passId: p.id, panel: i },
+        })),
       ]),
   ];
 
@@ -121,13 +127,20 @@ export function CommentsPanel({
               rows={3}
               value={body}
               onChange={(e) => setBody(e.target.value)}
-              placeholder={`Type @ and a name to mention: ${(members ?? []).map((m) => `@${m.name}`).slice(0, 3).join(', ')}`}
+              placeholder={`Type @ and a name to mention: ${(members ?? [])
+                .map((m) => `@${m.name}`)
+                .slice(0, 3)
+                .join(', ')}`}
             />
           </label>
           <Button onClick={() => void submit()} disabled={!body.trim()}>
             Post comment
           </Button>
-          {error && <p role="alert" className="text-sm text-stamp">{error}</p>}
+          {error && (
+            <p role="alert" className="text-sm text-stamp">
+              {error}
+            </p>
+          )}
         </div>
       )}
       {threads.length === 0 ? (
@@ -161,7 +174,10 @@ function Thread({
   const [draft, setDraft] = useState('');
   const all = [t, ...t.replies];
   return (
-    <li className={`rounded-md border p-3 ${t.resolvedAt ? 'border-paper-edge bg-paper-deep/40 opacity-80' : 'border-paper-edge bg-white/60'}`} data-testid="comment-thread">
+    <li
+      className={`rounded-md border p-3 ${t.resolvedAt ? 'border-paper-edge bg-paper-deep/40 opacity-80' : 'border-paper-edge bg-white/60'}`}
+      data-testid="comment-thread"
+    >
       <p className="mb-1 text-xs font-bold uppercase tracking-wide text-ink">{pinLabel(t)}</p>
       <ul className="space-y-2">
         {all.map((c) => (
@@ -210,7 +226,13 @@ function Thread({
         <div className="mt-2 flex flex-wrap items-center gap-2">
           {!t.resolvedAt && (
             <>
-              <input className="field flex-1 py-1 text-sm" value={reply} onChange={(e) => setReply(e.target.value)} placeholder="Reply…" aria-label="Reply" />
+              <input
+                className="field flex-1 py-1 text-sm"
+                value={reply}
+                onChange={(e) => setReply(e.target.value)}
+                placeholder="Reply…"
+                aria-label="Reply"
+              />
               <Button
                 variant="secondary"
                 disabled={!reply.trim()}

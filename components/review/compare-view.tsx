@@ -27,7 +27,11 @@ function subscribeCalibration(changed: () => void) {
   };
 }
 function useCalibration(): [number, (pxPerMm: number) => void] {
-  const value = useSyncExternalStore(subscribeCalibration, () => Number(localStorage.getItem(CAL_KEY)) || CSS_PX_PER_MM, () => CSS_PX_PER_MM);
+  const value = useSyncExternalStore(
+    subscribeCalibration,
+    () => Number(localStorage.getItem(CAL_KEY)) || CSS_PX_PER_MM,
+    () => CSS_PX_PER_MM,
+  );
   const save = (pxPerMm: number) => {
     localStorage.setItem(CAL_KEY, String(pxPerMm));
     window.dispatchEvent(new Event(CAL_EVENT));
@@ -43,7 +47,21 @@ function Page({ svg, label, style }: { svg: string; label: string; style?: React
   return <div data-label={label} className="[&>svg]:h-full [&>svg]:w-full" style={style} dangerouslySetInnerHTML={{ __html: svg }} />;
 }
 
-export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: { seriesId: string; gagId: string; gagTitle: string; meId: string; spec: PageSpec; passes: PassSvg[] }) {
+export function CompareView({
+  seriesId,
+  gagId,
+  gagTitle,
+  meId,
+  spec,
+  passes,
+}: {
+  seriesId: string;
+  gagId: string;
+  gagTitle: string;
+  meId: string;
+  spec: PageSpec;
+  passes: PassSvg[];
+}) {
   const [a, setA] = useState(passes[Math.max(0, passes.length - 2)]?.id ?? '');
   const [b, setB] = useState(passes[passes.length - 1]?.id ?? '');
   const [mode, setMode] = useState<Mode>('side');
@@ -55,7 +73,8 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
   const passB = passes.find((p) => p.id === b);
   const bleedW = spec.trimW + 2 * spec.bleed;
   const panels = useMemo(() => panelRects(spec), [spec]);
-  const pinsOf = (passId: string) => (threads ?? []).filter((t) => t.passId === passId && !t.resolvedAt && (t.target === 'panel' || t.target === 'point'));
+  const pinsOf = (passId: string) =>
+    (threads ?? []).filter((t) => t.passId === passId && !t.resolvedAt && (t.target === 'panel' || t.target === 'point'));
 
   const pins = (passId: string) => (
     <>
@@ -102,7 +121,13 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
                 ['squint', 'Squint'],
               ] as const
             ).map(([m, label]) => (
-              <button key={m} type="button" aria-pressed={mode === m} onClick={() => setMode(m)} className={`rounded px-3 py-1.5 text-sm font-bold ${mode === m ? 'bg-ink text-white' : 'text-graphite-soft hover:bg-paper-deep'}`}>
+              <button
+                key={m}
+                type="button"
+                aria-pressed={mode === m}
+                onClick={() => setMode(m)}
+                className={`rounded px-3 py-1.5 text-sm font-bold ${mode === m ? 'bg-ink text-white' : 'text-graphite-soft hover:bg-paper-deep'}`}
+              >
                 {label}
               </button>
             ))}
@@ -139,7 +164,16 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
         <div className="space-y-2" data-testid="compare-overlay">
           <label className="flex max-w-md items-center gap-2 text-sm font-bold text-graphite-soft">
             Pass {passA.number} opacity
-            <input type="range" min={0} max={1} step={0.05} value={opacity} onChange={(e) => setOpacity(Number(e.target.value))} className="flex-1" aria-label="Opacity of the older pass" />
+            <input
+              type="range"
+              min={0}
+              max={1}
+              step={0.05}
+              value={opacity}
+              onChange={(e) => setOpacity(Number(e.target.value))}
+              className="flex-1"
+              aria-label="Opacity of the older pass"
+            />
             <span className="w-10 text-right">{Math.round(opacity * 100)}%</span>
           </label>
           <div className="panel relative mx-auto aspect-square max-w-2xl">
@@ -161,7 +195,9 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
         <div className="space-y-3" data-testid="compare-print">
           <p className="text-sm text-graphite-soft">
             Pass {passB.number} at its printed size: {spec.trimW} × {spec.trimH} mm trim.{' '}
-            {pxPerMm === CSS_PX_PER_MM ? 'This screen is not calibrated yet, so the size is the browser’s guess.' : `Calibrated: ${pxPerMm.toFixed(3)} px per mm.`}{' '}
+            {pxPerMm === CSS_PX_PER_MM
+              ? 'This screen is not calibrated yet, so the size is the browser’s guess.'
+              : `Calibrated: ${pxPerMm.toFixed(3)} px per mm.`}{' '}
             <button type="button" className="font-bold text-ink underline" onClick={() => setCalibrating((c) => !c)}>
               {calibrating ? 'Done calibrating' : 'Calibrate with a card'}
             </button>
@@ -171,7 +207,11 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
               <p className="text-sm">
                 Hold a bank-sized card (ISO/IEC 7810 ID-1, 85.60 × 53.98 mm) against the screen and resize the rectangle until it matches the card.
               </p>
-              <div className="rounded-md border-2 border-ink bg-ink-light" style={{ width: ID1_MM.w * pxPerMm, height: ID1_MM.h * pxPerMm }} data-testid="calibration-card" />
+              <div
+                className="rounded-md border-2 border-ink bg-ink-light"
+                style={{ width: ID1_MM.w * pxPerMm, height: ID1_MM.h * pxPerMm }}
+                data-testid="calibration-card"
+              />
               <label className="flex max-w-lg items-center gap-2 text-sm font-bold">
                 Card width on screen
                 <input
@@ -191,7 +231,11 @@ export function CompareView({ seriesId, gagId, gagTitle, meId, spec, passes }: {
             </div>
           )}
           <div className="overflow-auto">
-            <Page svg={passB.svg} label={`Pass ${passB.number} at print size`} style={{ width: bleedW * pxPerMm, height: (spec.trimH + 2 * spec.bleed) * pxPerMm }} />
+            <Page
+              svg={passB.svg}
+              label={`Pass ${passB.number} at print size`}
+              style={{ width: bleedW * pxPerMm, height: (spec.trimH + 2 * spec.bleed) * pxPerMm }}
+            />
           </div>
         </div>
       )}

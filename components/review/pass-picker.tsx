@@ -1,7 +1,17 @@
 'use client';
 // Chooses one of a gag's passes by number (the review section and the compare view).
 
-export function PassPicker({ label, passes, value, onChange }: { label: string; passes: { id: string; number: number }[]; value: string; onChange: (id: string) => void }) {
+export function PassPicker({
+  label,
+  passes,
+  value,
+  onChange,
+}: {
+  label: string;
+  passes: { id: string; number: number }[];
+  value: string;
+  onChange: (id: string) => void;
+}) {
   return (
     <label className="text-sm font-bold text-graphite-soft">
       {label}

@@ -21,9 +21,7 @@ export function PresenceBar({ gagId, where, meId }: { gagId: string; where: stri
   return (
     <p className="inline-flex items-center gap-1.5 text-sm text-graphite-soft" aria-live="polite" data-testid="presence">
       <Users aria-hidden className="h-4 w-4" />
-      {byPerson.size === 0
-        ? 'Only you here'
-        : [...byPerson].map(([name, wheres]) => `${name} (${[...new Set(wheres)].join(', ')})`).join(' · ')}
+      {byPerson.size === 0 ? 'Only you here' : [...byPerson].map(([name, wheres]) => `${name} (${[...new Set(wheres)].join(', ')})`).join(' · ')}
     </p>
   );
 }

@@ -25,12 +25,22 @@ export function ChecklistCard({ passId, canTick }: { passId: string; canTick: bo
       <h3 id={`checklist-${passId}`} className="mb-2 text-lg font-extrabold">
         Silent-read checklist
       </h3>
-      {error && <p role="alert" className="text-sm text-stamp">{error}</p>}
+      {error && (
+        <p role="alert" className="text-sm text-stamp">
+          {error}
+        </p>
+      )}
       <ul className="space-y-1.5">
         {items.map((i) => (
           <li key={i.id}>
             <label className="flex items-start gap-2 text-sm">
-              <input type="checkbox" className="mt-0.5" checked={i.ticked} disabled={!canTick} onChange={(e) => void toggle(i.id, e.target.checked)} />
+              <input
+                type="checkbox"
+                className="mt-0.5"
+                checked={i.ticked}
+                disabled={!canTick}
+                onChange={(e) => void toggle(i.id, e.target.checked)}
+              />
               <span>
                 {i.text}
                 {i.ticked && (
@@ -79,8 +89,12 @@ export function FindingsCard({ passId, seq }: { passId: string; seq?: number }) 
                 {pct(p.inkLoad)}
                 {p.inkHeavy && <span className="ml-1 text-xs">(over {pct(data.inkThreshold)}: cluttered?)</span>}
               </td>
-              <td className={p.roomIntrusions ? 'font-bold text-stamp' : ''}>{p.roomIntrusions ? `${p.roomIntrusions} stroke${p.roomIntrusions === 1 ? '' : 's'}` : '—'}</td>
-              <td className={p.outsideSafe ? 'font-bold text-stamp' : ''}>{p.outsideSafe ? `${p.outsideSafe} stroke${p.outsideSafe === 1 ? '' : 's'}` : '—'}</td>
+              <td className={p.roomIntrusions ? 'font-bold text-stamp' : ''}>
+                {p.roomIntrusions ? `${p.roomIntrusions} stroke${p.roomIntrusions === 1 ? '' : 's'}` : '—'}
+              </td>
+              <td className={p.outsideSafe ? 'font-bold text-stamp' : ''}>
+                {p.outsideSafe ? `${p.outsideSafe} stroke${p.outsideSafe === 1 ? '' : 's'}` : '—'}
+              </td>
             </tr>
           ))}
         </tbody>
@@ -123,7 +137,10 @@ export function StampCard({ gagId, passId, passNumber, canStamp }: { gagId: stri
         <Stamp aria-hidden className="h-5 w-5" /> Stamp
       </h3>
       {current ? (
-        <div data-testid="current-stamp" className={`rounded-md border-2 px-3 py-2 ${current.decision === 'ready' && !current.clearedAt ? 'border-stamp bg-stamp-light text-stamp' : 'border-paper-edge text-graphite-soft'}`}>
+        <div
+          data-testid="current-stamp"
+          className={`rounded-md border-2 px-3 py-2 ${current.decision === 'ready' && !current.clearedAt ? 'border-stamp bg-stamp-light text-stamp' : 'border-paper-edge text-graphite-soft'}`}
+        >
           <p className="font-bold">
             {current.decision === 'ready' ? 'Ready to ink' : 'Needs another pass'}
             {current.clearedAt ? ' — cleared: the pass changed after it' : ''}
@@ -150,7 +167,11 @@ export function StampCard({ gagId, passId, passNumber, canStamp }: { gagId: stri
               Needs another pass
             </Button>
           </div>
-          {error && <p role="alert" className="text-sm text-stamp">{error}</p>}
+          {error && (
+            <p role="alert" className="text-sm text-stamp">
+              {error}
+            </p>
+          )}
         </div>
       )}
     </section>

@@ -36,7 +36,10 @@ export function ReviewSection({
         {passes.length > 0 && (
           <div className="flex flex-wrap items-end gap-3">
             <PassPicker label="Pass under review" passes={passes} value={passId} onChange={setPassId} />
-            <Link href={`/series/${seriesId}/gags/${gagId}/compare`} className="rounded-md border border-paper-edge bg-white px-3 py-2 text-sm font-bold hover:bg-paper-deep">
+            <Link
+              href={`/series/${seriesId}/gags/${gagId}/compare`}
+              className="rounded-md border border-paper-edge bg-white px-3 py-2 text-sm font-bold hover:bg-paper-deep"
+            >
               Compare passes
             </Link>
           </div>

@@ -30,7 +30,13 @@ export function ChecklistEditor({ seriesId, canEdit }: { seriesId: string; canEd
       <ol className="mt-3 space-y-2">
         {items.map((r, i) => (
           <li key={r.id ?? `new-${i}`} className="flex gap-2">
-            <input className="field py-1 text-sm" value={r.text} disabled={!canEdit} aria-label={`Checklist item ${i + 1}`} onChange={(e) => set(i, e.target.value)} />
+            <input
+              className="field py-1 text-sm"
+              value={r.text}
+              disabled={!canEdit}
+              aria-label={`Checklist item ${i + 1}`}
+              onChange={(e) => set(i, e.target.value)}
+            />
             {canEdit && (
               <Button variant="ghost" onClick={() => setRows(items.filter((_, k) => k !== i))} aria-label={`Remove item ${i + 1}`}>
                 ✕

@@ -46,13 +46,7 @@ export function PageSpecForm({ seriesId, initial, canEdit }: { seriesId: string;
         {FIELDS.map((f) => (
           <label key={f.key} className="text-sm font-bold text-graphite-soft">
             {f.label} (mm)
-            <input
-              type="number"
-              step="0.5"
-              className="field mt-1 w-28"
-              disabled={!canEdit}
-              {...register(f.key, { valueAsNumber: true })}
-            />
+            <input type="number" step="0.5" className="field mt-1 w-28" disabled={!canEdit} {...register(f.key, { valueAsNumber: true })} />
           </label>
         ))}
         {canEdit && (

@@ -42,10 +42,7 @@ export function SeriesIndex({ initial }: { initial: SeriesDto[] }) {
           <ul className="mt-4 grid gap-3 sm:grid-cols-2">
             {list.map((s) => (
               <li key={s.id}>
-                <Link
-                  href={`/series/${s.id}`}
-                  className="panel block p-4 transition-colors hover:border-ink focus-visible:border-ink"
-                >
+                <Link href={`/series/${s.id}`} className="panel block p-4 transition-colors hover:border-ink focus-visible:border-ink">
                   <span className="block font-display text-xl font-extrabold">{s.title}</span>
                   <span className="mt-1 block text-sm text-graphite-soft">
                     Your role: <strong>{ROLE_LABELS[s.role]}</strong>
@@ -62,7 +59,11 @@ export function SeriesIndex({ initial }: { initial: SeriesDto[] }) {
         </h2>
         <p className="mt-1 text-sm text-graphite-soft">You will be its owner.</p>
         <form onSubmit={onSubmit} noValidate className="mt-4 space-y-3">
-          {error && <p role="alert" className="text-sm text-stamp">{error}</p>}
+          {error && (
+            <p role="alert" className="text-sm text-stamp">
+              {error}
+            </p>
+          )}
           <Field id="series-title" label="Series title" error={formState.errors.title?.message}>
             <input id="series-title" className="field" {...register('title')} />
           </Field>

@@ -14,7 +14,11 @@ const TONES: Record<GagStatus, string> = {
 export function StatusBadge({ status }: { status: GagStatus }) {
   return (
     <span className={`inline-flex items-center rounded-full border px-2 py-0.5 text-xs font-bold ${TONES[status]}`}>
-      {status === 'ready_to_ink' && <span aria-hidden className="mr-1">✓</span>}
+      {status === 'ready_to_ink' && (
+        <span aria-hidden className="mr-1">
+          ✓
+        </span>
+      )}
       {STATUS_LABELS[status]}
     </span>
   );

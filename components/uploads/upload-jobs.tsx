@@ -68,7 +68,13 @@ export function UploadJobList({ jobs, narrow = false }: { jobs: UploadJob[]; nar
             </span>
           ) : (
             <span className="flex items-center gap-2">
-              <progress max={1} value={j.progress} aria-label={`Uploading ${j.name}`} className={narrow ? 'w-40' : 'w-48'} data-testid="upload-progress" />
+              <progress
+                max={1}
+                value={j.progress}
+                aria-label={`Uploading ${j.name}`}
+                className={narrow ? 'w-40' : 'w-48'}
+                data-testid="upload-progress"
+              />
               <span className="text-graphite-faint">{j.done ? 'Done' : `${Math.round(j.progress * 100)}%`}</span>
             </span>
           )}
@@ -79,7 +85,10 @@ export function UploadJobList({ jobs, narrow = false }: { jobs: UploadJob[]; nar
 }
 
 /** The hidden multi-file picker for images; a visible button clicks it. */
-export const ImageFilesInput = forwardRef<HTMLInputElement, { label: string; onFiles: (files: FileList) => void }>(function ImageFilesInput({ label, onFiles }, ref) {
+export const ImageFilesInput = forwardRef<HTMLInputElement, { label: string; onFiles: (files: FileList) => void }>(function ImageFilesInput(
+  { label, onFiles },
+  ref,
+) {
   return (
     <input
       ref={ref}

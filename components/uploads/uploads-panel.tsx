@@ -15,7 +15,10 @@ export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpl
   const [over, setOver] = useState(false);
   const [confirm, setConfirm] = useState<UploadListItem | null>(null);
   const input = useRef<HTMLInputElement>(null);
-  const { jobs, start } = useUploadJobs(seriesId, useCallback(() => void mutate(), [mutate]));
+  const { jobs, start } = useUploadJobs(
+    seriesId,
+    useCallback(() => void mutate(), [mutate]),
+  );
 
   return (
     <section aria-labelledby="uploads-title" className="space-y-3">
@@ -78,7 +81,8 @@ export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpl
             “{confirm?.name}” will be removed from the series.
             {confirm && confirm.passesUsing > 0 && (
               <strong className="mt-2 block text-stamp">
-                It is still the lightbox of {confirm.passesUsing} pass{confirm.passesUsing === 1 ? '' : 'es'}; they will show an empty frame where it was.
+                It is still the lightbox of {confirm.passesUsing} pass{confirm.passesUsing === 1 ? '' : 'es'}; they will show an empty frame where it
+                was.
               </strong>
             )}
           </>

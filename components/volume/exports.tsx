@@ -60,7 +60,13 @@ export function Exports({ volumeId }: { volumeId: string }) {
       </h2>
       <div className="flex flex-wrap items-end gap-3">
         <Button
-          onClick={() => void run('Review dummy', `/api/volumes/${volumeId}/export/review.pdf${withScans ? '?lightbox=1' : ''}`, withScans ? 'review-dummy-with-scans.pdf' : 'review-dummy.pdf')}
+          onClick={() =>
+            void run(
+              'Review dummy',
+              `/api/volumes/${volumeId}/export/review.pdf${withScans ? '?lightbox=1' : ''}`,
+              withScans ? 'review-dummy-with-scans.pdf' : 'review-dummy.pdf',
+            )
+          }
           disabled={progress !== null}
         >
           <Download aria-hidden className="h-4 w-4" /> Review dummy (PDF)
@@ -83,10 +89,24 @@ export function Exports({ volumeId }: { volumeId: string }) {
             <option value="A3">A3</option>
           </select>
         </label>
-        <Button variant="secondary" disabled={progress !== null} onClick={() => void run('Drawing templates', `/api/volumes/${volumeId}/export/templates.pdf?scale=${scale}&paper=${paper}`, `templates-${scale}-${paper}.pdf`)}>
+        <Button
+          variant="secondary"
+          disabled={progress !== null}
+          onClick={() =>
+            void run(
+              'Drawing templates',
+              `/api/volumes/${volumeId}/export/templates.pdf?scale=${scale}&paper=${paper}`,
+              `templates-${scale}-${paper}.pdf`,
+            )
+          }
+        >
           <Download aria-hidden className="h-4 w-4" /> Drawing templates (PDF)
         </Button>
-        <Button variant="secondary" disabled={progress !== null} onClick={() => void run('Running order', `/api/volumes/${volumeId}/export/running-order.csv`, 'running-order.csv')}>
+        <Button
+          variant="secondary"
+          disabled={progress !== null}
+          onClick={() => void run('Running order', `/api/volumes/${volumeId}/export/running-order.csv`, 'running-order.csv')}
+        >
           <Download aria-hidden className="h-4 w-4" /> Running order (CSV)
         </Button>
       </div>
@@ -96,8 +116,14 @@ export function Exports({ volumeId }: { volumeId: string }) {
           <progress className="w-full max-w-md" max={1} value={progress} aria-label={`${which} export progress`} data-testid="export-progress" />
         </div>
       )}
-      {error && <p role="alert" className="text-sm text-stamp">{error}</p>}
-      <p className="text-xs text-graphite-faint">Print advice is guidance: the printer&apos;s own specification takes precedence, and every export says so.</p>
+      {error && (
+        <p role="alert" className="text-sm text-stamp">
+          {error}
+        </p>
+      )}
+      <p className="text-xs text-graphite-faint">
+        Print advice is guidance: the printer&apos;s own specification takes precedence, and every export says so.
+      </p>
     </section>
   );
 }

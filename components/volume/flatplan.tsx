@@ -12,12 +12,17 @@ export function FlatplanView({ data, binding }: { data: FlatplanData; binding: '
     if (n === null) return <div className="aspect-square w-24 sm:w-28" aria-hidden />;
     const p = byNumber.get(n)!;
     return (
-      <figure className={`relative aspect-square w-24 border border-marker-40 bg-white sm:w-28 ${side === 'left' ? 'border-r-graphite' : 'border-l-graphite'}`} data-testid="flatplan-page">
+      <figure
+        className={`relative aspect-square w-24 border border-marker-40 bg-white sm:w-28 ${side === 'left' ? 'border-r-graphite' : 'border-l-graphite'}`}
+        data-testid="flatplan-page"
+      >
         {p.latestPass ? (
           // eslint-disable-next-line @next/next/no-img-element -- private SVG from our own route
           <img src={`/api/passes/${p.latestPass.id}/thumbnail.svg?v=${p.latestPass.seq}`} alt={p.title ?? ''} className="h-full w-full" />
         ) : (
-          <div className="flex h-full items-center justify-center p-1 text-center text-xs italic text-graphite-soft">{p.kind === 'gag' ? (p.title ?? '') : MATTER_LABELS[p.kind]}</div>
+          <div className="flex h-full items-center justify-center p-1 text-center text-xs italic text-graphite-soft">
+            {p.kind === 'gag' ? (p.title ?? '') : MATTER_LABELS[p.kind]}
+          </div>
         )}
         <figcaption className="absolute bottom-0 left-0 right-0 flex justify-between bg-white/85 px-1 text-[10px]">
           <span className="font-bold">{n}</span>
@@ -35,7 +40,9 @@ export function FlatplanView({ data, binding }: { data: FlatplanData; binding: '
         {!data.pageCountValid && data.pages.length > 0 && (
           <p role="listitem" className="flex items-start gap-1.5 rounded-md border border-stamp/40 bg-stamp-light px-3 py-2 text-sm text-stamp">
             <AlertTriangle aria-hidden className="mt-0.5 h-4 w-4 shrink-0" />
-            {data.pages.length} pages cannot be {binding === 'saddle' ? 'saddle stitched (it takes a multiple of 4)' : 'perfect bound (it takes an even count)'}: add {data.blanksNeeded} blank page
+            {data.pages.length} pages cannot be{' '}
+            {binding === 'saddle' ? 'saddle stitched (it takes a multiple of 4)' : 'perfect bound (it takes an even count)'}: add {data.blanksNeeded}{' '}
+            blank page
             {data.blanksNeeded === 1 ? '' : 's'}, best after page {data.blanksAt} (after the last gag, before the back matter).
           </p>
         )}

@@ -6,18 +6,31 @@ import { STAGES, STAGE_LABELS, type Plan, type Stage } from '@/lib/planning/plan
 
 export type PlanData = Plan & { deadline: string; hoursPerWeek: number; hoursPerPage: Record<Stage, number> };
 
-export function Planner({ data, canEdit, onPatch }: { data: PlanData; canEdit: boolean; onPatch: (patch: Record<string, unknown>) => Promise<void> }) {
+export function Planner({
+  data,
+  canEdit,
+  onPatch,
+}: {
+  data: PlanData;
+  canEdit: boolean;
+  onPatch: (patch: Record<string, unknown>) => Promise<void>;
+}) {
   return (
     <section aria-labelledby="planner-title" className="space-y-3">
       <h2 id="planner-title" className="text-xl font-extrabold">
         Planner
       </h2>
-      <div className={`flex items-start gap-2 rounded-md border px-3 py-2 text-sm ${data.late ? 'border-stamp/40 bg-stamp-light text-stamp' : 'border-paper-edge bg-white'}`} data-testid="plan-verdict">
+      <div
+        className={`flex items-start gap-2 rounded-md border px-3 py-2 text-sm ${data.late ? 'border-stamp/40 bg-stamp-light text-stamp' : 'border-paper-edge bg-white'}`}
+        data-testid="plan-verdict"
+      >
         {data.late ? <AlertTriangle aria-hidden className="mt-0.5 h-4 w-4" /> : <CalendarCheck aria-hidden className="mt-0.5 h-4 w-4" />}
         <p>
           {data.hoursLeft.toFixed(1)} hours left at {data.hoursPerWeek} h a week: finished about <strong>{data.finish}</strong>,{' '}
           {data.late ? (
-            <strong>{-data.marginDays} days after the deadline ({data.deadline}). The plan is late: add hours, cut pages or move the date.</strong>
+            <strong>
+              {-data.marginDays} days after the deadline ({data.deadline}). The plan is late: add hours, cut pages or move the date.
+            </strong>
           ) : (
             <>
               {data.marginDays} days before the deadline ({data.deadline}).
@@ -64,7 +77,15 @@ export function Planner({ data, canEdit, onPatch }: { data: PlanData; canEdit: b
               </th>
               <td colSpan={2}>
                 {canEdit ? (
-                  <input type="number" min={0.5} step={0.5} className="field w-20 py-0.5" aria-label="Hours per week" defaultValue={data.hoursPerWeek} onBlur={(e) => void onPatch({ hoursPerWeek: Number(e.target.value) })} />
+                  <input
+                    type="number"
+                    min={0.5}
+                    step={0.5}
+                    className="field w-20 py-0.5"
+                    aria-label="Hours per week"
+                    defaultValue={data.hoursPerWeek}
+                    onBlur={(e) => void onPatch({ hoursPerWeek: Number(e.target.value) })}
+                  />
                 ) : (
                   data.hoursPerWeek
                 )}

@@ -1,16 +1,7 @@
 'use client';
 // The running order: reorder by dragging or with the keyboard (dnd-kit sortable,
 // with spoken announcements), add unplaced gags and matter pages, remove pages.
-import {
-  DndContext,
-  type DragEndEvent,
-  KeyboardSensor,
-  PointerSensor,
-  closestCenter,
-  useDraggable,
-  useSensor,
-  useSensors,
-} from '@dnd-kit/core';
+import { DndContext, type DragEndEvent, KeyboardSensor, PointerSensor, closestCenter, useDraggable, useSensor, useSensors } from '@dnd-kit/core';
 import { SortableContext, arrayMove, sortableKeyboardCoordinates, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import { GripVertical, Plus, X } from 'lucide-react';
@@ -37,7 +28,13 @@ function Row({ entry, index, canEdit, onRemove }: { entry: EntryDto; index: numb
       data-entry-id={entry.id}
     >
       {canEdit && (
-        <button type="button" className="cursor-grab rounded p-1 text-graphite-faint hover:bg-paper-deep" aria-label={`Move page ${index + 1}, ${entryLabel(entry)}`} {...attributes} {...listeners}>
+        <button
+          type="button"
+          className="cursor-grab rounded p-1 text-graphite-faint hover:bg-paper-deep"
+          aria-label={`Move page ${index + 1}, ${entryLabel(entry)}`}
+          {...attributes}
+          {...listeners}
+        >
           <GripVertical aria-hidden className="h-4 w-4" />
         </button>
       )}
@@ -45,7 +42,12 @@ function Row({ entry, index, canEdit, onRemove }: { entry: EntryDto; index: numb
       <span className={`flex-1 ${entry.kind === 'gag' ? 'font-bold' : 'italic text-graphite-soft'}`}>{entryLabel(entry)}</span>
       {entry.status && <StatusBadge status={entry.status} />}
       {canEdit && (
-        <button type="button" className="rounded p-1 text-graphite-faint hover:bg-paper-deep hover:text-stamp" aria-label={`Remove page ${index + 1}, ${entryLabel(entry)}`} onClick={onRemove}>
+        <button
+          type="button"
+          className="rounded p-1 text-graphite-faint hover:bg-paper-deep hover:text-stamp"
+          aria-label={`Remove page ${index + 1}, ${entryLabel(entry)}`}
+          onClick={onRemove}
+        >
           <X aria-hidden className="h-4 w-4" />
         </button>
       )}
@@ -56,7 +58,11 @@ function Row({ entry, index, canEdit, onRemove }: { entry: EntryDto; index: numb
 function Unplaced({ gag, onAdd, canEdit }: { gag: { id: string; title: string; status: GagStatus }; onAdd: () => void; canEdit: boolean }) {
   const { attributes, listeners, setNodeRef, transform } = useDraggable({ id: `gag:${gag.id}`, disabled: !canEdit });
   return (
-    <li ref={setNodeRef} style={{ transform: CSS.Translate.toString(transform) }} className="flex items-center gap-2 rounded-md border border-dashed border-paper-edge bg-white/70 px-2 py-1.5">
+    <li
+      ref={setNodeRef}
+      style={{ transform: CSS.Translate.toString(transform) }}
+      className="flex items-center gap-2 rounded-md border border-dashed border-paper-edge bg-white/70 px-2 py-1.5"
+    >
       {canEdit && (
         <span className="cursor-grab text-graphite-faint" {...listeners} {...attributes} aria-label={`Drag ${gag.title} into the volume`}>
           <GripVertical aria-hidden className="h-4 w-4" />
@@ -88,7 +94,10 @@ export function RunningOrder({
 }) {
   const [error, setError] = useState<string | null>(null);
   const [matter, setMatter] = useState<string>('blank');
-  const sensors = useSensors(useSensor(PointerSensor, { activationConstraint: { distance: 4 } }), useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }));
+  const sensors = useSensors(
+    useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
+    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
+  );
   const label = (id: string | number) => {
     const i = entries.findIndex((e) => e.id === id);
     if (i >= 0) return `page ${i + 1}, ${entryLabel(entries[i]!)}`;
@@ -125,7 +134,12 @@ export function RunningOrder({
     if (from < 0 || to < 0) return;
     const next = arrayMove(entries, from, to);
     await onChanged(next); // show the new order at once
-    await run(() => api(`/api/volumes/${volumeId}/entries/${activeId}/position`, { method: 'PUT', json: to > from ? { after: String(over.id) } : { before: String(over.id) } }));
+    await run(() =>
+      api(`/api/volumes/${volumeId}/entries/${activeId}/position`, {
+        method: 'PUT',
+        json: to > from ? { after: String(over.id) } : { before: String(over.id) },
+      }),
+    );
   };
 
   return (
@@ -136,11 +150,14 @@ export function RunningOrder({
       accessibility={{
         announcements: {
           onDragStart: ({ active }) => `Picked up ${label(active.id)}.`,
-          onDragOver: ({ active, over }) => (over ? `${label(active.id)} is over ${label(over.id)}.` : `${label(active.id)} is no longer over a page.`),
+          onDragOver: ({ active, over }) =>
+            over ? `${label(active.id)} is over ${label(over.id)}.` : `${label(active.id)} is no longer over a page.`,
           onDragEnd: ({ active, over }) => (over ? `${label(active.id)} was dropped at ${label(over.id)}.` : `${label(active.id)} was dropped.`),
           onDragCancel: ({ active }) => `Moving ${label(active.id)} was cancelled.`,
         },
-        screenReaderInstructions: { draggable: 'To pick up a page, press space or enter. Use the arrow keys to move it, space or enter to drop it, escape to cancel.' },
+        screenReaderInstructions: {
+          draggable: 'To pick up a page, press space or enter. Use the arrow keys to move it, space or enter to drop it, escape to cancel.',
+        },
       }}
     >
       <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
@@ -148,11 +165,21 @@ export function RunningOrder({
           <h2 id="order-title" className="text-xl font-extrabold">
             Running order <span className="text-sm font-normal text-graphite-faint">({entries.length} pages)</span>
           </h2>
-          {error && <p role="alert" className="text-sm text-stamp">{error}</p>}
+          {error && (
+            <p role="alert" className="text-sm text-stamp">
+              {error}
+            </p>
+          )}
           <SortableContext items={entries.map((e) => e.id)} strategy={verticalListSortingStrategy} id="running-order">
             <ol className="space-y-1" aria-label="Running order">
               {entries.map((e, i) => (
-                <Row key={e.id} entry={e} index={i} canEdit={canEdit} onRemove={() => void run(() => api(`/api/volumes/${volumeId}/entries/${e.id}`, { method: 'DELETE' }))} />
+                <Row
+                  key={e.id}
+                  entry={e}
+                  index={i}
+                  canEdit={canEdit}
+                  onRemove={() => void run(() => api(`/api/volumes/${volumeId}/entries/${e.id}`, { method: 'DELETE' }))}
+                />
               ))}
             </ol>
           </SortableContext>
@@ -168,7 +195,10 @@ export function RunningOrder({
                   ))}
                 </select>
               </label>
-              <Button variant="secondary" onClick={() => void run(() => api(`/api/volumes/${volumeId}/entries`, { method: 'POST', json: { kind: matter } }))}>
+              <Button
+                variant="secondary"
+                onClick={() => void run(() => api(`/api/volumes/${volumeId}/entries`, { method: 'POST', json: { kind: matter } }))}
+              >
                 Add page
               </Button>
             </div>
@@ -183,7 +213,12 @@ export function RunningOrder({
           ) : (
             <ul className="space-y-1">
               {unplaced.map((g) => (
-                <Unplaced key={g.id} gag={g} canEdit={canEdit} onAdd={() => void run(() => api(`/api/volumes/${volumeId}/entries`, { method: 'POST', json: { gagId: g.id } }))} />
+                <Unplaced
+                  key={g.id}
+                  gag={g}
+                  canEdit={canEdit}
+                  onAdd={() => void run(() => api(`/api/volumes/${volumeId}/entries`, { method: 'POST', json: { gagId: g.id } }))}
+                />
               ))}
             </ul>
           )}

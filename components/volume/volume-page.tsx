@@ -44,7 +44,13 @@ export function VolumePage({ seriesId, seriesTitle, role, initial }: { seriesId:
       <RunningOrder volumeId={v.id} entries={v.entries} unplaced={v.unplaced} canEdit={can(role, 'edit')} onChanged={refresh} />
       {flat.data && <FlatplanView data={flat.data} binding={v.spec.binding} />}
       {plan.data && <Planner data={plan.data} canEdit={can(role, 'manage')} onPatch={patch} />}
-      <VolumeSpecForm key={JSON.stringify(v.spec)} spec={v.spec} pages={v.entries.length} canEdit={can(role, 'manage')} onSave={(spec) => patch({ spec })} />
+      <VolumeSpecForm
+        key={JSON.stringify(v.spec)}
+        spec={v.spec}
+        pages={v.entries.length}
+        canEdit={can(role, 'manage')}
+        onSave={(spec) => patch({ spec })}
+      />
       <Exports volumeId={v.id} />
     </div>
   );

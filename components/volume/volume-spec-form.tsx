@@ -13,10 +13,21 @@ function NumberField(p: { label: string; step: string; value: number; onChange: 
   );
 }
 
-export function VolumeSpecForm({ spec, pages, canEdit, onSave }: { spec: VolumeSpec; pages: number; canEdit: boolean; onSave: (spec: Partial<VolumeSpec>) => Promise<void> }) {
+export function VolumeSpecForm({
+  spec,
+  pages,
+  canEdit,
+  onSave,
+}: {
+  spec: VolumeSpec;
+  pages: number;
+  canEdit: boolean;
+  onSave: (spec: Partial<VolumeSpec>) => Promise<void>;
+}) {
   const [s, setS] = useState(spec);
   const [msg, setMsg] = useState<string | null>(null);
-  const preset = Object.entries(TRIM_PRESETS).find(([, p]) => Math.abs(p.trimW - s.trimW) < 0.01 && Math.abs(p.trimH - s.trimH) < 0.01)?.[0] ?? 'custom';
+  const preset =
+    Object.entries(TRIM_PRESETS).find(([, p]) => Math.abs(p.trimW - s.trimW) < 0.01 && Math.abs(p.trimH - s.trimH) < 0.01)?.[0] ?? 'custom';
   const num = (k: keyof VolumeSpec) => (e: React.ChangeEvent<HTMLInputElement>) => setS({ ...s, [k]: Number(e.target.value) });
   return (
     <section aria-labelledby="spec-title" className="space-y-3">
@@ -46,7 +57,11 @@ export function VolumeSpecForm({ spec, pages, canEdit, onSave }: { spec: VolumeS
         <NumberField label="Height (mm)" step="0.1" value={s.trimH} onChange={num('trimH')} />
         <label className="text-sm font-bold text-graphite-soft">
           Bleed
-          <select className="field mt-1 py-1.5" value={Math.abs(s.bleed - BLEED_PRESETS.in8) < 0.001 ? 'in8' : 'mm3'} onChange={(e) => setS({ ...s, bleed: BLEED_PRESETS[e.target.value as 'mm3' | 'in8'] })}>
+          <select
+            className="field mt-1 py-1.5"
+            value={Math.abs(s.bleed - BLEED_PRESETS.in8) < 0.001 ? 'in8' : 'mm3'}
+            onChange={(e) => setS({ ...s, bleed: BLEED_PRESETS[e.target.value as 'mm3' | 'in8'] })}
+          >
             <option value="mm3">3 mm</option>
             <option value="in8">1/8 in (3.175 mm)</option>
           </select>
@@ -63,7 +78,11 @@ export function VolumeSpecForm({ spec, pages, canEdit, onSave }: { spec: VolumeS
         <NumberField label="Paper caliper (µm)" step="5" value={s.caliperUm} onChange={num('caliperUm')} />
         <label className="text-sm font-bold text-graphite-soft">
           Reading direction
-          <select className="field mt-1 py-1.5" value={s.direction} onChange={(e) => setS({ ...s, direction: e.target.value as VolumeSpec['direction'] })}>
+          <select
+            className="field mt-1 py-1.5"
+            value={s.direction}
+            onChange={(e) => setS({ ...s, direction: e.target.value as VolumeSpec['direction'] })}
+          >
             <option value="ltr">Left to right</option>
             <option value="rtl">Right to left</option>
           </select>
@@ -87,7 +106,11 @@ export function VolumeSpecForm({ spec, pages, canEdit, onSave }: { spec: VolumeS
           Save print spec
         </Button>
       )}
-      {msg && <p role="status" className="text-sm">{msg}</p>}
+      {msg && (
+        <p role="status" className="text-sm">
+          {msg}
+        </p>
+      )}
     </section>
   );
 }

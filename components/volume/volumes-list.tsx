@@ -53,7 +53,11 @@ export function VolumesList({ seriesId, canCreate }: { seriesId: string; canCrea
             <input type="date" className="field mt-1 w-auto py-1.5" value={deadline} onChange={(e) => setDeadline(e.target.value)} />
           </label>
           <Button type="submit">New volume</Button>
-          {error && <p role="alert" className="w-full text-sm text-stamp">{error}</p>}
+          {error && (
+            <p role="alert" className="w-full text-sm text-stamp">
+              {error}
+            </p>
+          )}
         </form>
       )}
     </section>

@@ -21,9 +21,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .createTable('memberships')
     .addColumn('series_id', 'text', (c) => c.notNull().references('series.id').onDelete('cascade'))
     .addColumn('user_id', 'text', (c) => c.notNull().references('users.id').onDelete('cascade'))
-    .addColumn('role', 'text', (c) =>
-      c.notNull().check(sql`role in ('owner', 'cocreator', 'editor', 'viewer')`),
-    )
+    .addColumn('role', 'text', (c) => c.notNull().check(sql`role in ('owner', 'cocreator', 'editor', 'viewer')`))
     .addColumn('created_at', 'text', (c) => c.notNull())
     .addPrimaryKeyConstraint('memberships_pk', ['series_id', 'user_id'])
     .execute();

@@ -13,26 +13,18 @@ export async function up(db: Kysely<any>): Promise<void> {
       c
         .notNull()
         .defaultTo('idea')
-        .check(
-          sql`status in ('idea', 'thumbnailing', 'in_review', 'ready_to_ink', 'inked', 'scanned', 'placed')`,
-        ),
+        .check(sql`status in ('idea', 'thumbnailing', 'in_review', 'ready_to_ink', 'inked', 'scanned', 'placed')`),
     )
     .addColumn('position', t.float, (c) => c.notNull())
     .addColumn('created_at', 'text', (c) => c.notNull())
     .addColumn('updated_at', 'text', (c) => c.notNull())
     .execute();
-  await db.schema
-    .createIndex('gags_series_position_idx')
-    .on('gags')
-    .columns(['series_id', 'position'])
-    .execute();
+  await db.schema.createIndex('gags_series_position_idx').on('gags').columns(['series_id', 'position']).execute();
 
   await db.schema
     .createTable('beats')
     .addColumn('gag_id', 'text', (c) => c.notNull().references('gags.id').onDelete('cascade'))
-    .addColumn('kind', 'text', (c) =>
-      c.notNull().check(sql`kind in ('setup', 'build', 'turn', 'payoff')`),
-    )
+    .addColumn('kind', 'text', (c) => c.notNull().check(sql`kind in ('setup', 'build', 'turn', 'payoff')`))
     .addColumn('note', 'text', (c) => c.notNull().defaultTo(''))
     .addColumn('updated_at', 'text', (c) => c.notNull())
     .addPrimaryKeyConstraint('beats_pk', ['gag_id', 'kind'])

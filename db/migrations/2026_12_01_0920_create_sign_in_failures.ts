@@ -9,11 +9,7 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('email', 'text', (c) => c.notNull())
     .addColumn('at', t.epochMs, (c) => c.notNull())
     .execute();
-  await db.schema
-    .createIndex('sign_in_failures_email_at_idx')
-    .on('sign_in_failures')
-    .columns(['email', 'at'])
-    .execute();
+  await db.schema.createIndex('sign_in_failures_email_at_idx').on('sign_in_failures').columns(['email', 'at']).execute();
 }
 
 export async function down(db: Kysely<any>): Promise<void> {

@@ -5,9 +5,15 @@ import { autoId, columnTypes } from '../dialect';
 // presence, and per-person notification settings.
 export async function up(db: Kysely<any>): Promise<void> {
   const t = columnTypes(db);
-  await db.schema.alterTable('series').addColumn('ink_threshold', t.float, (c) => c.notNull().defaultTo(0.35)).execute();
+  await db.schema
+    .alterTable('series')
+    .addColumn('ink_threshold', t.float, (c) => c.notNull().defaultTo(0.35))
+    .execute();
   await db.schema.alterTable('gags').addColumn('created_by', 'text').execute();
-  await db.schema.alterTable('users').addColumn('notify_email', 'integer', (c) => c.notNull().defaultTo(1)).execute();
+  await db.schema
+    .alterTable('users')
+    .addColumn('notify_email', 'integer', (c) => c.notNull().defaultTo(1))
+    .execute();
 
   await db.schema
     .createTable('checklist_items')

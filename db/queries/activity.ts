@@ -21,11 +21,27 @@ export async function recordActivity(
 ): Promise<void> {
   await db
     .insertInto('activity')
-    .values({ seriesId: e.seriesId, gagId: e.gagId ?? null, passId: e.passId ?? null, userId: e.userId, kind: e.kind, summary: e.summary, createdAt: new Date().toISOString() })
+    .values({
+      seriesId: e.seriesId,
+      gagId: e.gagId ?? null,
+      passId: e.passId ?? null,
+      userId: e.userId,
+      kind: e.kind,
+      summary: e.summary,
+      createdAt: new Date().toISOString(),
+    })
     .execute();
 }
 
-export type ActivityDto = { id: number; kind: string; summary: string; gagId: string | null; passId: string | null; by: string | null; createdAt: string };
+export type ActivityDto = {
+  id: number;
+  kind: string;
+  summary: string;
+  gagId: string | null;
+  passId: string | null;
+  by: string | null;
+  createdAt: string;
+};
 
 /** Newest first; pass the last id seen as `before` for the next page. */
 export async function listActivity(db: Db, seriesId: string, opts: { before?: number; limit?: number } = {}) {

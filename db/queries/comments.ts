@@ -18,8 +18,23 @@ function baseQuery(db: Kysely<Database>) {
     .leftJoin('passes as p', 'p.id', 'c.passId')
     .leftJoin('users as r', 'r.id', 'c.resolvedBy')
     .select([
-      'c.id', 'c.gagId', 'c.parentId', 'c.target', 'c.passId', 'p.number as passNumber', 'c.panel', 'c.beat', 'c.x', 'c.y',
-      'c.body', 'c.authorId', 'u.name as author', 'c.createdAt', 'c.editedAt', 'c.resolvedAt', 'r.name as resolvedBy',
+      'c.id',
+      'c.gagId',
+      'c.parentId',
+      'c.target',
+      'c.passId',
+      'p.number as passNumber',
+      'c.panel',
+      'c.beat',
+      'c.x',
+      'c.y',
+      'c.body',
+      'c.authorId',
+      'u.name as author',
+      'c.createdAt',
+      'c.editedAt',
+      'c.resolvedAt',
+      'r.name as resolvedBy',
     ]);
 }
 
@@ -28,7 +43,12 @@ export async function findComment(db: Kysely<Database>, id: string): Promise<Com
 }
 
 export async function seriesOfComment(db: Kysely<Database>, id: string): Promise<string | null> {
-  const row = await db.selectFrom('comments as c').innerJoin('gags as g', 'g.id', 'c.gagId').select('g.seriesId').where('c.id', '=', id).executeTakeFirst();
+  const row = await db
+    .selectFrom('comments as c')
+    .innerJoin('gags as g', 'g.id', 'c.gagId')
+    .select('g.seriesId')
+    .where('c.id', '=', id)
+    .executeTakeFirst();
   return row?.seriesId ?? null;
 }
 
@@ -50,7 +70,16 @@ export async function mentionedMembers(db: Kysely<Database>, seriesId: string, b
     .execute();
   const text = body.toLowerCase();
   return members
-    .filter((m) => text.includes(`@${m.name.toLowerCase()}`) || new RegExp(`@${m.email.split('@')[0]!.toLowerCase().replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\b`).test(text))
+    .filter(
+      (m) =>
+        text.includes(`@${m.name.toLowerCase()}`) ||
+        new RegExp(
+          `@${m.email
+            .split('@')[0]!
+            .toLowerCase()
+            .replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\b`,
+        ).test(text),
+    )
     .map((m) => m.id);
 }
 
@@ -72,7 +101,14 @@ export async function createComment(
 ): Promise<CommentDto> {
   const id = randomUUID();
   await db.transaction().execute(async (trx) => {
-    let pin = { target: input.target, passId: input.passId ?? null, panel: input.panel ?? null, beat: input.beat ?? null, x: input.x ?? null, y: input.y ?? null };
+    let pin = {
+      target: input.target,
+      passId: input.passId ?? null,
+      panel: input.panel ?? null,
+      beat: input.beat ?? null,
+      x: input.x ?? null,
+      y: input.y ?? null,
+    };
     if (input.parentId) {
       const parent = await trx.selectFrom('comments').selectAll().where('id', '=', input.parentId).executeTakeFirst();
       if (!parent || parent.gagId !== input.gagId) throw new Refused(422, 'The thread you reply to is not on this gag.');
@@ -85,7 +121,18 @@ export async function createComment(
     if (pin.target === 'gag' || pin.target === 'beat') pin = { ...pin, passId: null, panel: null, x: null, y: null };
     await trx
       .insertInto('comments')
-      .values({ id, gagId: input.gagId, parentId: input.parentId ?? null, ...pin, body: input.body, authorId: input.authorId, createdAt: new Date().toISOString(), editedAt: null, resolvedAt: null, resolvedBy: null })
+      .values({
+        id,
+        gagId: input.gagId,
+        parentId: input.parentId ?? null,
+        ...pin,
+        body: input.body,
+        authorId: input.authorId,
+        createdAt: new Date().toISOString(),
+        editedAt: null,
+        resolvedAt: null,
+        resolvedBy: null,
+      })
       .execute();
     const gag = await trx.selectFrom('gags').select('title').where('id', '=', input.gagId).executeTakeFirstOrThrow();
     await recordActivity(trx, {

@@ -65,24 +65,10 @@ async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten' |
   });
 }
 
-const GAG_COLUMNS = [
-  'id',
-  'seriesId',
-  'title',
-  'premise',
-  'status',
-  'position',
-  'createdAt',
-  'updatedAt',
-] as const;
+const GAG_COLUMNS = ['id', 'seriesId', 'title', 'premise', 'status', 'position', 'createdAt', 'updatedAt'] as const;
 
 export async function listGags(db: Db, seriesId: string): Promise<GagDto[]> {
-  const rows = await db
-    .selectFrom('gags')
-    .select(GAG_COLUMNS)
-    .where('seriesId', '=', seriesId)
-    .orderBy('position')
-    .execute();
+  const rows = await db.selectFrom('gags').select(GAG_COLUMNS).where('seriesId', '=', seriesId).orderBy('position').execute();
   return attachBeats(db, rows);
 }
 
@@ -101,7 +87,16 @@ export async function seriesOfGag(db: Db, gagId: string): Promise<string | null>
 /** Appends a gag at the end of the board with four empty beats. */
 export async function createGag(
   db: Kysely<Database>,
-  input: { id: string; seriesId: string; title: string; premise: string; status?: GagStatus; notes?: Partial<Record<BeatKind, string>>; now?: string; createdBy?: string },
+  input: {
+    id: string;
+    seriesId: string;
+    title: string;
+    premise: string;
+    status?: GagStatus;
+    notes?: Partial<Record<BeatKind, string>>;
+    now?: string;
+    createdBy?: string;
+  },
 ): Promise<GagDto> {
   const now = input.now ?? new Date().toISOString();
   await db.transaction().execute(async (trx) => {
@@ -128,7 +123,13 @@ export async function createGag(
       })
       .execute();
     if (input.createdBy) {
-      await recordActivity(trx, { seriesId: input.seriesId, gagId: input.id, userId: input.createdBy, kind: 'gag.created', summary: `added the gag “${input.title}”` });
+      await recordActivity(trx, {
+        seriesId: input.seriesId,
+        gagId: input.id,
+        userId: input.createdBy,
+        kind: 'gag.created',
+        summary: `added the gag “${input.title}”`,
+      });
     }
     await trx
       .insertInto('beats')
@@ -158,12 +159,7 @@ export async function updateGag(
   }
   const { beats, ...fields } = patch;
   for (const beat of beats ?? []) {
-    await trx
-      .updateTable('beats')
-      .set({ note: beat.note, updatedAt: now })
-      .where('gagId', '=', gagId)
-      .where('kind', '=', beat.kind)
-      .execute();
+    await trx.updateTable('beats').set({ note: beat.note, updatedAt: now }).where('gagId', '=', gagId).where('kind', '=', beat.kind).execute();
   }
   await trx
     .updateTable('gags')

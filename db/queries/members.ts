@@ -55,7 +55,19 @@ export async function createInvitation(
   const expiresAt = new Date(now.getTime() + INVITATION_DAYS * 24 * 3600 * 1000);
   await db
     .insertInto('invitations')
-    .values({ id, tokenHash: hashToken(token), seriesId: input.seriesId, email: input.email, role: input.role, invitedBy: input.invitedBy, createdAt: now.toISOString(), expiresAt: expiresAt.toISOString(), acceptedAt: null, acceptedBy: null, revokedAt: null })
+    .values({
+      id,
+      tokenHash: hashToken(token),
+      seriesId: input.seriesId,
+      email: input.email,
+      role: input.role,
+      invitedBy: input.invitedBy,
+      createdAt: now.toISOString(),
+      expiresAt: expiresAt.toISOString(),
+      acceptedAt: null,
+      acceptedBy: null,
+      revokedAt: null,
+    })
     .execute();
   return { id, token, expiresAt };
 }
@@ -66,7 +78,17 @@ export async function invitationByToken(db: Kysely<Database>, token: string) {
     .selectFrom('invitations as i')
     .innerJoin('series as s', 's.id', 'i.seriesId')
     .innerJoin('users as u', 'u.id', 'i.invitedBy')
-    .select(['i.id', 'i.seriesId', 's.title as seriesTitle', 'i.email', 'i.role', 'i.expiresAt', 'i.acceptedAt', 'i.revokedAt', 'u.name as invitedBy'])
+    .select([
+      'i.id',
+      'i.seriesId',
+      's.title as seriesTitle',
+      'i.email',
+      'i.role',
+      'i.expiresAt',
+      'i.acceptedAt',
+      'i.revokedAt',
+      'u.name as invitedBy',
+    ])
     .where('i.tokenHash', '=', hashToken(token))
     .executeTakeFirst();
 }
@@ -78,7 +100,12 @@ export async function acceptInvitation(db: Kysely<Database>, token: string, user
     if (!inv || inv.revokedAt) throw new Refused(404, 'This invitation does not exist.');
     if (inv.acceptedAt) throw new Refused(410, 'This invitation has already been used.');
     if (Date.parse(inv.expiresAt) <= now.getTime()) throw new Refused(410, 'This invitation has expired. Ask the owner for a new one.');
-    const existing = await trx.selectFrom('memberships').select('role').where('seriesId', '=', inv.seriesId).where('userId', '=', userId).executeTakeFirst();
+    const existing = await trx
+      .selectFrom('memberships')
+      .select('role')
+      .where('seriesId', '=', inv.seriesId)
+      .where('userId', '=', userId)
+      .executeTakeFirst();
     if (existing) throw new Refused(409, 'You are already a member of this series.');
     await trx.insertInto('memberships').values({ seriesId: inv.seriesId, userId, role: inv.role, createdAt: now.toISOString() }).execute();
     await trx.updateTable('invitations').set({ acceptedAt: now.toISOString(), acceptedBy: userId }).where('id', '=', inv.id).execute();
@@ -89,7 +116,12 @@ export async function acceptInvitation(db: Kysely<Database>, token: string, user
 }
 
 async function ownerCount(db: Kysely<Database> | Transaction<Database>, seriesId: string) {
-  const r = await db.selectFrom('memberships').select((eb) => eb.fn.countAll<number>().as('n')).where('seriesId', '=', seriesId).where('role', '=', 'owner').executeTakeFirstOrThrow();
+  const r = await db
+    .selectFrom('memberships')
+    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .where('seriesId', '=', seriesId)
+    .where('role', '=', 'owner')
+    .executeTakeFirstOrThrow();
   return Number(r.n);
 }
 

@@ -33,7 +33,17 @@ export const LIGHTBOXES: Kind<Lightbox, LightboxRow> = {
   table: 'lightboxes',
   tombstones: 'lightboxTombstones',
   idColumn: 'lightboxId',
-  values: (l) => ({ uploadId: l.uploadId, panel: l.panel, x: l.x, y: l.y, w: l.w, h: l.h, rotation: l.rotation, opacity: l.opacity, visible: l.visible ? 1 : 0 }),
+  values: (l) => ({
+    uploadId: l.uploadId,
+    panel: l.panel,
+    x: l.x,
+    y: l.y,
+    w: l.w,
+    h: l.h,
+    rotation: l.rotation,
+    opacity: l.opacity,
+    visible: l.visible ? 1 : 0,
+  }),
   toItem: (row) => ({
     id: row.lightboxId,
     uploadId: row.uploadId,
@@ -55,8 +65,18 @@ const loose = (db: Db) => db as unknown as Kysely<any>;
 /** Where a kind of item lives, without its item type. */
 type Tables = Pick<Kind<{ id: string }, never>, 'table' | 'tombstones' | 'idColumn'>;
 
-export async function liveItems<I extends { id: string }, R extends { rowId: number; addedSeq: number; removedSeq: number | null }>(db: Db, kind: Kind<I, R>, passId: string): Promise<I[]> {
-  const rows = await loose(db).selectFrom(kind.table).selectAll().where('passId', '=', passId).where('removedSeq', 'is', null).orderBy('rowId').execute();
+export async function liveItems<I extends { id: string }, R extends { rowId: number; addedSeq: number; removedSeq: number | null }>(
+  db: Db,
+  kind: Kind<I, R>,
+  passId: string,
+): Promise<I[]> {
+  const rows = await loose(db)
+    .selectFrom(kind.table)
+    .selectAll()
+    .where('passId', '=', passId)
+    .where('removedSeq', 'is', null)
+    .orderBy('rowId')
+    .execute();
   return rows.map((r) => kind.toItem(r as R));
 }
 
@@ -133,8 +153,18 @@ export async function upsertItem<I extends { id: string }, R extends { rowId: nu
 
 export async function removeItem(trx: Db, kind: Tables, passId: string, seq: number, id: string): Promise<void> {
   const db = loose(trx);
-  await db.insertInto(kind.tombstones).values({ passId, [kind.idColumn]: id, seq }).onConflict((oc) => oc.doNothing()).execute();
-  await db.updateTable(kind.table).set({ removedSeq: seq }).where('passId', '=', passId).where(kind.idColumn, '=', id).where('removedSeq', 'is', null).execute();
+  await db
+    .insertInto(kind.tombstones)
+    .values({ passId, [kind.idColumn]: id, seq })
+    .onConflict((oc) => oc.doNothing())
+    .execute();
+  await db
+    .updateTable(kind.table)
+    .set({ removedSeq: seq })
+    .where('passId', '=', passId)
+    .where(kind.idColumn, '=', id)
+    .where('removedSeq', 'is', null)
+    .execute();
 }
 
 /** Copies live items into a new pass at `seq`. */

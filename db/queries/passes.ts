@@ -26,7 +26,16 @@ export const REVISION_PAUSE_MS = 30_000;
 /** …and so does every this-many batches of steady drawing. */
 export const REVISION_EVERY_BATCHES = 50;
 
-export type PassSummary = { id: string; gagId: string; number: number; seq: number; strokeCount: number; copiedFrom: number | null; createdAt: string; updatedAt: string };
+export type PassSummary = {
+  id: string;
+  gagId: string;
+  number: number;
+  seq: number;
+  strokeCount: number;
+  copiedFrom: number | null;
+  createdAt: string;
+  updatedAt: string;
+};
 export type PassState = { id: string; gagId: string; number: number; seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
 export type PassDelta = {
   id: string;
@@ -40,7 +49,11 @@ export type PassDelta = {
   removedLightboxes: string[];
 };
 
-function rowToStroke(row: { strokeId: string; panel: number; tool: Stroke['tool']; grey: number; size: number; points: Buffer | Uint8Array }, ox: number, oy: number): Stroke {
+function rowToStroke(
+  row: { strokeId: string; panel: number; tool: Stroke['tool']; grey: number; size: number; points: Buffer | Uint8Array },
+  ox: number,
+  oy: number,
+): Stroke {
   return {
     id: row.strokeId,
     panel: row.panel,
@@ -91,7 +104,13 @@ export async function listPasses(db: Db, gagId: string): Promise<PassSummary[]> 
     .selectFrom('passes as p')
     .leftJoin('strokes as s', (j) => j.onRef('s.passId', '=', 'p.id').on('s.removedSeq', 'is', null))
     .select((eb) => [
-      'p.id', 'p.gagId', 'p.number', 'p.seq', 'p.copiedFrom', 'p.createdAt', 'p.updatedAt',
+      'p.id',
+      'p.gagId',
+      'p.number',
+      'p.seq',
+      'p.copiedFrom',
+      'p.createdAt',
+      'p.updatedAt',
       eb.fn.count<number>('s.rowId').as('strokeCount'),
     ])
     .where('p.gagId', '=', gagId)
@@ -200,10 +219,7 @@ export async function strokesAt(db: Db, passId: string, seq: number) {
 
 async function addRevision(trx: Db, passId: string, seq: number, reason: RevisionReason, userId: string | null, restoredFrom: string | null = null) {
   const id = randomUUID();
-  await trx
-    .insertInto('revisions')
-    .values({ id, passId, seq, reason, restoredFrom, userId, createdAt: new Date().toISOString() })
-    .execute();
+  await trx.insertInto('revisions').values({ id, passId, seq, reason, restoredFrom, userId, createdAt: new Date().toISOString() }).execute();
   return id;
 }
 
@@ -240,7 +256,11 @@ export async function createPass(
       .insertInto('passes')
       .values({ id, gagId: input.gagId, number, seq, copiedFrom: input.copyFrom ?? null, createdBy: input.userId, createdAt: now, updatedAt: now })
       .execute();
-    for (const s of source) await trx.insertInto('strokes').values(strokeRowValues(id, s, 1, input.userId)).execute();
+    for (const s of source)
+      await trx
+        .insertInto('strokes')
+        .values(strokeRowValues(id, s, 1, input.userId))
+        .execute();
     await copyItems(trx, ROOMS, sourceRooms, id, 1);
     await copyItems(trx, LIGHTBOXES, sourceLightboxes, id, 1);
     await addRevision(trx, id, seq, input.copyFrom !== undefined ? 'copied' : 'created', input.userId);
@@ -274,7 +294,10 @@ async function applyOp(trx: Transaction<Database>, passId: string, seq: number, 
         (await trx.selectFrom('strokes').select('rowId').where('passId', '=', passId).where('strokeId', '=', op.stroke.id).executeTakeFirst()) ??
         (await trx.selectFrom('strokeTombstones').select('seq').where('passId', '=', passId).where('strokeId', '=', op.stroke.id).executeTakeFirst());
       if (seen) return; // already added, or removed: the removal wins
-      await trx.insertInto('strokes').values(strokeRowValues(passId, op.stroke, seq, userId)).execute();
+      await trx
+        .insertInto('strokes')
+        .values(strokeRowValues(passId, op.stroke, seq, userId))
+        .execute();
       return;
     }
     case 'remove': {
@@ -363,7 +386,15 @@ export async function applyBatch(
     await trx.updateTable('passes').set({ seq, updatedAt: now.toISOString() }).where('id', '=', input.passId).execute();
     await trx
       .insertInto('passBatches')
-      .values({ passId: input.passId, batchId: input.batchId, seq, userId: input.userId, opCount: input.ops.length, result: JSON.stringify(result), createdAt: now.toISOString() })
+      .values({
+        passId: input.passId,
+        batchId: input.batchId,
+        seq,
+        userId: input.userId,
+        opCount: input.ops.length,
+        result: JSON.stringify(result),
+        createdAt: now.toISOString(),
+      })
       .execute();
     return { ...result, replayed: false, stampCleared };
   });
@@ -431,7 +462,10 @@ export async function restoreRevision(
       }
       if (now) await trx.updateTable('strokes').set({ removedSeq: seq }).where('rowId', '=', now.rowId).execute();
       const stroke = rowToStroke(row, offset.dx, offset.dy);
-      await trx.insertInto('strokes').values(strokeRowValues(input.passId, stroke, seq, input.userId)).execute();
+      await trx
+        .insertInto('strokes')
+        .values(strokeRowValues(input.passId, stroke, seq, input.userId))
+        .execute();
     }
 
     await restoreItems(trx, ROOMS, input.passId, rev.seq, seq);
@@ -453,7 +487,15 @@ export async function restoreRevision(
     const result = { seq };
     await trx
       .insertInto('passBatches')
-      .values({ passId: input.passId, batchId: `restore-${revisionId}`, seq, userId: input.userId, opCount: 0, result: JSON.stringify(result), createdAt: now })
+      .values({
+        passId: input.passId,
+        batchId: `restore-${revisionId}`,
+        seq,
+        userId: input.userId,
+        opCount: 0,
+        result: JSON.stringify(result),
+        createdAt: now,
+      })
       .execute();
     return { seq, revisionId };
   });

@@ -24,7 +24,12 @@ export async function beat(
 
 /** Refreshes a tab's row without changing where it is; false when the row is gone. */
 export async function touch(db: Kysely<Database>, tabId: string, userId: string, now = new Date()): Promise<boolean> {
-  const r = await db.updateTable('presenceTabs').set({ seenAt: now.toISOString() }).where('tabId', '=', tabId).where('userId', '=', userId).executeTakeFirst();
+  const r = await db
+    .updateTable('presenceTabs')
+    .set({ seenAt: now.toISOString() })
+    .where('tabId', '=', tabId)
+    .where('userId', '=', userId)
+    .executeTakeFirst();
   return Number(r.numUpdatedRows) > 0;
 }
 

@@ -54,7 +54,11 @@ export async function setTicks(db: Kysely<Database>, seriesId: string, passId: s
     if (drop.length) await trx.deleteFrom('checklistTicks').where('passId', '=', passId).where('itemId', 'in', drop).execute();
     const add = [...want].filter((id) => !haveSet.has(id));
     const now = new Date().toISOString();
-    if (add.length) await trx.insertInto('checklistTicks').values(add.map((itemId) => ({ passId, itemId, userId, tickedAt: now }))).execute();
+    if (add.length)
+      await trx
+        .insertInto('checklistTicks')
+        .values(add.map((itemId) => ({ passId, itemId, userId, tickedAt: now })))
+        .execute();
   });
   return null;
 }
@@ -69,9 +73,16 @@ export async function setChecklistItems(db: Kysely<Database>, seriesId: string, 
     for (const c of current) if (!keep.has(c.id)) await trx.updateTable('checklistItems').set({ removedAt: now }).where('id', '=', c.id).execute();
     for (const [i, item] of items.entries()) {
       if (item.id && current.some((c) => c.id === item.id)) {
-        await trx.updateTable('checklistItems').set({ text: item.text, position: i + 1 }).where('id', '=', item.id).execute();
+        await trx
+          .updateTable('checklistItems')
+          .set({ text: item.text, position: i + 1 })
+          .where('id', '=', item.id)
+          .execute();
       } else {
-        await trx.insertInto('checklistItems').values({ id: randomUUID(), seriesId, text: item.text, position: i + 1, createdAt: now, removedAt: null }).execute();
+        await trx
+          .insertInto('checklistItems')
+          .values({ id: randomUUID(), seriesId, text: item.text, position: i + 1, createdAt: now, removedAt: null })
+          .execute();
       }
     }
   });

@@ -18,12 +18,7 @@ export async function listSeriesForUser(db: Kysely<Database>, userId: string): P
 }
 
 export async function roleInSeries(db: Kysely<Database>, userId: string, seriesId: string): Promise<Role | null> {
-  const row = await db
-    .selectFrom('memberships')
-    .select('role')
-    .where('userId', '=', userId)
-    .where('seriesId', '=', seriesId)
-    .executeTakeFirst();
+  const row = await db.selectFrom('memberships').select('role').where('userId', '=', userId).where('seriesId', '=', seriesId).executeTakeFirst();
   return row?.role ?? null;
 }
 
@@ -32,17 +27,11 @@ export async function findSeries(db: Kysely<Database>, seriesId: string) {
 }
 
 /** Creates a series with its creator as owner, in one transaction. */
-export async function createSeries(
-  db: Kysely<Database>,
-  input: { id: string; title: string; ownerId: string },
-): Promise<SeriesDto> {
+export async function createSeries(db: Kysely<Database>, input: { id: string; title: string; ownerId: string }): Promise<SeriesDto> {
   const now = new Date().toISOString();
   await db.transaction().execute(async (trx) => {
     await trx.insertInto('series').values({ id: input.id, title: input.title, createdAt: now }).execute();
-    await trx
-      .insertInto('memberships')
-      .values({ seriesId: input.id, userId: input.ownerId, role: 'owner', createdAt: now })
-      .execute();
+    await trx.insertInto('memberships').values({ seriesId: input.id, userId: input.ownerId, role: 'owner', createdAt: now }).execute();
   });
   return { id: input.id, title: input.title, role: 'owner' };
 }
@@ -55,7 +44,11 @@ export async function pageSpecOf(db: Kysely<Database>, seriesId: string): Promis
 }
 
 export async function setPageSpec(db: Kysely<Database>, seriesId: string, spec: PageSpec): Promise<void> {
-  await db.updateTable('series').set({ pageSpec: JSON.stringify(spec) }).where('id', '=', seriesId).execute();
+  await db
+    .updateTable('series')
+    .set({ pageSpec: JSON.stringify(spec) })
+    .where('id', '=', seriesId)
+    .execute();
 }
 
 /**
@@ -72,7 +65,13 @@ export async function pageSpecForGag(db: Kysely<Database>, seriesId: string, gag
   if (placed) {
     const v = JSON.parse(placed.spec) as Partial<PageSpec>;
     const base = await pageSpecOf(db, seriesId);
-    return { trimW: v.trimW ?? base.trimW, trimH: v.trimH ?? base.trimH, bleed: v.bleed ?? base.bleed, safe: v.safe ?? base.safe, gutter: v.gutter ?? base.gutter };
+    return {
+      trimW: v.trimW ?? base.trimW,
+      trimH: v.trimH ?? base.trimH,
+      bleed: v.bleed ?? base.bleed,
+      safe: v.safe ?? base.safe,
+      gutter: v.gutter ?? base.gutter,
+    };
   }
   return pageSpecOf(db, seriesId);
 }

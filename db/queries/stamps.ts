@@ -39,7 +39,10 @@ export async function stampPass(
     // so two stamps at once leave one "ready" standing.
     await lockRow(trx, 'gags', pass.gagId);
     if (!STAMPABLE.has(pass.status)) {
-      throw new Refused(409, `This gag is already past "ready to ink" (it is ${pass.status.replace(/_/g, ' ')}); move it back before stamping a pass.`);
+      throw new Refused(
+        409,
+        `This gag is already past "ready to ink" (it is ${pass.status.replace(/_/g, ' ')}); move it back before stamping a pass.`,
+      );
     }
     const now = new Date().toISOString();
     // A new stamp supersedes any "ready" stamp still standing on this gag.
@@ -53,7 +56,18 @@ export async function stampPass(
     const stampId = randomUUID();
     await trx
       .insertInto('stamps')
-      .values({ id: stampId, passId: pass.id, gagId: pass.gagId, decision: input.decision, note: input.note, passSeq: pass.seq, userId: input.userId, createdAt: now, clearedAt: null, clearedSeq: null })
+      .values({
+        id: stampId,
+        passId: pass.id,
+        gagId: pass.gagId,
+        decision: input.decision,
+        note: input.note,
+        passSeq: pass.seq,
+        userId: input.userId,
+        createdAt: now,
+        clearedAt: null,
+        clearedSeq: null,
+      })
       .execute();
     await trx
       .updateTable('gags')
@@ -82,7 +96,18 @@ function stamps(db: Db) {
     .selectFrom('stamps as s')
     .innerJoin('passes as p', 'p.id', 's.passId')
     .innerJoin('users as u', 'u.id', 's.userId')
-    .select(['s.id', 's.passId', 'p.number as passNumber', 's.decision', 's.note', 's.passSeq', 'u.name as by', 's.createdAt', 's.clearedAt', 's.clearedSeq']);
+    .select([
+      's.id',
+      's.passId',
+      'p.number as passNumber',
+      's.decision',
+      's.note',
+      's.passSeq',
+      'u.name as by',
+      's.createdAt',
+      's.clearedAt',
+      's.clearedSeq',
+    ]);
 }
 
 async function stampById(db: Db, id: string): Promise<StampDto | undefined> {

@@ -41,7 +41,10 @@ export async function uploadsInSeries(db: Kysely<Database>, seriesId: string, id
 }
 
 /** Passes whose current state places this upload as a lightbox. */
-export async function passesUsingUpload(db: Kysely<Database>, uploadId: string): Promise<{ passId: string; gagId: string; gagTitle: string; passNumber: number }[]> {
+export async function passesUsingUpload(
+  db: Kysely<Database>,
+  uploadId: string,
+): Promise<{ passId: string; gagId: string; gagTitle: string; passNumber: number }[]> {
   return db
     .selectFrom('lightboxes as l')
     .innerJoin('passes as p', 'p.id', 'l.passId')
@@ -55,13 +58,13 @@ export async function passesUsingUpload(db: Kysely<Database>, uploadId: string):
     .execute();
 }
 
-export async function insertUpload(
-  db: Kysely<Database>,
-  u: Omit<Database['uploads'], 'id' | 'createdAt'>,
-): Promise<UploadDto> {
+export async function insertUpload(db: Kysely<Database>, u: Omit<Database['uploads'], 'id' | 'createdAt'>): Promise<UploadDto> {
   const id = randomUUID();
-  await db.insertInto('uploads').values({ ...u, id, createdAt: new Date().toISOString() }).execute();
-  return (await db.selectFrom('uploads').select(COLS).where('id', '=', id).executeTakeFirstOrThrow());
+  await db
+    .insertInto('uploads')
+    .values({ ...u, id, createdAt: new Date().toISOString() })
+    .execute();
+  return await db.selectFrom('uploads').select(COLS).where('id', '=', id).executeTakeFirstOrThrow();
 }
 
 export async function deleteUpload(db: Kysely<Database>, id: string): Promise<void> {

@@ -7,17 +7,11 @@ export async function findUserByEmail(db: Kysely<Database>, email: string): Prom
   return db.selectFrom('users').selectAll().where('email', '=', email.toLowerCase()).executeTakeFirst();
 }
 
-export async function findUserById(
-  db: Kysely<Database>,
-  id: string,
-): Promise<Pick<User, 'id' | 'email' | 'name'> | undefined> {
+export async function findUserById(db: Kysely<Database>, id: string): Promise<Pick<User, 'id' | 'email' | 'name'> | undefined> {
   return db.selectFrom('users').select(['id', 'email', 'name']).where('id', '=', id).executeTakeFirst();
 }
 
-export async function insertUser(
-  db: Kysely<Database>,
-  user: { id: string; email: string; name: string; passwordHash: string },
-): Promise<void> {
+export async function insertUser(db: Kysely<Database>, user: { id: string; email: string; name: string; passwordHash: string }): Promise<void> {
   await db
     .insertInto('users')
     .values({ ...user, email: user.email.toLowerCase(), createdAt: new Date().toISOString() })

@@ -3,7 +3,18 @@ import { randomUUID } from 'node:crypto';
 import { generateKeyBetween } from 'fractional-indexing';
 import type { Kysely, Selectable, Transaction } from 'kysely';
 import { type GagStatus } from '@/lib/gags/status';
-import { DEFAULT_VOLUME_SPEC, type Spread, type VolumeSpec, blankSuggestion, blanksNeeded, pageCountValid, printerSpreads, readerSpreads, sheetsNeeded, spineMm } from '@/lib/print/book';
+import {
+  DEFAULT_VOLUME_SPEC,
+  type Spread,
+  type VolumeSpec,
+  blankSuggestion,
+  blanksNeeded,
+  pageCountValid,
+  printerSpreads,
+  readerSpreads,
+  sheetsNeeded,
+  spineMm,
+} from '@/lib/print/book';
 import { DEFAULT_HOURS, type Stage, plan } from '@/lib/planning/plan';
 import type { Database, EntryKind, VolumesTable } from '../database';
 import { lockRow } from '../dialect';
@@ -19,7 +30,15 @@ export type VolumeDto = {
   hoursPerPage: Record<Stage, number>;
 };
 
-export type EntryDto = { id: string; kind: EntryKind; gagId: string | null; position: string; title: string | null; status: GagStatus | null; latestPass: { id: string; seq: number } | null };
+export type EntryDto = {
+  id: string;
+  kind: EntryKind;
+  gagId: string | null;
+  position: string;
+  title: string | null;
+  status: GagStatus | null;
+  latestPass: { id: string; seq: number } | null;
+};
 
 function toDto(row: Selectable<VolumesTable>): VolumeDto {
   return {
@@ -97,9 +116,7 @@ export async function listEntries(db: Kysely<Database>, volumeId: string): Promi
     .orderBy('e.position')
     .execute();
   const gagIds = rows.map((r) => r.gagId).filter((x): x is string => !!x);
-  const passes = gagIds.length
-    ? await db.selectFrom('passes').select(['id', 'gagId', 'number', 'seq']).where('gagId', 'in', gagIds).execute()
-    : [];
+  const passes = gagIds.length ? await db.selectFrom('passes').select(['id', 'gagId', 'number', 'seq']).where('gagId', 'in', gagIds).execute() : [];
   const latest = new Map<string, { id: string; number: number; seq: number }>();
   for (const p of passes) if (!latest.get(p.gagId) || latest.get(p.gagId)!.number < p.number) latest.set(p.gagId, p);
   return rows.map((r) => {
@@ -109,12 +126,23 @@ export async function listEntries(db: Kysely<Database>, volumeId: string): Promi
 }
 
 async function lastKey(db: Kysely<Database> | Transaction<Database>, volumeId: string): Promise<string | null> {
-  const row = await db.selectFrom('volumeEntries').select('position').where('volumeId', '=', volumeId).orderBy('position', 'desc').limit(1).executeTakeFirst();
+  const row = await db
+    .selectFrom('volumeEntries')
+    .select('position')
+    .where('volumeId', '=', volumeId)
+    .orderBy('position', 'desc')
+    .limit(1)
+    .executeTakeFirst();
   return row?.position ?? null;
 }
 
 /** Appends a gag page or a matter page at the end of the running order. */
-export async function addEntry(db: Kysely<Database>, volumeId: string, seriesId: string, input: { gagId?: string; kind?: EntryKind }): Promise<EntryDto> {
+export async function addEntry(
+  db: Kysely<Database>,
+  volumeId: string,
+  seriesId: string,
+  input: { gagId?: string; kind?: EntryKind },
+): Promise<EntryDto> {
   const id = randomUUID();
   await db.transaction().execute(async (trx) => {
     // Appends to one volume queue (distinct last keys); placing one gag twice at once → one 409.
@@ -125,7 +153,13 @@ export async function addEntry(db: Kysely<Database>, volumeId: string, seriesId:
   return (await listEntries(db, volumeId)).find((e) => e.id === id)!;
 }
 
-async function addEntryLocked(db: Transaction<Database>, id: string, volumeId: string, seriesId: string, input: { gagId?: string; kind?: EntryKind }) {
+async function addEntryLocked(
+  db: Transaction<Database>,
+  id: string,
+  volumeId: string,
+  seriesId: string,
+  input: { gagId?: string; kind?: EntryKind },
+) {
   if (input.gagId) {
     const gag = await db.selectFrom('gags').select(['seriesId']).where('id', '=', input.gagId).executeTakeFirst();
     if (!gag || gag.seriesId !== seriesId) throw new Refused(422, 'That gag is not in this series.');
@@ -152,11 +186,21 @@ export async function moveEntry(db: Kysely<Database>, volumeId: string, entryId:
   return db.transaction().execute(async (trx) => {
     // Moves in one volume queue: two at once never compute a key from the same neighbours.
     await lockRow(trx, 'volumes', volumeId);
-    const me = await trx.selectFrom('volumeEntries').select(['id', 'position']).where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
+    const me = await trx
+      .selectFrom('volumeEntries')
+      .select(['id', 'position'])
+      .where('id', '=', entryId)
+      .where('volumeId', '=', volumeId)
+      .executeTakeFirst();
     if (!me) throw new Refused(404, 'Not found.');
     const anchorId = to.after ?? to.before!;
     if (anchorId === entryId) return me.position;
-    const anchor = await trx.selectFrom('volumeEntries').select(['id', 'position']).where('id', '=', anchorId).where('volumeId', '=', volumeId).executeTakeFirst();
+    const anchor = await trx
+      .selectFrom('volumeEntries')
+      .select(['id', 'position'])
+      .where('id', '=', anchorId)
+      .where('volumeId', '=', volumeId)
+      .executeTakeFirst();
     if (!anchor) throw new Refused(422, 'The entry to move next to is not in this volume.');
     let lo: string | null;
     let hi: string | null;
@@ -187,7 +231,15 @@ export async function moveEntry(db: Kysely<Database>, volumeId: string, entryId:
 }
 
 export type Flatplan = {
-  pages: { number: number; kind: EntryKind; gagId?: string; entryId: string; title: string | null; status: GagStatus | null; latestPass: { id: string; seq: number } | null }[];
+  pages: {
+    number: number;
+    kind: EntryKind;
+    gagId?: string;
+    entryId: string;
+    title: string | null;
+    status: GagStatus | null;
+    latestPass: { id: string; seq: number } | null;
+  }[];
   spreads: Spread[];
   pageCountValid: boolean;
   blanksNeeded: number;
@@ -202,7 +254,15 @@ export function flatplanOf(volume: VolumeDto, entries: EntryDto[]): Flatplan {
   const n = entries.length;
   const READY_OR_LATER: GagStatus[] = ['ready_to_ink', 'inked', 'scanned', 'placed'];
   return {
-    pages: entries.map((e, i) => ({ number: i + 1, kind: e.kind, ...(e.gagId ? { gagId: e.gagId } : {}), entryId: e.id, title: e.title, status: e.status, latestPass: e.latestPass })),
+    pages: entries.map((e, i) => ({
+      number: i + 1,
+      kind: e.kind,
+      ...(e.gagId ? { gagId: e.gagId } : {}),
+      entryId: e.id,
+      title: e.title,
+      status: e.status,
+      latestPass: e.latestPass,
+    })),
     spreads: readerSpreads(n, volume.spec.direction),
     pageCountValid: pageCountValid(n, volume.spec.binding),
     blanksNeeded: blanksNeeded(n, volume.spec.binding),
@@ -210,13 +270,21 @@ export function flatplanOf(volume: VolumeDto, entries: EntryDto[]): Flatplan {
     spineMm: spineMm(n, volume.spec.caliperUm),
     sheets: sheetsNeeded(n, volume.spec.binding),
     printerSpreads: volume.spec.binding === 'saddle' ? printerSpreads(n) : [],
-    notReady: entries.filter((e) => e.gagId && e.status && !READY_OR_LATER.includes(e.status)).map((e) => ({ gagId: e.gagId!, title: e.title!, status: e.status! })),
+    notReady: entries
+      .filter((e) => e.gagId && e.status && !READY_OR_LATER.includes(e.status))
+      .map((e) => ({ gagId: e.gagId!, title: e.title!, status: e.status! })),
   };
 }
 
 export function planOf(volume: VolumeDto, entries: EntryDto[], today = new Date()) {
   const gags = entries.filter((e) => e.status).map((e) => ({ status: e.status! }));
-  return plan({ gags, hoursPerPage: volume.hoursPerPage, hoursPerWeek: volume.hoursPerWeek, today, deadline: new Date(`${volume.deadline}T00:00:00Z`) });
+  return plan({
+    gags,
+    hoursPerPage: volume.hoursPerPage,
+    hoursPerWeek: volume.hoursPerWeek,
+    today,
+    deadline: new Date(`${volume.deadline}T00:00:00Z`),
+  });
 }
 
 /** The series' gags not placed in any volume, in board order. */

@@ -17,7 +17,13 @@ import { DEFAULT_HOURS } from '@/lib/planning/plan';
 
 /** How many passes each demo status has drawn so far. */
 const PASSES_BY_STATUS: Record<GagStatus, number> = {
-  idea: 0, thumbnailing: 1, in_review: 2, ready_to_ink: 3, inked: 2, scanned: 2, placed: 2,
+  idea: 0,
+  thumbnailing: 1,
+  in_review: 2,
+  ready_to_ink: 3,
+  inked: 2,
+  scanned: 2,
+  placed: 2,
 };
 
 export const DEMO_PASSWORD = 'kettle-crab-demo';
@@ -51,83 +57,194 @@ type DemoGag = {
 
 export const DEMO_GAGS: DemoGag[] = [
   {
-    id: 'demo-gag-01', seriesId: DEMO_SERIES_ID, status: 'placed', title: 'Low Tide Lunch',
+    id: 'demo-gag-01',
+    seriesId: DEMO_SERIES_ID,
+    status: 'placed',
+    title: 'Low Tide Lunch',
     premise: 'Kettle reaches for a snack as the tide goes out, and the snack walks off on its own.',
-    notes: { setup: 'Wide: pier at low tide, teapot on its side, Kettle peeking out.', build: 'Kettle stretches one claw toward a mussel on the sand.', turn: 'The mussel sprouts legs: it is another crab.', payoff: 'Kettle back in the pot, sipping from the spout, pretending nothing happened.' },
+    notes: {
+      setup: 'Wide: pier at low tide, teapot on its side, Kettle peeking out.',
+      build: 'Kettle stretches one claw toward a mussel on the sand.',
+      turn: 'The mussel sprouts legs: it is another crab.',
+      payoff: 'Kettle back in the pot, sipping from the spout, pretending nothing happened.',
+    },
   },
   {
-    id: 'demo-gag-02', seriesId: DEMO_SERIES_ID, status: 'placed', title: 'Spout Periscope',
+    id: 'demo-gag-02',
+    seriesId: DEMO_SERIES_ID,
+    status: 'placed',
+    title: 'Spout Periscope',
     premise: 'Kettle spies on Mrs Brine through the teapot spout.',
-    notes: { setup: 'Mrs Brine lands on a post with something shiny.', build: 'Only the spout turns to follow her, like a periscope.', turn: 'Mrs Brine peers straight down the spout.', payoff: 'Inside: one huge gull eye fills the dark. Kettle flat against the back wall.' },
+    notes: {
+      setup: 'Mrs Brine lands on a post with something shiny.',
+      build: 'Only the spout turns to follow her, like a periscope.',
+      turn: 'Mrs Brine peers straight down the spout.',
+      payoff: 'Inside: one huge gull eye fills the dark. Kettle flat against the back wall.',
+    },
   },
   {
-    id: 'demo-gag-03', seriesId: DEMO_SERIES_ID, status: 'scanned', title: 'Lid Umbrella',
+    id: 'demo-gag-03',
+    seriesId: DEMO_SERIES_ID,
+    status: 'scanned',
+    title: 'Lid Umbrella',
     premise: 'Kettle uses the lid as an umbrella; Mrs Brine wants to share it.',
-    notes: { setup: 'First drops of rain on the pier boards.', build: 'Kettle strolls out holding the lid over his shell.', turn: 'Mrs Brine squeezes under the lid beside him.', payoff: 'Wide: the gull dry under the lid, Kettle outside it, soaked and flat.' },
+    notes: {
+      setup: 'First drops of rain on the pier boards.',
+      build: 'Kettle strolls out holding the lid over his shell.',
+      turn: 'Mrs Brine squeezes under the lid beside him.',
+      payoff: 'Wide: the gull dry under the lid, Kettle outside it, soaked and flat.',
+    },
   },
   {
-    id: 'demo-gag-04', seriesId: DEMO_SERIES_ID, status: 'inked', title: 'Whistle Alarm',
+    id: 'demo-gag-04',
+    seriesId: DEMO_SERIES_ID,
+    status: 'inked',
+    title: 'Whistle Alarm',
     premise: 'The noon sun heats the teapot until it whistles and wakes the whole pier.',
-    notes: { setup: 'Noon. Heat shimmer over the teapot.', build: 'Steam curls from the spout; Kettle asleep inside.', turn: 'The pot whistles; every gull on the pier leaps up.', payoff: 'A ring of angry gulls around the pot; Kettle offers them tea.' },
+    notes: {
+      setup: 'Noon. Heat shimmer over the teapot.',
+      build: 'Steam curls from the spout; Kettle asleep inside.',
+      turn: 'The pot whistles; every gull on the pier leaps up.',
+      payoff: 'A ring of angry gulls around the pot; Kettle offers them tea.',
+    },
   },
   {
-    id: 'demo-gag-05', seriesId: DEMO_SERIES_ID, status: 'ready_to_ink', title: 'Moving Day',
+    id: 'demo-gag-05',
+    seriesId: DEMO_SERIES_ID,
+    status: 'ready_to_ink',
+    title: 'Moving Day',
     premise: 'Kettle tries out a grand new shell and comes back to the teapot.',
-    notes: { setup: 'A big spiral shell washes up, gleaming.', build: 'Kettle moves in, posing proudly.', turn: 'The shell is so heavy he cannot lift it.', payoff: 'Back in the teapot, patting it like an old friend.' },
+    notes: {
+      setup: 'A big spiral shell washes up, gleaming.',
+      build: 'Kettle moves in, posing proudly.',
+      turn: 'The shell is so heavy he cannot lift it.',
+      payoff: 'Back in the teapot, patting it like an old friend.',
+    },
   },
   {
-    id: 'demo-gag-06', seriesId: DEMO_SERIES_ID, status: 'ready_to_ink', title: 'Finders Keepers',
+    id: 'demo-gag-06',
+    seriesId: DEMO_SERIES_ID,
+    status: 'ready_to_ink',
+    title: 'Finders Keepers',
     premise: 'Mrs Brine drops a fish; Kettle claims it; the fish is a bath toy.',
-    notes: { setup: 'Mrs Brine flies over with a fish in her beak.', build: 'The fish falls; Kettle drags it home with effort.', turn: 'He bites: it squeaks.', payoff: 'Mrs Brine on the rail, laughing silently, wings over her face.' },
+    notes: {
+      setup: 'Mrs Brine flies over with a fish in her beak.',
+      build: 'The fish falls; Kettle drags it home with effort.',
+      turn: 'He bites: it squeaks.',
+      payoff: 'Mrs Brine on the rail, laughing silently, wings over her face.',
+    },
   },
   {
-    id: 'demo-gag-07', seriesId: DEMO_SERIES_ID, status: 'in_review', title: 'Sugar Cube',
+    id: 'demo-gag-07',
+    seriesId: DEMO_SERIES_ID,
+    status: 'in_review',
+    title: 'Sugar Cube',
     premise: 'Kettle finds a sugar cube and saves it for later; the sea has other plans.',
-    notes: { setup: 'A sugar cube on the pier, dropped by a passer-by (feet only).', build: 'Kettle carries it home above his head like a trophy.', turn: 'A wave splashes over the pier.', payoff: '' },
+    notes: {
+      setup: 'A sugar cube on the pier, dropped by a passer-by (feet only).',
+      build: 'Kettle carries it home above his head like a trophy.',
+      turn: 'A wave splashes over the pier.',
+      payoff: '',
+    },
   },
   {
-    id: 'demo-gag-08', seriesId: DEMO_SERIES_ID, status: 'in_review', title: 'Fog Horn',
+    id: 'demo-gag-08',
+    seriesId: DEMO_SERIES_ID,
+    status: 'in_review',
+    title: 'Fog Horn',
     premise: 'In thick fog, Kettle mistakes the fog horn for Mrs Brine calling.',
-    notes: { setup: 'Pier lost in fog; only the teapot outline.', build: 'A low blast; Kettle waves a claw toward the sound.', turn: 'The fog lifts: a huge ship horn.', payoff: 'Mrs Brine behind him, tapping his shell.' },
+    notes: {
+      setup: 'Pier lost in fog; only the teapot outline.',
+      build: 'A low blast; Kettle waves a claw toward the sound.',
+      turn: 'The fog lifts: a huge ship horn.',
+      payoff: 'Mrs Brine behind him, tapping his shell.',
+    },
   },
   {
-    id: 'demo-gag-09', seriesId: DEMO_SERIES_ID, status: 'thumbnailing', title: 'Tea Party',
+    id: 'demo-gag-09',
+    seriesId: DEMO_SERIES_ID,
+    status: 'thumbnailing',
+    title: 'Tea Party',
     premise: 'Kettle sets a tiny tea party with barnacle cups; the gulls arrive uninvited.',
     notes: { setup: 'Barnacle cups laid out on a plank.', build: 'Kettle pours seawater from the spout.', turn: '' },
   },
   {
-    id: 'demo-gag-10', seriesId: DEMO_SERIES_ID, status: 'thumbnailing', title: 'Handle Swing',
+    id: 'demo-gag-10',
+    seriesId: DEMO_SERIES_ID,
+    status: 'thumbnailing',
+    title: 'Handle Swing',
     premise: 'Kettle swings from the teapot handle like a trapeze artist.',
     notes: { setup: 'Kettle eyes the handle from below.' },
   },
   {
-    id: 'demo-gag-11', seriesId: DEMO_SERIES_ID, status: 'idea', title: 'Sideways Race',
+    id: 'demo-gag-11',
+    seriesId: DEMO_SERIES_ID,
+    status: 'idea',
+    title: 'Sideways Race',
     premise: 'A race along the pier against a rival crab who only goes sideways faster.',
     notes: {},
   },
   {
-    id: 'demo-gag-12', seriesId: DEMO_SERIES_ID, status: 'idea', title: 'Moon Steep',
+    id: 'demo-gag-12',
+    seriesId: DEMO_SERIES_ID,
+    status: 'idea',
+    title: 'Moon Steep',
     premise: 'The full-moon tide fills the teapot; Kettle steeps like a tea bag.',
     notes: {},
   },
   {
-    id: 'demo-gag-21', seriesId: OTHER_SERIES_ID, status: 'thumbnailing', title: 'Porch Light',
+    id: 'demo-gag-21',
+    seriesId: OTHER_SERIES_ID,
+    status: 'thumbnailing',
+    title: 'Porch Light',
     premise: 'A moth courts the porch light; the porch light switches off at dawn.',
     notes: { setup: 'Night porch, one bulb, one moth.' },
   },
   {
-    id: 'demo-gag-22', seriesId: OTHER_SERIES_ID, status: 'idea', title: 'Candle Date',
+    id: 'demo-gag-22',
+    seriesId: OTHER_SERIES_ID,
+    status: 'idea',
+    title: 'Candle Date',
     premise: 'The moth brings a candle to a date and regrets it.',
     notes: {},
   },
 ];
 
-type DemoComment = { id: string; gagId: string; pass?: number; panel?: number; beat?: BeatKind; by: string; body: string; parent?: string; resolved?: boolean };
+type DemoComment = {
+  id: string;
+  gagId: string;
+  pass?: number;
+  panel?: number;
+  beat?: BeatKind;
+  by: string;
+  body: string;
+  parent?: string;
+  resolved?: boolean;
+};
 
 const DEMO_COMMENTS: DemoComment[] = [
-  { id: 'demo-c-1', gagId: 'demo-gag-07', pass: 2, panel: 2, by: 'demo-user-editor', body: 'The wave arrives too late: the turn should hit in this panel, not the next.' },
-  { id: 'demo-c-2', gagId: 'demo-gag-07', parent: 'demo-c-1', by: 'demo-user-cocreator', body: 'Agreed. I will raise the horizon and bring the wave in from the left.' },
-  { id: 'demo-c-3', gagId: 'demo-gag-07', beat: 'payoff', by: 'demo-user-editor', body: 'The payoff has no note yet: what does Kettle hold at the end?' },
+  {
+    id: 'demo-c-1',
+    gagId: 'demo-gag-07',
+    pass: 2,
+    panel: 2,
+    by: 'demo-user-editor',
+    body: 'The wave arrives too late: the turn should hit in this panel, not the next.',
+  },
+  {
+    id: 'demo-c-2',
+    gagId: 'demo-gag-07',
+    parent: 'demo-c-1',
+    by: 'demo-user-cocreator',
+    body: 'Agreed. I will raise the horizon and bring the wave in from the left.',
+  },
+  {
+    id: 'demo-c-3',
+    gagId: 'demo-gag-07',
+    beat: 'payoff',
+    by: 'demo-user-editor',
+    body: 'The payoff has no note yet: what does Kettle hold at the end?',
+  },
   { id: 'demo-c-4', gagId: 'demo-gag-08', pass: 2, panel: 3, by: 'demo-user-cocreator', body: 'Mrs Brine reads clearly here even as a silhouette.' },
   { id: 'demo-c-5', gagId: 'demo-gag-05', pass: 3, by: 'demo-user-editor', body: 'This pass reads in one glance. Stamped.', resolved: true },
 ];
@@ -181,7 +298,17 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
       const changed = at(24 * i + 30 + ((i * 7) % 11) * 5);
       await trx
         .insertInto('gags')
-        .values({ id: g.id, seriesId: g.seriesId, title: g.title, premise: g.premise, status: g.status, position: i, createdBy: g.seriesId === DEMO_SERIES_ID ? 'demo-user-owner' : 'demo-user-outsider', createdAt: created, updatedAt: changed })
+        .values({
+          id: g.id,
+          seriesId: g.seriesId,
+          title: g.title,
+          premise: g.premise,
+          status: g.status,
+          position: i,
+          createdBy: g.seriesId === DEMO_SERIES_ID ? 'demo-user-owner' : 'demo-user-outsider',
+          createdAt: created,
+          updatedAt: changed,
+        })
         .onConflict((oc) => oc.doNothing())
         .execute();
       await trx
@@ -196,21 +323,45 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
         const { strokes, rooms } = demoSketch(i, n);
         await trx
           .insertInto('passes')
-          .values({ id: passId, gagId: g.id, number: n, seq: 1, copiedFrom: null, createdBy: 'demo-user-owner', createdAt: changed, updatedAt: changed })
+          .values({
+            id: passId,
+            gagId: g.id,
+            number: n,
+            seq: 1,
+            copiedFrom: null,
+            createdBy: 'demo-user-owner',
+            createdAt: changed,
+            updatedAt: changed,
+          })
           .execute();
         for (const s of strokes) {
           const b = pointsBounds(s.points);
           await trx
             .insertInto('strokes')
             .values({
-              passId, strokeId: s.id, panel: s.panel, tool: s.tool, grey: s.grey, size: s.size,
-              points: Buffer.from(encodePoints(s.points)), pointCount: s.points.length,
-              minX: b.x, minY: b.y, maxX: b.x + b.w, maxY: b.y + b.h, addedSeq: 1, removedSeq: null, addedBy: 'demo-user-owner',
+              passId,
+              strokeId: s.id,
+              panel: s.panel,
+              tool: s.tool,
+              grey: s.grey,
+              size: s.size,
+              points: Buffer.from(encodePoints(s.points)),
+              pointCount: s.points.length,
+              minX: b.x,
+              minY: b.y,
+              maxX: b.x + b.w,
+              maxY: b.y + b.h,
+              addedSeq: 1,
+              removedSeq: null,
+              addedBy: 'demo-user-owner',
             })
             .execute();
         }
         for (const r of rooms) {
-          await trx.insertInto('rooms').values({ passId, roomId: r.id, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: 1, removedSeq: null }).execute();
+          await trx
+            .insertInto('rooms')
+            .values({ passId, roomId: r.id, panel: r.panel, shape: r.shape, x: r.x, y: r.y, w: r.w, h: r.h, addedSeq: 1, removedSeq: null })
+            .execute();
         }
         await trx
           .insertInto('revisions')
@@ -219,7 +370,18 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
         if (n === passes && STAMPED.includes(g.status)) {
           await trx
             .insertInto('stamps')
-            .values({ id: `${passId}-stamp`, passId, gagId: g.id, decision: 'ready', note: 'Reads without a word.', passSeq: 1, userId: 'demo-user-editor', createdAt: changed, clearedAt: null, clearedSeq: null })
+            .values({
+              id: `${passId}-stamp`,
+              passId,
+              gagId: g.id,
+              decision: 'ready',
+              note: 'Reads without a word.',
+              passSeq: 1,
+              userId: 'demo-user-editor',
+              createdAt: changed,
+              clearedAt: null,
+              clearedSeq: null,
+            })
             .onConflict((oc) => oc.doNothing())
             .execute();
         }
@@ -228,9 +390,14 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
     await trx
       .insertInto('volumes')
       .values({
-        id: DEMO_VOLUME_ID, seriesId: DEMO_SERIES_ID, title: 'Low Tide', deadline: '2027-03-13', hoursPerWeek: 6,
+        id: DEMO_VOLUME_ID,
+        seriesId: DEMO_SERIES_ID,
+        title: 'Low Tide',
+        deadline: '2027-03-13',
+        hoursPerWeek: 6,
         spec: JSON.stringify({ ...DEFAULT_VOLUME_SPEC, trimW: 150, trimH: 150, bleed: 3, binding: 'saddle' }),
-        hoursPerPage: JSON.stringify(DEFAULT_HOURS), createdAt: at(0),
+        hoursPerPage: JSON.stringify(DEFAULT_HOURS),
+        createdAt: at(0),
       })
       .onConflict((oc) => oc.doNothing())
       .execute();
@@ -250,10 +417,21 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
       await trx
         .insertInto('comments')
         .values({
-          id: c.id, gagId: c.gagId, parentId: c.parent ?? null, target,
-          passId: parent ? `${parent.gagId}-pass-${parent.pass}` : passId, panel: parent?.panel ?? c.panel ?? null, beat: c.beat ?? null, x: null, y: null,
-          body: c.body, authorId: c.by, createdAt: at(24 * 20 + DEMO_COMMENTS.indexOf(c)), editedAt: null,
-          resolvedAt: c.resolved ? at(24 * 21) : null, resolvedBy: c.resolved ? 'demo-user-owner' : null,
+          id: c.id,
+          gagId: c.gagId,
+          parentId: c.parent ?? null,
+          target,
+          passId: parent ? `${parent.gagId}-pass-${parent.pass}` : passId,
+          panel: parent?.panel ?? c.panel ?? null,
+          beat: c.beat ?? null,
+          x: null,
+          y: null,
+          body: c.body,
+          authorId: c.by,
+          createdAt: at(24 * 20 + DEMO_COMMENTS.indexOf(c)),
+          editedAt: null,
+          resolvedAt: c.resolved ? at(24 * 21) : null,
+          resolvedBy: c.resolved ? 'demo-user-owner' : null,
         })
         .onConflict((oc) => oc.doNothing())
         .execute();
@@ -262,6 +440,9 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
 }
 
 export async function isEmpty(db: Kysely<Database>): Promise<boolean> {
-  const row = await db.selectFrom('users').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
+  const row = await db
+    .selectFrom('users')
+    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .executeTakeFirstOrThrow();
   return Number(row.n) === 0;
 }

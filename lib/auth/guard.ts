@@ -6,9 +6,7 @@ import { getDb } from '@/db/client';
 import { roleInSeries } from '@/db/queries/series';
 import { type Action, type Role, can } from './permissions';
 
-export type SeriesAccess =
-  | { ok: true; role: Role }
-  | { ok: false; status: 404 | 403; message: string };
+export type SeriesAccess = { ok: true; role: Role } | { ok: false; status: 404 | 403; message: string };
 
 export async function authorizeSeries(userId: string, seriesId: string, action: Action): Promise<SeriesAccess> {
   const role = await roleInSeries(await getDb(), userId, seriesId);

@@ -25,10 +25,7 @@ function cookiesFromHeader(header: string | null): Record<string, string> {
   return out;
 }
 
-async function userFromCookies(
-  cookies: CookieSource | Record<string, string>,
-  headers: Headers,
-): Promise<SessionUser | null> {
+async function userFromCookies(cookies: CookieSource | Record<string, string>, headers: Headers): Promise<SessionUser | null> {
   const secret = authSecret();
   if (!secret) return null;
   const token = await getToken({

@@ -4,8 +4,25 @@ import fs from 'node:fs';
 import path from 'node:path';
 import fontkit from '@pdf-lib/fontkit';
 import {
-  PDFDocument, type PDFFont, type PDFImage, PDFName, degrees, type PDFOperator, type PDFPage, appendQuadraticCurve, clip, closePath, endPath, fill, moveTo,
-  popGraphicsState, pushGraphicsState, rectangle, rgb, setFillingRgbColor, setGraphicsState,
+  PDFDocument,
+  type PDFFont,
+  type PDFImage,
+  PDFName,
+  degrees,
+  type PDFOperator,
+  type PDFPage,
+  appendQuadraticCurve,
+  clip,
+  closePath,
+  endPath,
+  fill,
+  moveTo,
+  popGraphicsState,
+  pushGraphicsState,
+  rectangle,
+  rgb,
+  setFillingRgbColor,
+  setGraphicsState,
 } from 'pdf-lib';
 import { type PageSpec, type Rect, bleedBox, mmToPt, panelRects, safeBox } from '@/lib/print/geometry';
 import { pdfBoxes } from '@/lib/print/book';
@@ -75,7 +92,14 @@ function drawStrokes(page: PDFPage, spec: PageSpec, strokes: Stroke[], rooms: Ro
     for (const s of scans.filter((x) => x.lightbox.panel === i)) drawLightbox(page, at, r, s.lightbox, s.image);
     for (const room of rooms.filter((x) => x.panel === i)) {
       const common = { color: rgb(0.86, 0.91, 0.94), opacity: 0.6, borderColor: rgb(0.11, 0.31, 0.43), borderWidth: 0.4, borderDashArray: [2, 1.5] };
-      if (room.shape === 'ellipse') page.drawEllipse({ x: at.x(room.x + room.w / 2), y: at.y(room.y + room.h / 2), xScale: mmToPt(room.w / 2), yScale: mmToPt(room.h / 2), ...common });
+      if (room.shape === 'ellipse')
+        page.drawEllipse({
+          x: at.x(room.x + room.w / 2),
+          y: at.y(room.y + room.h / 2),
+          xScale: mmToPt(room.w / 2),
+          yScale: mmToPt(room.h / 2),
+          ...common,
+        });
       else page.drawRectangle({ x: at.x(room.x), y: at.y(room.y + room.h), width: mmToPt(room.w), height: mmToPt(room.h), ...common });
     }
     // Each outline is written as PDF path operators (the same curve as the canvas and the SVG).
@@ -97,7 +121,14 @@ function drawStrokes(page: PDFPage, spec: PageSpec, strokes: Stroke[], rooms: Ro
       page.pushOperators(...ops);
     }
     page.pushOperators(popGraphicsState());
-    page.drawRectangle({ x: at.x(r.x), y: at.y(r.y + r.h), width: mmToPt(r.w), height: mmToPt(r.h), borderColor: rgb(0.55, 0.54, 0.51), borderWidth: 0.5 });
+    page.drawRectangle({
+      x: at.x(r.x),
+      y: at.y(r.y + r.h),
+      width: mmToPt(r.w),
+      height: mmToPt(r.h),
+      borderColor: rgb(0.55, 0.54, 0.51),
+      borderWidth: 0.5,
+    });
   });
 }
 
@@ -152,12 +183,17 @@ export async function reviewPdf(
         if (image) scans.push({ lightbox: l, image });
       }
       drawStrokes(page, spec, p.strokes ?? [], p.rooms ?? [], scans);
-    }
-    else centred(page, font, p.label, 14, w / 2, h / 2, rgb(0.47, 0.46, 0.49));
+    } else centred(page, font, p.label, 14, w / 2, h / 2, rgb(0.47, 0.46, 0.49));
     const safe = safeBox(spec);
     centred(page, font, String(p.number), 7, w / 2, boxes.trim[1] + mmToPt(safe.y) / 2 - 2.5);
     // In the bleed, outside the trim: the page's name and the printer note (cut off when trimmed).
-    page.drawText(`${p.number} · ${p.kind === 'gag' ? p.label : p.label} · ${PRINTER_NOTE}`, { x: 2, y: 2, size: 4, font, color: rgb(0.5, 0.5, 0.5) });
+    page.drawText(`${p.number} · ${p.kind === 'gag' ? p.label : p.label} · ${PRINTER_NOTE}`, {
+      x: 2,
+      y: 2,
+      size: 4,
+      font,
+      color: rgb(0.5, 0.5, 0.5),
+    });
     opts.onPage?.(p.number);
   }
   return doc.save();
@@ -175,7 +211,13 @@ export function templateFits(spec: PageSpec, scale: number, paper: Paper): boole
 }
 
 /** Drawing templates: blank pages with bleed, trim, safe and panel guides at a scale, crop marks and a 10 mm bar. */
-export async function templatesPdf(spec: PageSpec, title: string, gags: { title: string; notes: string[] }[], scale: number, paper: Paper): Promise<Uint8Array> {
+export async function templatesPdf(
+  spec: PageSpec,
+  title: string,
+  gags: { title: string; notes: string[] }[],
+  scale: number,
+  paper: Paper,
+): Promise<Uint8Array> {
   const { doc, font } = await newDoc(`${title} — drawing templates ${Math.round(scale * 100)}% on ${paper}`);
   const pw = mmToPt(PAPERS[paper].w);
   const ph = mmToPt(PAPERS[paper].h);
@@ -189,10 +231,26 @@ export async function templatesPdf(spec: PageSpec, title: string, gags: { title:
   for (const g of gags.length ? gags : [{ title: '', notes: [] }]) {
     const page = doc.addPage([pw, ph]);
     const thin = { borderWidth: 0.35 };
-    page.drawRectangle({ x: X(-spec.bleed), y: Y(spec.trimH + spec.bleed), width: S(fullW), height: S(fullH), borderColor: rgb(0.72, 0.2, 0.12), borderDashArray: [3, 2], ...thin });
+    page.drawRectangle({
+      x: X(-spec.bleed),
+      y: Y(spec.trimH + spec.bleed),
+      width: S(fullW),
+      height: S(fullH),
+      borderColor: rgb(0.72, 0.2, 0.12),
+      borderDashArray: [3, 2],
+      ...thin,
+    });
     page.drawRectangle({ x: X(0), y: Y(spec.trimH), width: S(spec.trimW), height: S(spec.trimH), borderColor: rgb(0.16, 0.16, 0.18), ...thin });
     const safe = safeBox(spec);
-    page.drawRectangle({ x: X(safe.x), y: Y(safe.y + safe.h), width: S(safe.w), height: S(safe.h), borderColor: rgb(0.11, 0.31, 0.43), borderDashArray: [2, 2], ...thin });
+    page.drawRectangle({
+      x: X(safe.x),
+      y: Y(safe.y + safe.h),
+      width: S(safe.w),
+      height: S(safe.h),
+      borderColor: rgb(0.11, 0.31, 0.43),
+      borderDashArray: [2, 2],
+      ...thin,
+    });
     panelRects(spec).forEach((r, i) => {
       page.drawRectangle({ x: X(r.x), y: Y(r.y + r.h), width: S(r.w), height: S(r.h), borderColor: rgb(0.55, 0.54, 0.51), borderWidth: 0.6 });
       page.drawText(`${i + 1} ${BEAT_LABELS[BEAT_KINDS[i]!]}`, { x: X(r.x) + 3, y: Y(r.y) - 9, size: 7, font, color: rgb(0.6, 0.6, 0.62) });
@@ -201,7 +259,10 @@ export async function templatesPdf(spec: PageSpec, title: string, gags: { title:
     const gap = S(spec.bleed) + mmToPt(1);
     const len = mmToPt(5);
     for (const [cx, cy, sx, sy] of [
-      [X(0), Y(0), -1, 1], [X(spec.trimW), Y(0), 1, 1], [X(0), Y(spec.trimH), -1, -1], [X(spec.trimW), Y(spec.trimH), 1, -1],
+      [X(0), Y(0), -1, 1],
+      [X(spec.trimW), Y(0), 1, 1],
+      [X(0), Y(spec.trimH), -1, -1],
+      [X(spec.trimW), Y(spec.trimH), 1, -1],
     ] as const) {
       page.drawLine({ start: { x: cx + sx * gap, y: cy }, end: { x: cx + sx * (gap + len), y: cy }, thickness: 0.3 });
       page.drawLine({ start: { x: cx, y: cy + sy * gap }, end: { x: cx, y: cy + sy * (gap + len) }, thickness: 0.3 });

@@ -53,7 +53,10 @@ const csvCell = (v: unknown) => {
 };
 
 export function runningOrderCsv(entries: EntryDto[], note: string): string {
-  const rows = [['page', 'kind', 'title', 'status', 'gag_id'], ...entries.map((e, i) => [i + 1, e.kind, entryLabel(e), e.status ?? '', e.gagId ?? ''])];
+  const rows = [
+    ['page', 'kind', 'title', 'status', 'gag_id'],
+    ...entries.map((e, i) => [i + 1, e.kind, entryLabel(e), e.status ?? '', e.gagId ?? '']),
+  ];
   return `# ${note}\n${rows.map((r) => r.map(csvCell).join(',')).join('\n')}\n`;
 }
 

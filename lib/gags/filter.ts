@@ -5,7 +5,10 @@ import type { GagStatus } from './status';
 export type Searchable = { title: string; premise: string; status: GagStatus };
 
 function fold(s: string): string {
-  return s.normalize('NFD').replace(/\p{Diacritic}/gu, '').toLowerCase();
+  return s
+    .normalize('NFD')
+    .replace(/\p{Diacritic}/gu, '')
+    .toLowerCase();
 }
 
 export function matchesSearch(gag: Searchable, query: string): boolean {

@@ -1,15 +1,7 @@
 // A gag's life: idea → thumbnailing → in review → ready to ink → inked → scanned → placed.
 // Pure rules shared by the API (which enforces them) and the UI (which offers only these).
 
-export const GAG_STATUSES = [
-  'idea',
-  'thumbnailing',
-  'in_review',
-  'ready_to_ink',
-  'inked',
-  'scanned',
-  'placed',
-] as const;
+export const GAG_STATUSES = ['idea', 'thumbnailing', 'in_review', 'ready_to_ink', 'inked', 'scanned', 'placed'] as const;
 export type GagStatus = (typeof GAG_STATUSES)[number];
 
 export const STATUS_LABELS: Record<GagStatus, string> = {

@@ -25,10 +25,14 @@ export async function api<T>(url: string, init?: RequestInit & { json?: unknown 
   const body = (await res.json().catch(() => ({}))) as { error?: string; issues?: unknown };
   if (!res.ok) {
     const fallback =
-      res.status === 401 ? 'Your session ended. Sign in again.' : res.status === 403 ? 'Your role does not allow this.' : `Request failed (${res.status}).`;
+      res.status === 401
+        ? 'Your session ended. Sign in again.'
+        : res.status === 403
+          ? 'Your role does not allow this.'
+          : `Request failed (${res.status}).`;
     throw new ApiError(res.status, body.error ?? fallback, body.issues);
   }
   return body as T;
 }
 
-export const fetcher = <T,>(url: string) => api<T>(url);
+export const fetcher = <T>(url: string) => api<T>(url);

@@ -18,11 +18,7 @@ export function jsonError(status: number, message: string, issues?: unknown): Re
 }
 
 /** Reads and validates a JSON body; malformed or invalid → 422 with the zod issues. */
-export async function parseBody<S extends z.ZodType>(
-  req: Request,
-  schema: S,
-  opts: { maxBytes?: number } = {},
-): Promise<z.infer<S>> {
+export async function parseBody<S extends z.ZodType>(req: Request, schema: S, opts: { maxBytes?: number } = {}): Promise<z.infer<S>> {
   let raw: unknown;
   const text = await req.text();
   if (opts.maxBytes !== undefined && Buffer.byteLength(text) > opts.maxBytes) {

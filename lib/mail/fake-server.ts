@@ -36,12 +36,25 @@ export function startFakeSmtp(port: number, dir = fakeMailDir()): Promise<SMTPSe
 export async function readCaughtMail(dir = fakeMailDir()) {
   const { simpleParser } = await import('mailparser');
   if (!fs.existsSync(/*turbopackIgnore: true*/ dir)) return [];
-  const files = fs.readdirSync(/*turbopackIgnore: true*/ dir).filter((f) => f.endsWith('.eml')).sort().reverse().slice(0, 200);
+  const files = fs
+    .readdirSync(/*turbopackIgnore: true*/ dir)
+    .filter((f) => f.endsWith('.eml'))
+    .sort()
+    .reverse()
+    .slice(0, 200);
   const out = [];
   for (const f of files) {
     const parsed = await simpleParser(fs.readFileSync(/*turbopackIgnore: true*/ path.join(/*turbopackIgnore: true*/ dir, f)));
     const to = Array.isArray(parsed.to) ? parsed.to.map((a) => a.text).join(', ') : (parsed.to?.text ?? '');
-    out.push({ file: f, subject: parsed.subject ?? '', to, from: parsed.from?.text ?? '', date: parsed.date?.toISOString() ?? '', text: parsed.text ?? '', html: typeof parsed.html === 'string' ? parsed.html : '' });
+    out.push({
+      file: f,
+      subject: parsed.subject ?? '',
+      to,
+      from: parsed.from?.text ?? '',
+      date: parsed.date?.toISOString() ?? '',
+      text: parsed.text ?? '',
+      html: typeof parsed.html === 'string' ? parsed.html : '',
+    });
   }
   return out;
 }

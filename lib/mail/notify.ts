@@ -31,7 +31,14 @@ export async function notifyStamp(db: Kysely<Database>, input: { stampId: string
     db,
     s.createdBy,
     'stamp',
-    stampMail({ editor: input.by.name, gagTitle: s.title, passNumber: s.number, decision: s.decision, note: s.note, link: `${appUrl()}/series/${s.seriesId}/gags/${s.gagId}` }),
+    stampMail({
+      editor: input.by.name,
+      gagTitle: s.title,
+      passNumber: s.number,
+      decision: s.decision,
+      note: s.note,
+      link: `${appUrl()}/series/${s.seriesId}/gags/${s.gagId}`,
+    }),
   );
 }
 
@@ -46,7 +53,12 @@ export async function notifyMentions(
       db,
       id,
       'mention',
-      mentionMail({ author: input.author.name, gagTitle: input.gag.title, excerpt: input.body.length > 280 ? `${input.body.slice(0, 277)}…` : input.body, link: `${appUrl()}/series/${input.gag.seriesId}/gags/${input.gag.id}` }),
+      mentionMail({
+        author: input.author.name,
+        gagTitle: input.gag.title,
+        excerpt: input.body.length > 280 ? `${input.body.slice(0, 277)}…` : input.body,
+        link: `${appUrl()}/series/${input.gag.seriesId}/gags/${input.gag.id}`,
+      }),
     );
   }
 }

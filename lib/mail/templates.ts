@@ -27,7 +27,12 @@ export function invitationMail(p: { seriesTitle: string; inviter: string; role: 
   return {
     subject,
     text: `${lines.join('\n\n')}\n\nAccept the invitation: ${p.link}\n`,
-    html: wrap(subject, lines, { href: p.link, label: 'Accept the invitation' }, 'If you did not expect this, ignore it: nothing happens unless the link is used.'),
+    html: wrap(
+      subject,
+      lines,
+      { href: p.link, label: 'Accept the invitation' },
+      'If you did not expect this, ignore it: nothing happens unless the link is used.',
+    ),
   };
 }
 
@@ -41,7 +46,14 @@ export function mentionMail(p: { author: string; gagTitle: string; excerpt: stri
   };
 }
 
-export function stampMail(p: { editor: string; gagTitle: string; passNumber: number; decision: 'ready' | 'again'; note: string; link: string }): Mail {
+export function stampMail(p: {
+  editor: string;
+  gagTitle: string;
+  passNumber: number;
+  decision: 'ready' | 'again';
+  note: string;
+  link: string;
+}): Mail {
   const verdict = p.decision === 'ready' ? 'is ready to ink' : 'needs another pass';
   const subject = `“${p.gagTitle}” ${verdict}`;
   const lines = [`${p.editor} stamped pass ${p.passNumber} of “${p.gagTitle}”: ${verdict}.`, ...(p.note ? [`Note: ${p.note}`] : [])];

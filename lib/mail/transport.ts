@@ -25,7 +25,12 @@ function transport() {
 export const MAIL_FROM = process.env.MAIL_FROM || 'Quadrille <studio@quadrille.test>';
 
 /** Sends one message; a failure is logged and reported, never thrown into the request that caused it. */
-export async function sendMail(db: Kysely<Database>, to: string, kind: string, mail: Mail): Promise<{ ok: boolean; messageId?: string; error?: string }> {
+export async function sendMail(
+  db: Kysely<Database>,
+  to: string,
+  kind: string,
+  mail: Mail,
+): Promise<{ ok: boolean; messageId?: string; error?: string }> {
   const createdAt = new Date().toISOString();
   try {
     const info = await transport().sendMail({ from: MAIL_FROM, to, subject: mail.subject, text: mail.text, html: mail.html });

@@ -20,7 +20,14 @@ export const TRIM_PRESETS = {
 export const BLEED_PRESETS = { mm3: 3, in8: MM_PER_INCH / 8 } as const;
 
 export const DEFAULT_VOLUME_SPEC: VolumeSpec = {
-  trimW: 150, trimH: 150, bleed: 3, safe: 5, gutter: 4, binding: 'saddle', caliperUm: 100, direction: 'ltr',
+  trimW: 150,
+  trimH: 150,
+  bleed: 3,
+  safe: 5,
+  gutter: 4,
+  binding: 'saddle',
+  caliperUm: 100,
+  direction: 'ltr',
 };
 
 export function mmToIn(mm: number): number {

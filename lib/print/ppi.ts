@@ -27,7 +27,21 @@ export type PrintCheck = { ppi: number; level: 'line-art' | 'greyscale' | 'low';
 /** A plain sentence for the editor; rounds before comparing, as the person reads it. */
 export function printCheck(ppi: number): PrintCheck {
   const shown = Math.round(ppi);
-  if (shown >= PPI_LINE_ART) return { ppi: shown, level: 'line-art', message: `${shown} ppi at print size: sharp enough for line art (${PPI_LINE_ART}) and greyscale (${PPI_GREYSCALE}).` };
-  if (shown >= PPI_GREYSCALE) return { ppi: shown, level: 'greyscale', message: `${shown} ppi at print size: enough for greyscale (${PPI_GREYSCALE}), under the ${PPI_LINE_ART} ppi line art needs.` };
-  return { ppi: shown, level: 'low', message: `Only ${shown} ppi at print size: too soft to print. Greyscale needs ${PPI_GREYSCALE} ppi, line art ${PPI_LINE_ART}; use it as a guide to draw over, or rescan.` };
+  if (shown >= PPI_LINE_ART)
+    return {
+      ppi: shown,
+      level: 'line-art',
+      message: `${shown} ppi at print size: sharp enough for line art (${PPI_LINE_ART}) and greyscale (${PPI_GREYSCALE}).`,
+    };
+  if (shown >= PPI_GREYSCALE)
+    return {
+      ppi: shown,
+      level: 'greyscale',
+      message: `${shown} ppi at print size: enough for greyscale (${PPI_GREYSCALE}), under the ${PPI_LINE_ART} ppi line art needs.`,
+    };
+  return {
+    ppi: shown,
+    level: 'low',
+    message: `Only ${shown} ppi at print size: too soft to print. Greyscale needs ${PPI_GREYSCALE} ppi, line art ${PPI_LINE_ART}; use it as a guide to draw over, or rescan.`,
+  };
 }

@@ -13,7 +13,11 @@ function portFree(port: number): Promise<void> {
   });
 }
 
-export async function startFakeS3(port: number, dir = path.resolve(/*turbopackIgnore: true*/ process.env.S3_FAKE_DIR || 'data/s3'), bucket = process.env.S3_BUCKET || 'quadrille') {
+export async function startFakeS3(
+  port: number,
+  dir = path.resolve(/*turbopackIgnore: true*/ process.env.S3_FAKE_DIR || 'data/s3'),
+  bucket = process.env.S3_BUCKET || 'quadrille',
+) {
   // s3rver never settles its promise when the port is taken: check first.
   await portFree(port);
   fs.mkdirSync(/*turbopackIgnore: true*/ dir, { recursive: true });

@@ -25,7 +25,12 @@ function s3() {
   if (!client || client.key !== key) {
     client = {
       key,
-      s3: new S3Client({ endpoint: c.endpoint, region: c.region, forcePathStyle: true, credentials: { accessKeyId: c.accessKeyId, secretAccessKey: c.secretAccessKey } }),
+      s3: new S3Client({
+        endpoint: c.endpoint,
+        region: c.region,
+        forcePathStyle: true,
+        credentials: { accessKeyId: c.accessKeyId, secretAccessKey: c.secretAccessKey },
+      }),
     };
   }
   return client.s3;

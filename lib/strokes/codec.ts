@@ -20,11 +20,7 @@ const zigzag = (n: number) => (n << 1) ^ (n >> 31);
 const unzigzag = (n: number) => (n >>> 1) ^ -(n & 1);
 
 export function quantise([x, y, p]: Point): [number, number, number] {
-  return [
-    Math.round(x / XY_QUANTUM_MM),
-    Math.round(y / XY_QUANTUM_MM),
-    Math.round(Math.min(1, Math.max(0, p)) * PRESSURE_STEPS),
-  ];
+  return [Math.round(x / XY_QUANTUM_MM), Math.round(y / XY_QUANTUM_MM), Math.round(Math.min(1, Math.max(0, p)) * PRESSURE_STEPS)];
 }
 
 export function encodePoints(points: Point[]): Uint8Array {
@@ -69,11 +65,7 @@ export function decodePoints(bytes: Uint8Array): Point[] {
     x += unzigzag(read());
     y += unzigzag(read());
     p += unzigzag(read());
-    points[k] = [
-      Math.round(x * XY_QUANTUM_MM * 100) / 100,
-      Math.round(y * XY_QUANTUM_MM * 100) / 100,
-      p / PRESSURE_STEPS,
-    ];
+    points[k] = [Math.round(x * XY_QUANTUM_MM * 100) / 100, Math.round(y * XY_QUANTUM_MM * 100) / 100, p / PRESSURE_STEPS];
   }
   return points;
 }

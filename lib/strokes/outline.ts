@@ -49,7 +49,10 @@ export function svgPathFromOutline(poly: Polygon): string {
 }
 
 /** The same closed curve as a canvas Path2D-compatible sequence of calls. */
-export function traceOutline(ctx: { moveTo(x: number, y: number): void; quadraticCurveTo(cx: number, cy: number, x: number, y: number): void; closePath(): void }, poly: Polygon) {
+export function traceOutline(
+  ctx: { moveTo(x: number, y: number): void; quadraticCurveTo(cx: number, cy: number, x: number, y: number): void; closePath(): void },
+  poly: Polygon,
+) {
   const len = poly.length;
   if (len < 4) return;
   let prevMidX = avg(poly[1]![0], poly[2]![0]);

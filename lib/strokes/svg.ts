@@ -37,16 +37,16 @@ export function passToSvg(spec: PageSpec, strokes: Stroke[], rooms: Room[], opts
         room.shape === 'ellipse'
           ? `<ellipse cx="${n(room.x + room.w / 2)}" cy="${n(room.y + room.h / 2)}" rx="${n(room.w / 2)}" ry="${n(room.h / 2)}"`
           : `<rect ${rectAttrs(room)} rx="1"`;
-      parts.push(`${attrs} fill="#dbe8f0" fill-opacity="0.6" stroke="#1d4e6e" stroke-width="0.3" stroke-dasharray="1 0.8" clip-path="url(#${prefix}-c${room.panel})"/>`);
+      parts.push(
+        `${attrs} fill="#dbe8f0" fill-opacity="0.6" stroke="#1d4e6e" stroke-width="0.3" stroke-dasharray="1 0.8" clip-path="url(#${prefix}-c${room.panel})"/>`,
+      );
     }
   }
   for (const s of strokes) {
     const d = svgPathFromOutline(outlineOf(s));
     if (!d) continue;
     const alpha = strokeAlpha(s.tool);
-    parts.push(
-      `<path d="${d}" fill="${greyToCss(s.grey)}"${alpha < 1 ? ` fill-opacity="${alpha}"` : ''} clip-path="url(#${prefix}-c${s.panel})"/>`,
-    );
+    parts.push(`<path d="${d}" fill="${greyToCss(s.grey)}"${alpha < 1 ? ` fill-opacity="${alpha}"` : ''} clip-path="url(#${prefix}-c${s.panel})"/>`);
   }
   if (opts.guides) {
     const safe = safeBox(spec);

@@ -43,9 +43,17 @@ export async function prepareUpload(input: Buffer): Promise<Prepared> {
   }
   const base = () => sharp(input, { limitInputPixels: MAX_PIXELS, failOn: 'error' }).rotate(); // EXIF orientation applied; no metadata kept
   try {
-    const original = await base().toFormat(format, format === 'png' ? {} : { quality: 95 }).toBuffer({ resolveWithObject: true });
-    const working = await base().resize({ width: WORKING_MAX_SIDE, height: WORKING_MAX_SIDE, fit: 'inside', withoutEnlargement: true }).toFormat(format, format === 'png' ? {} : { quality: 90 }).toBuffer();
-    const preview = await base().resize({ width: PREVIEW_MAX_SIDE, height: PREVIEW_MAX_SIDE, fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
+    const original = await base()
+      .toFormat(format, format === 'png' ? {} : { quality: 95 })
+      .toBuffer({ resolveWithObject: true });
+    const working = await base()
+      .resize({ width: WORKING_MAX_SIDE, height: WORKING_MAX_SIDE, fit: 'inside', withoutEnlargement: true })
+      .toFormat(format, format === 'png' ? {} : { quality: 90 })
+      .toBuffer();
+    const preview = await base()
+      .resize({ width: PREVIEW_MAX_SIDE, height: PREVIEW_MAX_SIDE, fit: 'inside', withoutEnlargement: true })
+      .webp({ quality: 80 })
+      .toBuffer();
     return {
       sha256: createHash('sha256').update(input).digest('hex'),
       mime,

@@ -2,11 +2,7 @@
 import { z } from 'zod';
 import { BEAT_KINDS, GAG_STATUSES } from '@/lib/gags/status';
 
-export const gagTitle = z
-  .string()
-  .trim()
-  .min(1, 'Give the gag a title.')
-  .max(120, 'Keep the title under 120 characters.');
+export const gagTitle = z.string().trim().min(1, 'Give the gag a title.').max(120, 'Keep the title under 120 characters.');
 
 export const gagPremise = z
   .string()

@@ -4,9 +4,7 @@ import { z } from 'zod';
 import { type PageSpec, bleedBox, panelRects, specProblems } from '@/lib/print/geometry';
 import { MAX_POINTS_PER_STROKE, type Op, ROOM_SHAPES, ROTATIONS, TOOLS } from '@/lib/strokes/types';
 
-export const clientId = z
-  .string()
-  .regex(/^[A-Za-z0-9_-]{1,64}$/, 'Ids are 1–64 characters: letters, digits, "_" or "-".');
+export const clientId = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, 'Ids are 1–64 characters: letters, digits, "_" or "-".');
 
 const panel = z.number().int().min(0, 'Panels are numbered 0 to 3.').max(3, 'Panels are numbered 0 to 3.');
 const mm = z.number({ error: 'Coordinates must be numbers (mm).' });
@@ -43,7 +41,10 @@ export const lightboxSchema = z.object({
   y: mm.min(-2000).max(2000),
   w: z.number().min(1, 'A lightbox is at least 1 mm wide.').max(2000, 'A lightbox is at most 2000 mm wide.'),
   h: z.number().min(1, 'A lightbox is at least 1 mm high.').max(2000, 'A lightbox is at most 2000 mm high.'),
-  rotation: z.union(ROTATIONS.map((r) => z.literal(r)), { error: 'Rotation is 0, 90, 180 or 270 degrees.' }),
+  rotation: z.union(
+    ROTATIONS.map((r) => z.literal(r)),
+    { error: 'Rotation is 0, 90, 180 or 270 degrees.' },
+  ),
   opacity: z.number().min(0.05, 'Opacity runs from 5% to 100%.').max(1, 'Opacity runs from 5% to 100%.'),
   visible: z.boolean(),
 });

@@ -2,7 +2,10 @@ import { z } from 'zod';
 import { STAGES } from '@/lib/planning/plan';
 import { specProblems } from '@/lib/print/geometry';
 
-const date = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Dates are YYYY-MM-DD.').refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), 'Not a real date.');
+const date = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Dates are YYYY-MM-DD.')
+  .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), 'Not a real date.');
 
 export const volumeSpecPatch = z
   .object({
@@ -33,17 +36,18 @@ export const updateVolumeSchema = z
     deadline: date.optional(),
     hoursPerWeek: z.number().min(0.5).max(100).optional(),
     spec: volumeSpecPatch.optional(),
-    hoursPerPage: z.object(Object.fromEntries(STAGES.map((s) => [s, z.number().min(0).max(40)])) as Record<(typeof STAGES)[number], z.ZodNumber>).partial().strict().optional(),
+    hoursPerPage: z
+      .object(Object.fromEntries(STAGES.map((s) => [s, z.number().min(0).max(40)])) as Record<(typeof STAGES)[number], z.ZodNumber>)
+      .partial()
+      .strict()
+      .optional(),
   })
   .strict()
   .refine((v) => Object.values(v).some((x) => x !== undefined), 'Send at least one field.');
 
 export const MATTER_KINDS = ['cover', 'inside-cover', 'title', 'credits', 'blank', 'afterword', 'inside-back', 'back-cover'] as const;
 
-export const addEntrySchema = z.union([
-  z.object({ gagId: z.string().min(1).max(64) }).strict(),
-  z.object({ kind: z.enum(MATTER_KINDS) }).strict(),
-]);
+export const addEntrySchema = z.union([z.object({ gagId: z.string().min(1).max(64) }).strict(), z.object({ kind: z.enum(MATTER_KINDS) }).strict()]);
 
 export const moveEntrySchema = z
   .object({ before: z.string().min(1).max(64).optional(), after: z.string().min(1).max(64).optional() })

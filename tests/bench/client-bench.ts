@@ -52,7 +52,9 @@ function stage(rasters: PanelRasters) {
   document.body.appendChild(el);
   const st = new Konva.Stage({ container: el, width: 1000, height: 800 });
   const layer = new Konva.Layer({ listening: false, scaleX: 5, scaleY: 5, x: 20, y: 20 });
-  panelRects(DEFAULT_PAGE_SPEC).forEach((r, i) => layer.add(new Konva.Image({ image: rasters.canvases[i]!, x: r.x, y: r.y, width: r.w, height: r.h })));
+  panelRects(DEFAULT_PAGE_SPEC).forEach((r, i) =>
+    layer.add(new Konva.Image({ image: rasters.canvases[i]!, x: r.x, y: r.y, width: r.w, height: r.h })),
+  );
   st.add(layer);
   layer.draw();
   return { st, layer };
@@ -67,7 +69,14 @@ function setup(n: number) {
   const doc = docFrom(strokes, []);
   const { st, layer } = stage(rasters);
   const store = new Map<string, string>();
-  const outbox = new Outbox({ getItem: (k) => store.get(k) ?? null, setItem: (k, v) => void store.set(k, v), removeItem: (k) => void store.delete(k) }, 'bench', (() => { let i = 0; return () => `batch${i++}`; })());
+  const outbox = new Outbox(
+    { getItem: (k) => store.get(k) ?? null, setItem: (k, v) => void store.set(k, v), removeItem: (k) => void store.delete(k) },
+    'bench',
+    (() => {
+      let i = 0;
+      return () => `batch${i++}`;
+    })(),
+  );
   return { strokes, rasters, doc, st, layer, outbox };
 }
 

@@ -19,7 +19,16 @@ const BATCHES_PER_WRITER = 40;
 const EVENT_TIMEOUT_MS = 5000;
 
 /** `sharedSeqs`: batches answered with a seq another batch also got (the per-pass queue did not hold). */
-export type Integrity = { expected: number; strokes: number; lost: number; duplicated: number; seq: number; sharedSeqs: number; failedPosts: number; ok: boolean };
+export type Integrity = {
+  expected: number;
+  strokes: number;
+  lost: number;
+  duplicated: number;
+  seq: number;
+  sharedSeqs: number;
+  failedPosts: number;
+  ok: boolean;
+};
 export type Throughput = { batches: number; ms: number; perSecond: number; integrity: Integrity };
 export type LiveFigures = {
   streamP50: number;
@@ -60,13 +69,17 @@ function api(cookieHeader: string): Api {
     return res.json();
   };
   return {
-    createPass: async (base) => (await must(await fetch(`${base}/api/gags/${GAG}/passes`, { method: 'POST', headers, body: '{}' }), 'create pass')).id,
+    createPass: async (base) =>
+      (await must(await fetch(`${base}/api/gags/${GAG}/passes`, { method: 'POST', headers, body: '{}' }), 'create pass')).id,
     post: async (base, passId, batchId, strokeId, n) => {
       const body = JSON.stringify({ batchId, ops: [{ op: 'add', stroke: strokeFor(strokeId, n) }] });
       return (await must(await fetch(`${base}/api/passes/${passId}/ops`, { method: 'POST', headers, body }), `post ${batchId}`)).seq;
     },
     get: async (base, passId, since) =>
-      must(await fetch(`${base}/api/passes/${passId}${since === undefined ? '' : `?since=${since}`}`, { headers: { cookie: cookieHeader } }), 'get pass'),
+      must(
+        await fetch(`${base}/api/passes/${passId}${since === undefined ? '' : `?since=${since}`}`, { headers: { cookie: cookieHeader } }),
+        'get pass',
+      ),
   };
 }
 
@@ -93,7 +106,10 @@ function openStream(base: string, passId: string, cookieHeader: string) {
   const helloSeq = new Promise<number>((r) => (hello = r));
   let gotHello = false;
   const done = (async () => {
-    const res = await fetch(`${base}/api/passes/${passId}/events`, { headers: { cookie: cookieHeader, accept: 'text/event-stream' }, signal: abort.signal });
+    const res = await fetch(`${base}/api/passes/${passId}/events`, {
+      headers: { cookie: cookieHeader, accept: 'text/event-stream' },
+      signal: abort.signal,
+    });
     if (!res.ok || !res.body) throw new Error(`stream: HTTP ${res.status}`);
     const reader = res.body.getReader();
     const dec = new TextDecoder();
@@ -238,7 +254,8 @@ async function throughput(targets: string[], c: Api, tag: string): Promise<Throu
   const passId = await c.createPass(targets[0]!);
   // Warm each instance's ops route on a pass of its own, so the timed pass holds only timed batches.
   const scratch = await c.createPass(targets[0]!);
-  for (const base of new Set(targets)) for (let i = 0; i < 3; i++) await c.post(base, scratch, `warm-${tag}-${base.slice(-5)}-${i}`, `warm-${base.slice(-5)}-${i}`, i);
+  for (const base of new Set(targets))
+    for (let i = 0; i < 3; i++) await c.post(base, scratch, `warm-${tag}-${base.slice(-5)}-${i}`, `warm-${base.slice(-5)}-${i}`, i);
 
   const seqs: number[] = [];
   let failedPosts = 0;

@@ -34,7 +34,9 @@ async function clientFigures(): Promise<Record<string, number>> {
     const page = await browser.context.newPage();
     await page.setContent('<!doctype html><html><body></body></html>');
     await page.addScriptTag({ content: bundle.outputFiles[0]!.text });
-    return await page.evaluate(() => (window as unknown as { quadrilleBench: { runClientBench: () => Record<string, number> } }).quadrilleBench.runClientBench());
+    return await page.evaluate(() =>
+      (window as unknown as { quadrilleBench: { runClientBench: () => Record<string, number> } }).quadrilleBench.runClientBench(),
+    );
   } finally {
     await browser.close();
   }
@@ -48,18 +50,33 @@ async function serverFigures() {
   await db.insertInto('users').values({ id: 'u', email: 'bench@quadrille.test', name: 'Bench', passwordHash: 'x', createdAt: now }).execute();
   await db.insertInto('series').values({ id: 's', title: 'Bench', createdAt: now }).execute();
   for (const g of ['g0', 'g1']) {
-    await db.insertInto('gags').values({ id: g, seriesId: 's', title: g, premise: '', status: 'idea', position: 1, createdAt: now, updatedAt: now }).execute();
+    await db
+      .insertInto('gags')
+      .values({ id: g, seriesId: 's', title: g, premise: '', status: 'idea', position: 1, createdAt: now, updatedAt: now })
+      .execute();
   }
   const empty = await createPass(db, { gagId: 'g0', userId: 'u' });
   const big = await createPass(db, { gagId: 'g1', userId: 'u' });
   const strokes = benchStrokes(5000);
   for (let i = 0; i < strokes.length; i += 500) {
-    await applyBatch(db, { passId: big.id, batchId: `fill${i}`, ops: strokes.slice(i, i + 500).map((stroke) => ({ op: 'add', stroke })), userId: 'u', spec: DEFAULT_PAGE_SPEC });
+    await applyBatch(db, {
+      passId: big.id,
+      batchId: `fill${i}`,
+      ops: strokes.slice(i, i + 500).map((stroke) => ({ op: 'add', stroke })),
+      userId: 'u',
+      spec: DEFAULT_PAGE_SPEC,
+    });
   }
   const extra = benchStrokes(200, 42);
   const one = async (passId: string, i: number) => {
     const t = performance.now();
-    await applyBatch(db, { passId, batchId: `one-${passId}-${i}`, ops: [{ op: 'add', stroke: { ...extra[i]!, id: `x-${passId}-${i}` } }], userId: 'u', spec: DEFAULT_PAGE_SPEC });
+    await applyBatch(db, {
+      passId,
+      batchId: `one-${passId}-${i}`,
+      ops: [{ op: 'add', stroke: { ...extra[i]!, id: `x-${passId}-${i}` } }],
+      userId: 'u',
+      spec: DEFAULT_PAGE_SPEC,
+    });
     return performance.now() - t;
   };
   const e: number[] = [];
@@ -72,11 +89,17 @@ async function serverFigures() {
   const vol = await createVolume(db, { seriesId: 's', title: 'Bench volume', deadline: '2027-03-13' });
   for (let i = 0; i < 500; i++) {
     const gid = `vg${i}`;
-    await db.insertInto('gags').values({ id: gid, seriesId: 's', title: gid, premise: '', status: 'idea', position: i + 2, createdAt: now, updatedAt: now }).execute();
+    await db
+      .insertInto('gags')
+      .values({ id: gid, seriesId: 's', title: gid, premise: '', status: 'idea', position: i + 2, createdAt: now, updatedAt: now })
+      .execute();
     await addEntry(db, vol.id, 's', { gagId: gid });
   }
   const entries = await listEntries(db, vol.id);
-  const snap = async () => new Map((await db.selectFrom('volumeEntries').select(['id', 'position']).where('volumeId', '=', vol.id).execute()).map((r) => [r.id, r.position]));
+  const snap = async () =>
+    new Map(
+      (await db.selectFrom('volumeEntries').select(['id', 'position']).where('volumeId', '=', vol.id).execute()).map((r) => [r.id, r.position]),
+    );
   const before = await snap();
   await moveEntry(db, vol.id, entries[400]!.id, { after: entries[3]!.id });
   await moveEntry(db, vol.id, entries[10]!.id, { before: entries[499]!.id });
@@ -85,7 +108,8 @@ async function serverFigures() {
 
   // Review PDFs of 12 and 120 gag pages (40 strokes each): linear?
   const pageStrokes = benchStrokes(40, 3);
-  const pages = (n: number) => Array.from({ length: n }, (_, i) => ({ number: i + 1, kind: 'gag', label: `Gag ${i + 1}`, strokes: pageStrokes, rooms: [] }));
+  const pages = (n: number) =>
+    Array.from({ length: n }, (_, i) => ({ number: i + 1, kind: 'gag', label: `Gag ${i + 1}`, strokes: pageStrokes, rooms: [] }));
   const pdfMs = async (n: number) => {
     const t = performance.now();
     await reviewPdf(DEFAULT_VOLUME_SPEC, 'Bench', pages(n));
@@ -102,17 +126,38 @@ async function serverFigures() {
   const blob = await storedPointBytes(db, big.id);
   // The same points as plain JSON, already rounded to what is stored (0.01 mm, pressure to 3 places).
   const asJson = (ss: typeof extra) =>
-    Buffer.byteLength(JSON.stringify(ss.map((st) => st.points.map(([x, y, p]) => [Math.round(x * 100) / 100, Math.round(y * 100) / 100, Math.round(p * 1000) / 1000]))));
+    Buffer.byteLength(
+      JSON.stringify(
+        ss.map((st) => st.points.map(([x, y, p]) => [Math.round(x * 100) / 100, Math.round(y * 100) / 100, Math.round(p * 1000) / 1000])),
+      ),
+    );
   const jsonBytes = asJson(benchStrokes(5000)) + asJson(extra.slice(0, 100));
   await closeDb();
   fs.rmSync(dir, { recursive: true, force: true });
-  return { serverEmptyMs: median(e), serverBigMs: median(b), blobBytes: blob, jsonBytes, rowsPerMove, pdf12Ms: median(pdf12), pdf120Ms: median(pdf120) };
+  return {
+    serverEmptyMs: median(e),
+    serverBigMs: median(b),
+    blobBytes: blob,
+    jsonBytes,
+    rowsPerMove,
+    pdf12Ms: median(pdf12),
+    pdf120Ms: median(pdf120),
+  };
 }
 
 // `atLeast` turns the goal into a lower bound; `sound: false` fails the row whatever the figure (e.g. data was lost).
-function row(goal: string, ratio: number, limit: number, detail: string, limitText = String(limit), check: { atLeast?: boolean; sound?: boolean } = {}) {
+function row(
+  goal: string,
+  ratio: number,
+  limit: number,
+  detail: string,
+  limitText = String(limit),
+  check: { atLeast?: boolean; sound?: boolean } = {},
+) {
   const ok = (check.atLeast ? ratio >= limit : ratio <= limit) && check.sound !== false;
-  console.log(`${ok ? 'ok  ' : 'FAIL'}  ${goal.padEnd(58)} ${ratio.toFixed(2).padStart(6)}  (goal ${check.atLeast ? '≥' : '≤'} ${limitText})  ${detail}`);
+  console.log(
+    `${ok ? 'ok  ' : 'FAIL'}  ${goal.padEnd(58)} ${ratio.toFixed(2).padStart(6)}  (goal ${check.atLeast ? '≥' : '≤'} ${limitText})  ${detail}`,
+  );
   return ok;
 }
 
@@ -129,14 +174,30 @@ async function main() {
       ? '0 lost, 0 duplicated'
       : `${t.integrity.lost} lost, ${t.integrity.duplicated} duplicated, ${t.integrity.strokes}/${t.integrity.expected} strokes, seq ${t.integrity.seq} (${t.integrity.sharedSeqs} batches on a shared seq), ${t.integrity.failedPosts} failed POSTs`;
   const results = [
-    row('Full re-raster, panel bitmaps ÷ plain Canvas 2D', c.fullRasterOursMs! / c.fullRasterPlainMs!, 1.2, `${ms(c.fullRasterOursMs!)} vs ${ms(c.fullRasterPlainMs!)}`),
-    row('New stroke shown and queued, 5,000 ÷ 0 strokes (client)', c.commitBigMs! / c.commitEmptyMs!, 1.5, `${ms(c.commitBigMs!)} vs ${ms(c.commitEmptyMs!)}`),
+    row(
+      'Full re-raster, panel bitmaps ÷ plain Canvas 2D',
+      c.fullRasterOursMs! / c.fullRasterPlainMs!,
+      1.2,
+      `${ms(c.fullRasterOursMs!)} vs ${ms(c.fullRasterPlainMs!)}`,
+    ),
+    row(
+      'New stroke shown and queued, 5,000 ÷ 0 strokes (client)',
+      c.commitBigMs! / c.commitEmptyMs!,
+      1.5,
+      `${ms(c.commitBigMs!)} vs ${ms(c.commitEmptyMs!)}`,
+    ),
     row('New stroke stored, 5,000 ÷ 0 strokes (server)', s.serverBigMs / s.serverEmptyMs, 1.5, `${ms(s.serverBigMs)} vs ${ms(s.serverEmptyMs)}`),
     row('Pan/zoom frame, 5,000 ÷ 0 strokes', c.panBigMs! / c.panEmptyMs!, 1.5, `${ms(c.panBigMs!)} vs ${ms(c.panEmptyMs!)}`),
     row('Panels re-rastered to erase one stroke (of 4)', c.erasePanels!, 1, `${c.eraseHits} stroke(s) hit, ${ms(c.eraseMs!)}`),
     row('Rows rewritten per move in a 500-gag running order', s.rowsPerMove, 2, 'fractional order keys'),
     row('Review PDF, 120 pages ÷ 12 pages (linear is 10)', s.pdf120Ms / s.pdf12Ms, 10, `${ms(s.pdf120Ms)} vs ${ms(s.pdf12Ms)}`),
-    row('Stored point bytes ÷ plain JSON', s.blobBytes / s.jsonBytes, 1 / 3, `${s.blobBytes.toLocaleString('en')} B vs ${s.jsonBytes.toLocaleString('en')} B`, '1/3'),
+    row(
+      'Stored point bytes ÷ plain JSON',
+      s.blobBytes / s.jsonBytes,
+      1 / 3,
+      `${s.blobBytes.toLocaleString('en')} B vs ${s.jsonBytes.toLocaleString('en')} B`,
+      '1/3',
+    ),
     row(
       'Stroke seen on the other instance (SSE), p95 in ms',
       l.streamP95,

@@ -48,4 +48,3 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
   await page.waitForURL(`${baseUrl}/series`);
   await page.getByRole('heading', { name: 'My series' }).waitFor();
 }
-

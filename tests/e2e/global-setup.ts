@@ -42,29 +42,25 @@ export default async function setup(project: TestProject) {
   const s3Port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   let output = '';
-  const server = spawn(
-    process.execPath,
-    [path.join(root, 'node_modules/next/dist/bin/next'), 'start', '-H', '127.0.0.1', '-p', String(port)],
-    {
-      cwd: root,
-      env: {
-        ...env,
-        NODE_ENV: 'production',
-        DATABASE_URL: databaseUrl,
-        NEXTAUTH_URL: baseUrl,
-        NEXTAUTH_SECRET: 'e2e-secret-for-the-test-server-only',
-        // The local SMTP fake starts with the server; /dev/mail shows what it caught.
-        MAIL_FAKE_PORT: String(mailPort),
-        MAIL_FAKE_DIR: path.join(dataDir, 'mail'),
-        QUADRILLE_DEV_PAGES: '1',
-        // The local S3 fake starts with the server too.
-        S3_FAKE_PORT: String(s3Port),
-        S3_FAKE_DIR: path.join(dataDir, 's3'),
-      },
-      detached: true, // its own process group, so teardown stops next-server too
-      stdio: ['ignore', 'pipe', 'pipe'],
+  const server = spawn(process.execPath, [path.join(root, 'node_modules/next/dist/bin/next'), 'start', '-H', '127.0.0.1', '-p', String(port)], {
+    cwd: root,
+    env: {
+      ...env,
+      NODE_ENV: 'production',
+      DATABASE_URL: databaseUrl,
+      NEXTAUTH_URL: baseUrl,
+      NEXTAUTH_SECRET: 'e2e-secret-for-the-test-server-only',
+      // The local SMTP fake starts with the server; /dev/mail shows what it caught.
+      MAIL_FAKE_PORT: String(mailPort),
+      MAIL_FAKE_DIR: path.join(dataDir, 'mail'),
+      QUADRILLE_DEV_PAGES: '1',
+      // The local S3 fake starts with the server too.
+      S3_FAKE_PORT: String(s3Port),
+      S3_FAKE_DIR: path.join(dataDir, 's3'),
     },
-  );
+    detached: true, // its own process group, so teardown stops next-server too
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
   server.stdout?.on('data', (d) => (output += d));
   server.stderr?.on('data', (d) => (output += d));
   await waitForHealth(baseUrl, server, () => output);

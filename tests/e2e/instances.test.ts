@@ -25,7 +25,10 @@ let passId = '';
 
 const strokeCount = async (p: Page) => Number(await p.getByTestId('sketch-canvas').getAttribute('data-stroke-count'));
 const serverStrokeIds = (p: Page) =>
-  p.evaluate(async (id) => ((await (await fetch(`/api/passes/${id}`, { cache: 'no-store' })).json()).strokes as { id: string }[]).map((s) => s.id), passId);
+  p.evaluate(
+    async (id) => ((await (await fetch(`/api/passes/${id}`, { cache: 'no-store' })).json()).strokes as { id: string }[]).map((s) => s.id),
+    passId,
+  );
 
 async function drawStroke(p: Page, fx: number, fy: number) {
   const box = (await p.getByTestId('sketch-canvas').boundingBox())!;
@@ -50,7 +53,9 @@ beforeAll(async () => {
   pageB = await browserB.context.newPage();
   await signIn(pageA, lb.url, 'cocreator@quadrille.test');
   await signIn(pageB, b!.url, 'owner@quadrille.test');
-  const made = await pageA.evaluate(async () => (await fetch('/api/gags/demo-gag-12/passes', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' })).json());
+  const made = await pageA.evaluate(async () =>
+    (await fetch('/api/gags/demo-gag-12/passes', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' })).json(),
+  );
   passNumber = made.number;
   passId = made.id;
 }, 240_000);
@@ -126,7 +131,10 @@ describe('two instances on one PostgreSQL', () => {
     await drawStroke(pageA, 0.35, 0.3);
     expect(await strokeCount(pageA)).toBe(5);
     await pageA.locator('[data-sync-state="saved"]').waitFor({ timeout: 30_000 });
-    const onB = await pageB.evaluate(async (id) => ((await (await fetch(`/api/passes/${id}`, { cache: 'no-store' })).json()).strokes as unknown[]).length, passId);
+    const onB = await pageB.evaluate(
+      async (id) => ((await (await fetch(`/api/passes/${id}`, { cache: 'no-store' })).json()).strokes as unknown[]).length,
+      passId,
+    );
     expect(onB).toBe(5);
     expect(new Set(await serverStrokeIds(pageA)).size).toBe(5);
     await expect.poll(() => strokeCount(pageB), { timeout: 10_000 }).toBe(5);

@@ -12,7 +12,10 @@ const page = usePage();
 const GAG = `${baseUrl}/series/demo-kettle-crab/gags/demo-gag-11`;
 let passId = '';
 
-type ServerPass = { strokes: { id: string; panel: number }[]; lightboxes: { panel: number | null; x: number; y: number; w: number; opacity: number; visible: boolean; rotation: number; uploadId: string }[] };
+type ServerPass = {
+  strokes: { id: string; panel: number }[];
+  lightboxes: { panel: number | null; x: number; y: number; w: number; opacity: number; visible: boolean; rotation: number; uploadId: string }[];
+};
 const serverPass = (p: Page): Promise<ServerPass> => p.evaluate(async (id) => (await fetch(`/api/passes/${id}`)).json(), passId);
 const canvasAttr = async (p: Page, name: string) => Number(await p.getByTestId('sketch-canvas').getAttribute(name));
 
@@ -33,7 +36,11 @@ describe('lightbox', () => {
     });
 
     // A photographed page of thumbnails: noisy, so it weighs a few MB like a real one.
-    const scan = await sharp({ create: { width: 1771, height: 1771, channels: 3, background: '#ffffff', noise: { type: 'gaussian', mean: 170, sigma: 40 } } }).jpeg({ quality: 92 }).toBuffer();
+    const scan = await sharp({
+      create: { width: 1771, height: 1771, channels: 3, background: '#ffffff', noise: { type: 'gaussian', mean: 170, sigma: 40 } },
+    })
+      .jpeg({ quality: 92 })
+      .toBuffer();
     expect(scan.byteLength).toBeGreaterThan(1_000_000);
     // A slow upload link, so the bar is seen moving (Chromium's own network throttling).
     const cdp = await page.context().newCDPSession(page.mainFrame()); // the real frame: `page` is the fixture's stand-in

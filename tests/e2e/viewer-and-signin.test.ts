@@ -82,7 +82,10 @@ describe('sign-in', () => {
 
   it('refuses with 429 after 10 failed sign-ins for one address in 15 minutes', async () => {
     const csrfRes = await fetch(`${baseUrl}/api/auth/csrf`);
-    const cookie = csrfRes.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+    const cookie = csrfRes.headers
+      .getSetCookie()
+      .map((c) => c.split(';')[0])
+      .join('; ');
     const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
     const attempt = (password: string) =>
       fetch(`${baseUrl}/api/auth/callback/credentials`, {

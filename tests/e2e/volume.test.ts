@@ -21,7 +21,17 @@ describe('volume "Low Tide"', () => {
   it('shows the running order and the flatplan warning about blank pages', async () => {
     await page.goto(VOLUME);
     await page.getByRole('heading', { name: 'Low Tide' }).waitFor();
-    expect(await names(page)).toEqual(['Cover', 'Title page', 'Low Tide Lunch', 'Spout Periscope', 'Lid Umbrella', 'Whistle Alarm', 'Moving Day', 'Finders Keepers', 'Afterword']);
+    expect(await names(page)).toEqual([
+      'Cover',
+      'Title page',
+      'Low Tide Lunch',
+      'Spout Periscope',
+      'Lid Umbrella',
+      'Whistle Alarm',
+      'Moving Day',
+      'Finders Keepers',
+      'Afterword',
+    ]);
     const warning = page.getByTestId('flatplan-warnings');
     await warning.getByText(/9 pages cannot be saddle stitched/).waitFor();
     expect(await warning.textContent()).toMatch(/add 3 blank pages, best after page 8/);
@@ -37,7 +47,17 @@ describe('volume "Low Tide"', () => {
     await page.mouse.down();
     for (let i = 1; i <= 12; i++) await page.mouse.move(a.x + a.width / 2, a.y + ((b.y + b.height / 2 + 4 - a.y) * i) / 12);
     await page.mouse.up();
-    const want = ['Cover', 'Title page', 'Spout Periscope', 'Lid Umbrella', 'Low Tide Lunch', 'Whistle Alarm', 'Moving Day', 'Finders Keepers', 'Afterword'];
+    const want = [
+      'Cover',
+      'Title page',
+      'Spout Periscope',
+      'Lid Umbrella',
+      'Low Tide Lunch',
+      'Whistle Alarm',
+      'Moving Day',
+      'Finders Keepers',
+      'Afterword',
+    ];
     await expect.poll(() => names(page)).toEqual(want);
     await page.waitForTimeout(500);
     await page.reload();
@@ -52,7 +72,17 @@ describe('volume "Low Tide"', () => {
       await page.keyboard.press(key);
       await page.waitForTimeout(150);
     }
-    const want = ['Cover', 'Title page', 'Spout Periscope', 'Lid Umbrella', 'Low Tide Lunch', 'Whistle Alarm', 'Afterword', 'Moving Day', 'Finders Keepers'];
+    const want = [
+      'Cover',
+      'Title page',
+      'Spout Periscope',
+      'Lid Umbrella',
+      'Low Tide Lunch',
+      'Whistle Alarm',
+      'Afterword',
+      'Moving Day',
+      'Finders Keepers',
+    ];
     await expect.poll(() => names(page)).toEqual(want);
     await page.waitForTimeout(500);
     await page.reload();

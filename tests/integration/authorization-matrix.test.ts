@@ -77,7 +77,9 @@ let shade = 0;
 /** A distinct small PNG each time (a new colour), as a multipart form. */
 async function imageForm(): Promise<FormData> {
   shade += 1;
-  const bytes = await sharp({ create: { width: 8, height: 8, channels: 3, background: { r: shade % 256, g: 100, b: Math.floor(shade / 256) } } }).png().toBuffer();
+  const bytes = await sharp({ create: { width: 8, height: 8, channels: 3, background: { r: shade % 256, g: 100, b: Math.floor(shade / 256) } } })
+    .png()
+    .toBuffer();
   const form = new FormData();
   form.append('file', new File([new Uint8Array(bytes)], 'scan.png', { type: 'image/png' }));
   return form;
@@ -106,7 +108,17 @@ async function newGag(): Promise<string> {
 /** A pass with one stroke and two revisions (created, then a pause), for pass routes. */
 async function newPass(): Promise<{ passId: string; revisionId: string }> {
   const { id } = await createPass(db, { gagId: await newGag(), userId: 'demo-user-owner' });
-  const stroke = { id: 'm1', panel: 0, tool: 'pen' as const, grey: 100, size: 1, points: [[10, 10, 0.5], [12, 12, 0.5]] as [number, number, number][] };
+  const stroke = {
+    id: 'm1',
+    panel: 0,
+    tool: 'pen' as const,
+    grey: 100,
+    size: 1,
+    points: [
+      [10, 10, 0.5],
+      [12, 12, 0.5],
+    ] as [number, number, number][],
+  };
   await applyBatch(db, { passId: id, batchId: 'seed', ops: [{ op: 'add', stroke }], userId: 'demo-user-owner', spec: DEFAULT_PAGE_SPEC });
   const rev = await db.selectFrom('revisions').select('id').where('passId', '=', id).where('seq', '=', 0).executeTakeFirstOrThrow();
   return { passId: id, revisionId: rev.id };
@@ -115,7 +127,10 @@ async function newPass(): Promise<{ passId: string; revisionId: string }> {
 /** A plain member of Kettle Crab to change or remove. */
 async function newMember(): Promise<string> {
   const id = randomUUID();
-  await db.insertInto('users').values({ id, email: `${id}@pier.test`, name: 'Temp', passwordHash: 'x', createdAt: new Date().toISOString() }).execute();
+  await db
+    .insertInto('users')
+    .values({ id, email: `${id}@pier.test`, name: 'Temp', passwordHash: 'x', createdAt: new Date().toISOString() })
+    .execute();
   await db.insertInto('memberships').values({ seriesId: DEMO_SERIES_ID, userId: id, role: 'viewer', createdAt: new Date().toISOString() }).execute();
   return id;
 }
@@ -146,84 +161,119 @@ type RouteCase = {
 
 //                    anonymous viewer editor cocreator owner outsider
 const row = (a: number, v: number, e: number, c: number, o: number, x: number): Record<Persona, number> => ({
-  anonymous: a, viewer: v, editor: e, cocreator: c, owner: o, outsider: x,
+  anonymous: a,
+  viewer: v,
+  editor: e,
+  cocreator: c,
+  owner: o,
+  outsider: x,
 });
 
 const ROUTES: RouteCase[] = [
   { route: 'GET /api/health', handler: healthRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(200, 200, 200, 200, 200, 200) },
   {
-    route: 'POST /api/users', handler: usersRoute.POST, method: 'POST',
+    route: 'POST /api/users',
+    handler: usersRoute.POST,
+    method: 'POST',
     prepare: async () => ({ body: { name: 'New Person', email: `${randomUUID()}@pier.test`, password: 'long-enough-pw' } }),
     expected: row(201, 201, 201, 201, 201, 201),
   },
   { route: 'GET /api/series', handler: seriesRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
   {
-    route: 'POST /api/series', handler: seriesRoute.POST, method: 'POST',
+    route: 'POST /api/series',
+    handler: seriesRoute.POST,
+    method: 'POST',
     prepare: async () => ({ body: { title: 'A new series' } }),
     expected: row(401, 201, 201, 201, 201, 201),
   },
   {
-    route: 'GET /api/series/:seriesId/gags', handler: gagsRoute.GET, method: 'GET',
+    route: 'GET /api/series/:seriesId/gags',
+    handler: gagsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'POST /api/series/:seriesId/gags', handler: gagsRoute.POST, method: 'POST',
+    route: 'POST /api/series/:seriesId/gags',
+    handler: gagsRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { title: 'Crab Cakes' } }),
     expected: row(401, 403, 403, 201, 201, 404),
   },
   {
-    route: 'GET /api/gags/:gagId', handler: gagRoute.GET, method: 'GET',
+    route: 'GET /api/gags/:gagId',
+    handler: gagRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { gagId: await newGag() } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'PATCH /api/gags/:gagId', handler: gagRoute.PATCH, method: 'PATCH',
+    route: 'PATCH /api/gags/:gagId',
+    handler: gagRoute.PATCH,
+    method: 'PATCH',
     prepare: async () => ({ params: { gagId: await newGag() }, body: { title: 'Changed', beats: [{ kind: 'turn', note: 'A wave.' }] } }),
     expected: row(401, 403, 403, 200, 200, 404),
   },
   {
-    route: 'DELETE /api/gags/:gagId', handler: gagRoute.DELETE, method: 'DELETE',
+    route: 'DELETE /api/gags/:gagId',
+    handler: gagRoute.DELETE,
+    method: 'DELETE',
     prepare: async () => ({ params: { gagId: await newGag() } }),
     expected: row(401, 403, 403, 403, 204, 404),
   },
   {
-    route: 'GET /api/series/:seriesId/print-spec', handler: specRoute.GET, method: 'GET',
+    route: 'GET /api/series/:seriesId/print-spec',
+    handler: specRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'PUT /api/series/:seriesId/print-spec', handler: specRoute.PUT, method: 'PUT',
+    route: 'PUT /api/series/:seriesId/print-spec',
+    handler: specRoute.PUT,
+    method: 'PUT',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { ...DEFAULT_PAGE_SPEC, gutter: 3 + Math.random() } }),
     expected: row(401, 403, 403, 403, 200, 404),
   },
   {
-    route: 'GET /api/gags/:gagId/passes', handler: passesRoute.GET, method: 'GET',
+    route: 'GET /api/gags/:gagId/passes',
+    handler: passesRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { gagId: await newGag() } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'POST /api/gags/:gagId/passes', handler: passesRoute.POST, method: 'POST',
+    route: 'POST /api/gags/:gagId/passes',
+    handler: passesRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { gagId: await newGag() }, body: {} }),
     expected: row(401, 403, 403, 201, 201, 404),
   },
   {
-    route: 'GET /api/passes/:passId', handler: passRoute.GET, method: 'GET',
+    route: 'GET /api/passes/:passId',
+    handler: passRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { passId: (await newPass()).passId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'POST /api/passes/:passId/stamp', handler: stampRoute.POST, method: 'POST',
+    route: 'POST /api/passes/:passId/stamp',
+    handler: stampRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { passId: (await newPass()).passId }, body: { decision: 'ready', note: 'Reads.' } }),
     expected: row(401, 403, 201, 403, 201, 404),
   },
   {
-    route: 'GET /api/passes/:passId/checklist', handler: checklistRoute.GET, method: 'GET',
+    route: 'GET /api/passes/:passId/checklist',
+    handler: checklistRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { passId: (await newPass()).passId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'PUT /api/passes/:passId/checklist', handler: checklistRoute.PUT, method: 'PUT',
+    route: 'PUT /api/passes/:passId/checklist',
+    handler: checklistRoute.PUT,
+    method: 'PUT',
     prepare: async () => {
       const { passId } = await newPass();
       const [item] = await checklistItems(db, DEMO_SERIES_ID);
@@ -232,33 +282,45 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/passes/:passId/findings', handler: findingsRoute.GET, method: 'GET',
+    route: 'GET /api/passes/:passId/findings',
+    handler: findingsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { passId: (await newPass()).passId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/series/:seriesId/checklist', handler: itemsRoute.GET, method: 'GET',
+    route: 'GET /api/series/:seriesId/checklist',
+    handler: itemsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'PUT /api/series/:seriesId/checklist', handler: itemsRoute.PUT, method: 'PUT',
+    route: 'PUT /api/series/:seriesId/checklist',
+    handler: itemsRoute.PUT,
+    method: 'PUT',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { items: [{ text: `Reads without words ${randomUUID()}` }] } }),
     expected: row(401, 403, 403, 403, 200, 404),
   },
   {
-    route: 'GET /api/gags/:gagId/comments', handler: commentsRoute.GET, method: 'GET',
+    route: 'GET /api/gags/:gagId/comments',
+    handler: commentsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { gagId: await newGag() } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'POST /api/gags/:gagId/comments', handler: commentsRoute.POST, method: 'POST',
+    route: 'POST /api/gags/:gagId/comments',
+    handler: commentsRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { gagId: await newGag() }, body: { body: 'Panel 3 reads late.' } }),
     expected: row(401, 403, 201, 201, 201, 404),
   },
   {
     // Resolving a thread: anyone who may comment (editing the body is the author's alone).
-    route: 'PATCH /api/comments/:commentId', handler: commentRoute.PATCH, method: 'PATCH',
+    route: 'PATCH /api/comments/:commentId',
+    handler: commentRoute.PATCH,
+    method: 'PATCH',
     prepare: async () => {
       const gagId = await newGag();
       const c = await createComment(db, { gagId, seriesId: DEMO_SERIES_ID, authorId: 'demo-user-editor', body: 'Hm.', target: 'gag' });
@@ -267,92 +329,128 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/series/:seriesId/members', handler: membersRoute.GET, method: 'GET',
+    route: 'GET /api/series/:seriesId/members',
+    handler: membersRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'PATCH /api/series/:seriesId/members/:userId', handler: memberRoute.PATCH, method: 'PATCH',
+    route: 'PATCH /api/series/:seriesId/members/:userId',
+    handler: memberRoute.PATCH,
+    method: 'PATCH',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID, userId: await newMember() }, body: { role: 'editor' } }),
     expected: row(401, 403, 403, 403, 200, 404),
   },
   {
-    route: 'DELETE /api/series/:seriesId/members/:userId', handler: memberRoute.DELETE, method: 'DELETE',
+    route: 'DELETE /api/series/:seriesId/members/:userId',
+    handler: memberRoute.DELETE,
+    method: 'DELETE',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID, userId: await newMember() } }),
     expected: row(401, 403, 403, 403, 204, 404),
   },
   {
-    route: 'GET /api/series/:seriesId/invitations', handler: invitationsRoute.GET, method: 'GET',
+    route: 'GET /api/series/:seriesId/invitations',
+    handler: invitationsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 403, 403, 403, 200, 404),
   },
   {
-    route: 'POST /api/series/:seriesId/invitations', handler: invitationsRoute.POST, method: 'POST',
+    route: 'POST /api/series/:seriesId/invitations',
+    handler: invitationsRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { email: `${randomUUID()}@pier.test`, role: 'viewer' } }),
     expected: row(401, 403, 403, 403, 201, 404),
   },
   {
-    route: 'POST /api/invitations/:token/accept', handler: acceptRoute.POST, method: 'POST',
+    route: 'POST /api/invitations/:token/accept',
+    handler: acceptRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { token: await newInvitationToken() } }),
     expected: row(401, 200, 200, 200, 200, 200),
   },
   {
-    route: 'GET /api/gags/:gagId/stamps', handler: stampsRoute.GET, method: 'GET',
+    route: 'GET /api/gags/:gagId/stamps',
+    handler: stampsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { gagId: await newGag() } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/gags/:gagId/presence', handler: presenceRoute.GET, method: 'GET',
+    route: 'GET /api/gags/:gagId/presence',
+    handler: presenceRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { gagId: await newGag() } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'POST /api/gags/:gagId/presence', handler: presenceRoute.POST, method: 'POST',
+    route: 'POST /api/gags/:gagId/presence',
+    handler: presenceRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { gagId: await newGag() }, body: { where: 'pass:1' } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/gags/:gagId/events', handler: gagEventsRoute.GET, method: 'GET',
+    route: 'GET /api/gags/:gagId/events',
+    handler: gagEventsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { gagId: await newGag() } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/passes/:passId/events', handler: passEventsRoute.GET, method: 'GET',
+    route: 'GET /api/passes/:passId/events',
+    handler: passEventsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { passId: (await newPass()).passId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/series/:seriesId/events', handler: seriesEventsRoute.GET, method: 'GET',
+    route: 'GET /api/series/:seriesId/events',
+    handler: seriesEventsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/series/:seriesId/volumes', handler: volumesRoute.GET, method: 'GET',
+    route: 'GET /api/series/:seriesId/volumes',
+    handler: volumesRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'POST /api/series/:seriesId/volumes', handler: volumesRoute.POST, method: 'POST',
+    route: 'POST /api/series/:seriesId/volumes',
+    handler: volumesRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { title: 'Spring Tide', deadline: '2027-06-01' } }),
     expected: row(401, 403, 403, 403, 201, 404),
   },
   {
-    route: 'GET /api/volumes/:volumeId', handler: volumeRoute.GET, method: 'GET',
+    route: 'GET /api/volumes/:volumeId',
+    handler: volumeRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'PATCH /api/volumes/:volumeId', handler: volumeRoute.PATCH, method: 'PATCH',
+    route: 'PATCH /api/volumes/:volumeId',
+    handler: volumeRoute.PATCH,
+    method: 'PATCH',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId }, body: { spec: { binding: 'perfect' } } }),
     expected: row(401, 403, 403, 403, 200, 404),
   },
   {
-    route: 'POST /api/volumes/:volumeId/entries', handler: entriesRoute.POST, method: 'POST',
+    route: 'POST /api/volumes/:volumeId/entries',
+    handler: entriesRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId }, body: { kind: 'blank' } }),
     expected: row(401, 403, 403, 201, 201, 404),
   },
   {
-    route: 'DELETE /api/volumes/:volumeId/entries/:entryId', handler: entryRoute.DELETE, method: 'DELETE',
+    route: 'DELETE /api/volumes/:volumeId/entries/:entryId',
+    handler: entryRoute.DELETE,
+    method: 'DELETE',
     prepare: async () => {
       const v = await newVolume();
       return { params: { volumeId: v.volumeId, entryId: v.entryIds[0]! } };
@@ -360,7 +458,9 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 403, 204, 204, 404),
   },
   {
-    route: 'PUT /api/volumes/:volumeId/entries/:entryId/position', handler: positionRoute.PUT, method: 'PUT',
+    route: 'PUT /api/volumes/:volumeId/entries/:entryId/position',
+    handler: positionRoute.PUT,
+    method: 'PUT',
     prepare: async () => {
       const v = await newVolume();
       return { params: { volumeId: v.volumeId, entryId: v.entryIds[1]! }, body: { before: v.entryIds[0] } };
@@ -368,91 +468,125 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 403, 200, 200, 404),
   },
   {
-    route: 'GET /api/volumes/:volumeId/flatplan', handler: flatplanRoute.GET, method: 'GET',
+    route: 'GET /api/volumes/:volumeId/flatplan',
+    handler: flatplanRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/volumes/:volumeId/plan', handler: planRoute.GET, method: 'GET',
+    route: 'GET /api/volumes/:volumeId/plan',
+    handler: planRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/volumes/:volumeId/export/review.pdf', handler: reviewPdfRoute.GET, method: 'GET',
+    route: 'GET /api/volumes/:volumeId/export/review.pdf',
+    handler: reviewPdfRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/volumes/:volumeId/export/review.pdf?lightbox=1', handler: reviewPdfRoute.GET, method: 'GET',
+    route: 'GET /api/volumes/:volumeId/export/review.pdf?lightbox=1',
+    handler: reviewPdfRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId }, url: '/?lightbox=1' }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/volumes/:volumeId/export/templates.pdf', handler: templatesPdfRoute.GET, method: 'GET',
+    route: 'GET /api/volumes/:volumeId/export/templates.pdf',
+    handler: templatesPdfRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/volumes/:volumeId/export/running-order.csv', handler: csvRoute.GET, method: 'GET',
+    route: 'GET /api/volumes/:volumeId/export/running-order.csv',
+    handler: csvRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/series/:seriesId/uploads', handler: uploadsRoute.GET, method: 'GET',
+    route: 'GET /api/series/:seriesId/uploads',
+    handler: uploadsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'POST /api/series/:seriesId/uploads', handler: uploadsRoute.POST, method: 'POST',
+    route: 'POST /api/series/:seriesId/uploads',
+    handler: uploadsRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, form: await imageForm() }),
     expected: row(401, 403, 403, 201, 201, 404),
   },
   {
-    route: 'GET /api/uploads/:uploadId/:variant', handler: variantRoute.GET, method: 'GET',
+    route: 'GET /api/uploads/:uploadId/:variant',
+    handler: variantRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { uploadId: await newUpload(), variant: 'preview' } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'DELETE /api/uploads/:uploadId', handler: uploadRoute.DELETE, method: 'DELETE',
+    route: 'DELETE /api/uploads/:uploadId',
+    handler: uploadRoute.DELETE,
+    method: 'DELETE',
     prepare: async () => ({ params: { uploadId: await newUpload() } }),
     expected: row(401, 403, 403, 204, 204, 404),
   },
   {
     // Still a pass's lightbox: asks first (409, nothing deleted)…
-    route: 'DELETE /api/uploads/:uploadId (in use)', handler: uploadRoute.DELETE, method: 'DELETE',
+    route: 'DELETE /api/uploads/:uploadId (in use)',
+    handler: uploadRoute.DELETE,
+    method: 'DELETE',
     prepare: async () => ({ params: { uploadId: await usedUpload() } }),
     expected: row(401, 403, 403, 409, 409, 404),
   },
   {
     // …and deletes once confirmed.
-    route: 'DELETE /api/uploads/:uploadId?confirm=1 (in use)', handler: uploadRoute.DELETE, method: 'DELETE',
+    route: 'DELETE /api/uploads/:uploadId?confirm=1 (in use)',
+    handler: uploadRoute.DELETE,
+    method: 'DELETE',
     prepare: async () => ({ params: { uploadId: await usedUpload() }, url: '/?confirm=1' }),
     expected: row(401, 403, 403, 204, 204, 404),
   },
   { route: 'GET /api/me', handler: meRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
   {
-    route: 'PATCH /api/me', handler: meRoute.PATCH, method: 'PATCH',
+    route: 'PATCH /api/me',
+    handler: meRoute.PATCH,
+    method: 'PATCH',
     // Each person starts with notifications on, and each is asked once: turning them off is a change.
     prepare: async () => ({ body: { notifyEmail: false } }),
     expected: row(401, 200, 200, 200, 200, 200),
   },
   {
-    route: 'GET /api/series/:seriesId/activity', handler: activityRoute.GET, method: 'GET',
+    route: 'GET /api/series/:seriesId/activity',
+    handler: activityRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'GET /api/passes/:passId/thumbnail.svg', handler: thumbRoute.GET, method: 'GET',
+    route: 'GET /api/passes/:passId/thumbnail.svg',
+    handler: thumbRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { passId: (await newPass()).passId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'POST /api/passes/:passId/ops', handler: opsRoute.POST, method: 'POST',
+    route: 'POST /api/passes/:passId/ops',
+    handler: opsRoute.POST,
+    method: 'POST',
     prepare: async () => ({ params: { passId: (await newPass()).passId }, body: { batchId: randomUUID(), ops: [{ op: 'remove', strokeId: 'm1' }] } }),
     expected: row(401, 403, 403, 200, 200, 404),
   },
   {
-    route: 'POST /api/passes/:passId/ops (lightbox)', handler: opsRoute.POST, method: 'POST',
+    route: 'POST /api/passes/:passId/ops (lightbox)',
+    handler: opsRoute.POST,
+    method: 'POST',
     prepare: async () => {
       const lightbox = { id: 'lb', uploadId: await newUpload(), panel: 1, x: 80, y: 10, w: 50, h: 50, rotation: 90, opacity: 0.4, visible: true };
       return { params: { passId: (await newPass()).passId }, body: { batchId: randomUUID(), ops: [{ op: 'lightbox', lightbox }] } };
@@ -460,12 +594,16 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 403, 200, 200, 404),
   },
   {
-    route: 'GET /api/passes/:passId/revisions', handler: revisionsRoute.GET, method: 'GET',
+    route: 'GET /api/passes/:passId/revisions',
+    handler: revisionsRoute.GET,
+    method: 'GET',
     prepare: async () => ({ params: { passId: (await newPass()).passId } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
   {
-    route: 'POST /api/passes/:passId/revisions/:revisionId/restore', handler: restoreRoute.POST, method: 'POST',
+    route: 'POST /api/passes/:passId/revisions/:revisionId/restore',
+    handler: restoreRoute.POST,
+    method: 'POST',
     prepare: async () => {
       const p = await newPass();
       return { params: { passId: p.passId, revisionId: p.revisionId } };

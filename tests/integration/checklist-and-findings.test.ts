@@ -44,7 +44,9 @@ describe('silent-read checklist', () => {
     const r = await callRoute(itemsRoute.PUT, { method: 'PUT', as: 'owner', params: { seriesId: DEMO_SERIES_ID }, body: { items: next } });
     expect(r.status).toBe(200);
     expect(r.body.map((i: { text: string }) => i.text)).toEqual(['The surprise shows in panel 3.', 'Kettle is always recognisable.']);
-    expect((await callRoute(itemsRoute.PUT, { method: 'PUT', as: 'cocreator', params: { seriesId: DEMO_SERIES_ID }, body: { items: next } })).status).toBe(403);
+    expect(
+      (await callRoute(itemsRoute.PUT, { method: 'PUT', as: 'cocreator', params: { seriesId: DEMO_SERIES_ID }, body: { items: next } })).status,
+    ).toBe(403);
     const onPass = (await callRoute(checklistRoute.GET, { as: 'viewer', params: { passId } })).body;
     expect(onPass).toHaveLength(2);
   });
@@ -53,14 +55,50 @@ describe('silent-read checklist', () => {
 describe('findings', () => {
   it('per panel: ink load, room intrusions, marks past the safe area, empty; beats without notes', async () => {
     const heavy = Array.from({ length: 20 }, (_, i) => ({
-      id: `h${i}`, panel: 1, tool: 'tone', grey: 60, size: 4,
-      points: [[78, 6 + i * 3.3, 0.5], [144, 6 + i * 3.3, 0.5]],
+      id: `h${i}`,
+      panel: 1,
+      tool: 'tone',
+      grey: 60,
+      size: 4,
+      points: [
+        [78, 6 + i * 3.3, 0.5],
+        [144, 6 + i * 3.3, 0.5],
+      ],
     }));
-    const intruder = { id: 'in-room', panel: 0, tool: 'pen', grey: 100, size: 0.6, points: [[12, 12, 0.5], [20, 12, 0.5]] };
-    const past = { id: 'past', panel: 2, tool: 'pen', grey: 100, size: 0.6, points: [[2, 100, 0.5], [30, 100, 0.5]] };
+    const intruder = {
+      id: 'in-room',
+      panel: 0,
+      tool: 'pen',
+      grey: 100,
+      size: 0.6,
+      points: [
+        [12, 12, 0.5],
+        [20, 12, 0.5],
+      ],
+    };
+    const past = {
+      id: 'past',
+      panel: 2,
+      tool: 'pen',
+      grey: 100,
+      size: 0.6,
+      points: [
+        [2, 100, 0.5],
+        [30, 100, 0.5],
+      ],
+    };
     const room = { id: 'r1', panel: 0, shape: 'rect', x: 8, y: 8, w: 25, h: 10 };
     const ops = [...heavy, intruder, past].map((stroke) => ({ op: 'add', stroke }));
-    expect((await callRoute(opsRoute.POST, { method: 'POST', as: 'owner', params: { passId }, body: { batchId: 'f1', ops: [...ops, { op: 'room', room }] } })).status).toBe(200);
+    expect(
+      (
+        await callRoute(opsRoute.POST, {
+          method: 'POST',
+          as: 'owner',
+          params: { passId },
+          body: { batchId: 'f1', ops: [...ops, { op: 'room', room }] },
+        })
+      ).status,
+    ).toBe(200);
     const r = await callRoute(findingsRoute.GET, { as: 'viewer', params: { passId } });
     expect(r.status).toBe(200);
     const [p0, p1, p2, p3] = r.body.panels;

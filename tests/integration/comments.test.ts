@@ -63,13 +63,28 @@ describe('comments', () => {
 
   it('edit your own only; resolve and reopen a thread', async () => {
     const c = await post('editor', { body: 'First thought' });
-    const own = await callRoute(commentRoute.PATCH, { method: 'PATCH', as: 'editor', params: { commentId: c.body.id }, body: { body: 'Second thought' } });
+    const own = await callRoute(commentRoute.PATCH, {
+      method: 'PATCH',
+      as: 'editor',
+      params: { commentId: c.body.id },
+      body: { body: 'Second thought' },
+    });
     expect(own.body).toMatchObject({ body: 'Second thought', editedAt: expect.any(String) });
     const other = await callRoute(commentRoute.PATCH, { method: 'PATCH', as: 'owner', params: { commentId: c.body.id }, body: { body: 'Hijack' } });
     expect(other.status).toBe(403);
-    const resolved = await callRoute(commentRoute.PATCH, { method: 'PATCH', as: 'owner', params: { commentId: c.body.id }, body: { resolved: true } });
+    const resolved = await callRoute(commentRoute.PATCH, {
+      method: 'PATCH',
+      as: 'owner',
+      params: { commentId: c.body.id },
+      body: { resolved: true },
+    });
     expect(resolved.body).toMatchObject({ resolvedBy: 'Nell Harrow' });
-    const reopened = await callRoute(commentRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { commentId: c.body.id }, body: { resolved: false } });
+    const reopened = await callRoute(commentRoute.PATCH, {
+      method: 'PATCH',
+      as: 'cocreator',
+      params: { commentId: c.body.id },
+      body: { resolved: false },
+    });
     expect(reopened.body.resolvedAt).toBeNull();
   });
 });
@@ -79,12 +94,19 @@ describe('presence', () => {
     const { POST, GET } = await import('@/app/api/gags/[gagId]/presence/route');
     await callRoute(POST, { method: 'POST', as: 'editor', params: { gagId: GAG }, body: { where: 'compare' } });
     const r = await callRoute(POST, { method: 'POST', as: 'owner', params: { gagId: GAG }, body: { where: 'pass:2', tab: 'tab-a', panel: 3 } });
-    expect(r.body.map((p: { name: string; where: string; panel: number | null }) => `${p.name}@${p.where}/${p.panel}`).sort()).toEqual(['Ivo Sand@compare/null', 'Nell Harrow@pass:2/3']);
+    expect(r.body.map((p: { name: string; where: string; panel: number | null }) => `${p.name}@${p.where}/${p.panel}`).sort()).toEqual([
+      'Ivo Sand@compare/null',
+      'Nell Harrow@pass:2/3',
+    ]);
     const bad = await callRoute(POST, { method: 'POST', as: 'owner', params: { gagId: GAG }, body: { where: 'kitchen' } });
     expect(bad.status).toBe(422);
     const badTab = await callRoute(POST, { method: 'POST', as: 'owner', params: { gagId: GAG }, body: { where: 'page', tab: 'no spaces' } });
     expect(badTab.status).toBe(422);
-    await db.updateTable('presenceTabs').set({ seenAt: new Date(Date.now() - 21_000).toISOString() }).where('userId', '=', 'demo-user-editor').execute();
+    await db
+      .updateTable('presenceTabs')
+      .set({ seenAt: new Date(Date.now() - 21_000).toISOString() })
+      .where('userId', '=', 'demo-user-editor')
+      .execute();
     const later = await callRoute(GET, { as: 'viewer', params: { gagId: GAG } });
     expect(later.body.map((p: { name: string }) => p.name)).toEqual(['Nell Harrow']);
   });

@@ -107,7 +107,13 @@ describe('batches on one pass from two instances at once', () => {
   it('a retry racing its original is applied once and both get the same seq', async () => {
     const { passId } = await newPass(a);
     for (let round = 0; round < 6; round++) {
-      const batch = { passId, batchId: `same-${round}`, ops: [{ op: 'add', stroke: stroke(`dup-${round}`, round) }] as Op[], userId: 'demo-user-cocreator', spec: DEFAULT_PAGE_SPEC };
+      const batch = {
+        passId,
+        batchId: `same-${round}`,
+        ops: [{ op: 'add', stroke: stroke(`dup-${round}`, round) }] as Op[],
+        userId: 'demo-user-cocreator',
+        spec: DEFAULT_PAGE_SPEC,
+      };
       const [r1, r2, r3] = await Promise.all([applyBatch(a, batch), applyBatch(b, batch), applyBatch(a, batch)]);
       expect(r2.seq).toBe(r1.seq);
       expect(r3.seq).toBe(r1.seq);
@@ -160,7 +166,13 @@ describe('stamps', () => {
       stampPass(a, { passId, userId: 'demo-user-editor', decision: 'ready', note: '' }),
       stampPass(b, { passId: second.id, userId: 'demo-user-editor', decision: 'ready', note: '' }),
     ]);
-    const standing = await a.selectFrom('stamps').select('id').where('gagId', '=', gagId).where('decision', '=', 'ready').where('clearedAt', 'is', null).execute();
+    const standing = await a
+      .selectFrom('stamps')
+      .select('id')
+      .where('gagId', '=', gagId)
+      .where('decision', '=', 'ready')
+      .where('clearedAt', 'is', null)
+      .execute();
     expect(standing).toHaveLength(1);
   });
 });
@@ -169,7 +181,12 @@ describe('invitations', () => {
   it('one link accepted twice at once makes one member; the other is told it was used', async () => {
     const users = Array.from({ length: 6 }, (_, i) => `race-${i}`);
     for (const id of users) await insertUser(a, { id, email: `${id}@quadrille.test`, name: id, passwordHash: 'x' });
-    const { token } = await createInvitation(a, { seriesId: DEMO_SERIES_ID, email: 'race@quadrille.test', role: 'viewer', invitedBy: 'demo-user-owner' });
+    const { token } = await createInvitation(a, {
+      seriesId: DEMO_SERIES_ID,
+      email: 'race@quadrille.test',
+      role: 'viewer',
+      invitedBy: 'demo-user-owner',
+    });
     await warm([a, b]);
     const tries = await Promise.allSettled(users.map((u, i) => acceptInvitation(i % 2 ? a : b, token, u)));
     expect(tries.filter((t) => t.status === 'fulfilled')).toHaveLength(1);

@@ -26,7 +26,10 @@ async function save(res: Response, name: string) {
 function boxes(file: string) {
   const out = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '999', file], { encoding: 'utf8' });
   const pages = Number(out.match(/^Pages:\s+(\d+)/m)![1]);
-  const read = (kind: string) => [...out.matchAll(new RegExp(`^Page\\s+(\\d+)\\s+${kind}:\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)`, 'gm'))].map((m) => m.slice(2).map(Number));
+  const read = (kind: string) =>
+    [...out.matchAll(new RegExp(`^Page\\s+(\\d+)\\s+${kind}:\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)`, 'gm'))].map((m) =>
+      m.slice(2).map(Number),
+    );
   return { pages, trim: read('TrimBox'), bleed: read('BleedBox'), media: read('MediaBox') };
 }
 

@@ -39,7 +39,9 @@ async function upload(bytes: Buffer, name: string, seriesId = DEMO_SERIES_ID, as
 
 /** A scan whose left half is red and right half blue, so a quarter turn shows. */
 async function halves(w: number, h: number, format: 'png' | 'jpeg' | 'webp' = 'png') {
-  const left = await sharp({ create: { width: Math.floor(w / 2), height: h, channels: 3, background: '#e01010' } }).png().toBuffer();
+  const left = await sharp({ create: { width: Math.floor(w / 2), height: h, channels: 3, background: '#e01010' } })
+    .png()
+    .toBuffer();
   return sharp({ create: { width: w, height: h, channels: 3, background: '#1020e0' } })
     .composite([{ input: left, left: 0, top: 0 }])
     .toFormat(format)
@@ -55,10 +57,21 @@ async function newPass(gagId: string) {
 const send = (passId: string, batchId: string, ops: unknown[], as: Persona = 'cocreator') =>
   callRoute(opsRoute.POST, { method: 'POST', as, params: { passId }, body: { batchId, ops } });
 
-const state = async (passId: string) => (await callRoute(passRoute.GET, { as: 'viewer', params: { passId } })).body as { seq: number; lightboxes: Lightbox[]; strokes: unknown[] };
+const state = async (passId: string) =>
+  (await callRoute(passRoute.GET, { as: 'viewer', params: { passId } })).body as { seq: number; lightboxes: Lightbox[]; strokes: unknown[] };
 
 const box = (id: string, uploadId: string, patch: Partial<Lightbox> = {}): Lightbox => ({
-  id, uploadId, panel: 1, x: 80, y: 10, w: 60, h: 60, rotation: 0, opacity: 0.4, visible: true, ...patch,
+  id,
+  uploadId,
+  panel: 1,
+  x: 80,
+  y: 10,
+  w: 60,
+  h: 60,
+  rotation: 0,
+  opacity: 0.4,
+  visible: true,
+  ...patch,
 });
 
 describe('lightbox operations', () => {
@@ -124,7 +137,8 @@ describe('lightbox operations', () => {
   it('an editor or viewer cannot place one', async () => {
     const u = await upload(await halves(240, 240), 'look-only.png');
     const p = await newPass('demo-gag-10');
-    for (const as of ['editor', 'viewer'] as const) expect((await send(p.id, `ro-${as}`, [{ op: 'lightbox', lightbox: box('x', u.id) }], as)).status).toBe(403);
+    for (const as of ['editor', 'viewer'] as const)
+      expect((await send(p.id, `ro-${as}`, [{ op: 'lightbox', lightbox: box('x', u.id) }], as)).status).toBe(403);
     expect((await state(p.id)).lightboxes).toEqual([]);
   });
 
@@ -135,8 +149,22 @@ describe('lightbox operations', () => {
     await send(p.id, 'rs-1', [{ op: 'lightbox', lightbox: first }]);
     const mark = (await state(p.id)).seq;
     // A revision at this point, then changes after it.
-    await db().insertInto('revisions').values({ id: 'rev-lightbox-mark', passId: p.id, seq: mark, reason: 'pause', restoredFrom: null, userId: null, createdAt: new Date().toISOString() }).execute();
-    await send(p.id, 'rs-2', [{ op: 'lightbox', lightbox: { ...first, x: 90, opacity: 0.9 } }, { op: 'lightbox', lightbox: box('r2', u.id, { panel: 3, x: 80, y: 80 }) }]);
+    await db()
+      .insertInto('revisions')
+      .values({
+        id: 'rev-lightbox-mark',
+        passId: p.id,
+        seq: mark,
+        reason: 'pause',
+        restoredFrom: null,
+        userId: null,
+        createdAt: new Date().toISOString(),
+      })
+      .execute();
+    await send(p.id, 'rs-2', [
+      { op: 'lightbox', lightbox: { ...first, x: 90, opacity: 0.9 } },
+      { op: 'lightbox', lightbox: box('r2', u.id, { panel: 3, x: 80, y: 80 }) },
+    ]);
     expect((await state(p.id)).lightboxes).toHaveLength(2);
     const revs = await callRoute(revisionsRoute.GET, { as: 'viewer', params: { passId: p.id } });
     expect(revs.body.map((r: { id: string }) => r.id)).toContain('rev-lightbox-mark');
@@ -144,7 +172,12 @@ describe('lightbox operations', () => {
     expect(r.status).toBe(200);
     expect((await state(p.id)).lightboxes).toEqual([first]);
 
-    const copy = await callRoute(passesRoute.POST, { method: 'POST', as: 'cocreator', params: { gagId: 'demo-gag-10' }, body: { copyFrom: p.number } });
+    const copy = await callRoute(passesRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { gagId: 'demo-gag-10' },
+      body: { copyFrom: p.number },
+    });
     expect(copy.status).toBe(201);
     expect((await state(copy.body.id)).lightboxes).toEqual([first]);
   });
@@ -190,7 +223,10 @@ describe('review PDF with the lightbox', () => {
     const file = path.join(dir, `${name}.pdf`);
     fs.writeFileSync(file, Buffer.from(await res.arrayBuffer()));
     execFileSync('pdftoppm', ['-f', String(page), '-l', String(page), '-r', String(DPI), '-png', '-singlefile', file, path.join(dir, name)]);
-    const { data, info } = await sharp(path.join(dir, `${name}.png`)).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    const { data, info } = await sharp(path.join(dir, `${name}.png`))
+      .removeAlpha()
+      .raw()
+      .toBuffer({ resolveWithObject: true });
     return (xMm: number, yMm: number, bleed: number): [number, number, number] => {
       const px = Math.round(((xMm + bleed) / 25.4) * DPI);
       const py = Math.round(((yMm + bleed) / 25.4) * DPI);

@@ -96,7 +96,17 @@ async function newPass() {
 
 const strokeOp = (id: string) => ({
   op: 'add',
-  stroke: { id, panel: 1, tool: 'pen', grey: 80, size: 0.6, points: [[90, 20, 0.5], [100, 30, 0.5]] },
+  stroke: {
+    id,
+    panel: 1,
+    tool: 'pen',
+    grey: 80,
+    size: 0.6,
+    points: [
+      [90, 20, 0.5],
+      [100, 30, 0.5],
+    ],
+  },
 });
 
 describe('the pass stream', () => {
@@ -108,7 +118,12 @@ describe('the pass stream', () => {
     expect(s.res.headers.get('x-accel-buffering')).toBe('no');
     expect(s.res.headers.get('cache-control')).toContain('no-transform');
     await s.waitFor((e) => e.type === 'seq' && e.seq === 0);
-    const r = await callRoute(opsRoute.POST, { method: 'POST', as: 'cocreator', params: { passId }, body: { batchId: randomUUID(), ops: [strokeOp('live-1')] } });
+    const r = await callRoute(opsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { passId },
+      body: { batchId: randomUUID(), ops: [strokeOp('live-1')] },
+    });
     expect(r.status).toBe(200);
     const e = await s.waitFor((x) => x.topic === `pass:${passId}` && x.seq === r.body.seq);
     expect(e.type).toBe('seq');
@@ -159,9 +174,11 @@ describe('the gag stream', () => {
     const { gagId, passId } = await newPass();
     const watcher = await open(gagEventsRoute.GET, { gagId }, 'owner', '?tab=owner-tab&where=page');
     const editor = await open(passEventsRoute.GET, { passId }, 'cocreator', '?tab=co-tab&panel=2');
-    const list = (await watcher.waitFor(
-      (e) => e.type === 'presence' && Array.isArray(e.data) && (e.data as { name: string }[]).some((p) => p.name === 'Tam Quill'),
-    )).data as { name: string; where: string; panel: number | null }[];
+    const list = (
+      await watcher.waitFor(
+        (e) => e.type === 'presence' && Array.isArray(e.data) && (e.data as { name: string }[]).some((p) => p.name === 'Tam Quill'),
+      )
+    ).data as { name: string; where: string; panel: number | null }[];
     expect(list.find((p) => p.name === 'Tam Quill')).toMatchObject({ where: 'pass:1', panel: 2 });
     expect(list.find((p) => p.name === 'Nell Harrow')).toMatchObject({ where: 'page', panel: null });
     const seenBefore = watcher.events.length;
@@ -181,7 +198,12 @@ describe('the gag stream', () => {
 describe('the series stream', () => {
   it('tells the board of a new gag', async () => {
     const s = await open(seriesEventsRoute.GET, { seriesId: DEMO_SERIES_ID }, 'viewer');
-    const r = await callRoute(gagsRoute.POST, { method: 'POST', as: 'cocreator', params: { seriesId: DEMO_SERIES_ID }, body: { title: 'Tide chart', premise: '' } });
+    const r = await callRoute(gagsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { seriesId: DEMO_SERIES_ID },
+      body: { title: 'Tide chart', premise: '' },
+    });
     expect(r.status).toBe(201);
     const e = await s.waitFor((x) => x.type === 'gags' && (x.ids ?? []).includes(r.body.id));
     expect(e.topic).toBe(`series:${DEMO_SERIES_ID}`);
@@ -194,13 +216,22 @@ describe('a member removed while a stream is open', () => {
     const { passId } = await newPass();
     const s = await open(passEventsRoute.GET, { passId }, 'viewer');
     await s.waitFor((e) => e.type === 'seq');
-    const r = await callRoute(memberRoute.DELETE, { method: 'DELETE', as: 'owner', params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-viewer' } });
+    const r = await callRoute(memberRoute.DELETE, {
+      method: 'DELETE',
+      as: 'owner',
+      params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-viewer' },
+    });
     expect(r.status).toBe(204);
     await s.waitFor((e) => e.type === 'gone', 2000);
     expect(await s.waitEnd(2000)).toBe(true);
     // Nothing after the end, however much is drawn.
     const before = s.events.length;
-    await callRoute(opsRoute.POST, { method: 'POST', as: 'cocreator', params: { passId }, body: { batchId: randomUUID(), ops: [strokeOp('after-removal')] } });
+    await callRoute(opsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { passId },
+      body: { batchId: randomUUID(), ops: [strokeOp('after-removal')] },
+    });
     await new Promise((r) => setTimeout(r, 200));
     expect(s.events.length).toBe(before);
   });

@@ -69,7 +69,12 @@ describe('invitations', () => {
     vi.useFakeTimers({ toFake: ['Date'] });
     vi.setSystemTime(new Date('2027-02-01T09:00:00Z'));
     const { body } = await callRoute(seriesRoute.POST, { method: 'POST', as: 'owner', body: { title: 'Tide Tables' } });
-    const r = await callRoute(invitationsRoute.POST, { method: 'POST', as: 'owner', params: { seriesId: body.id }, body: { email: 'viewer@quadrille.test', role: 'cocreator' } });
+    const r = await callRoute(invitationsRoute.POST, {
+      method: 'POST',
+      as: 'owner',
+      params: { seriesId: body.id },
+      body: { email: 'viewer@quadrille.test', role: 'cocreator' },
+    });
     expect(r.status).toBe(201);
     const token = await tokenFromMail('viewer@quadrille.test');
     vi.setSystemTime(new Date('2027-02-07T09:00:00Z'));
@@ -87,12 +92,28 @@ describe('members', () => {
   it('the owner changes roles and removes members, never the last owner', async () => {
     const list = await callRoute(membersRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } });
     expect(list.body.map((m: { role: string }) => m.role)).toContain('owner');
-    const up = await callRoute(memberRoute.PATCH, { method: 'PATCH', as: 'owner', params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-viewer' }, body: { role: 'editor' } });
+    const up = await callRoute(memberRoute.PATCH, {
+      method: 'PATCH',
+      as: 'owner',
+      params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-viewer' },
+      body: { role: 'editor' },
+    });
     expect(up.body).toMatchObject({ userId: 'demo-user-viewer', role: 'editor' });
-    const lastOwner = await callRoute(memberRoute.PATCH, { method: 'PATCH', as: 'owner', params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-owner' }, body: { role: 'viewer' } });
+    const lastOwner = await callRoute(memberRoute.PATCH, {
+      method: 'PATCH',
+      as: 'owner',
+      params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-owner' },
+      body: { role: 'viewer' },
+    });
     expect(lastOwner.status).toBe(409);
-    expect((await callRoute(memberRoute.DELETE, { method: 'DELETE', as: 'owner', params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-owner' } })).status).toBe(409);
-    expect((await callRoute(memberRoute.DELETE, { method: 'DELETE', as: 'owner', params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-outsider' } })).status).toBe(204);
+    expect(
+      (await callRoute(memberRoute.DELETE, { method: 'DELETE', as: 'owner', params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-owner' } }))
+        .status,
+    ).toBe(409);
+    expect(
+      (await callRoute(memberRoute.DELETE, { method: 'DELETE', as: 'owner', params: { seriesId: DEMO_SERIES_ID, userId: 'demo-user-outsider' } }))
+        .status,
+    ).toBe(204);
     expect((await callRoute(membersRoute.GET, { as: 'outsider', params: { seriesId: DEMO_SERIES_ID } })).status).toBe(404);
   });
 });

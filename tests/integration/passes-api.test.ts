@@ -42,8 +42,22 @@ const ids = (s: { strokes: Stroke[] }) => s.strokes.map((x) => x.id).sort();
 
 async function rowCounts() {
   const n = async (t: 'strokes' | 'passBatches' | 'strokeMoves' | 'strokeTombstones' | 'rooms' | 'revisions') =>
-    Number((await db.selectFrom(t).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
-  return { strokes: await n('strokes'), batches: await n('passBatches'), moves: await n('strokeMoves'), tombstones: await n('strokeTombstones'), rooms: await n('rooms'), revisions: await n('revisions') };
+    Number(
+      (
+        await db
+          .selectFrom(t)
+          .select((eb) => eb.fn.countAll<number>().as('n'))
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
+  return {
+    strokes: await n('strokes'),
+    batches: await n('passBatches'),
+    moves: await n('strokeMoves'),
+    tombstones: await n('strokeTombstones'),
+    rooms: await n('rooms'),
+    revisions: await n('revisions'),
+  };
 }
 
 describe('passes', () => {
@@ -57,7 +71,10 @@ describe('passes', () => {
 
   it('a new pass can start as a copy of an earlier one', async () => {
     const p1 = await newPass('demo-gag-12');
-    await send(p1.id, 'copy-src', [{ op: 'add', stroke: stroke('s1') }, { op: 'add', stroke: stroke('s2', 3, 90, 100) }]);
+    await send(p1.id, 'copy-src', [
+      { op: 'add', stroke: stroke('s1') },
+      { op: 'add', stroke: stroke('s2', 3, 90, 100) },
+    ]);
     const p2 = await newPass('demo-gag-12', { copyFrom: 1 });
     expect(p2.number).toBe(2);
     expect(ids(await state(p2.id))).toEqual(['s1', 's2']);
@@ -70,7 +87,10 @@ describe('operations', () => {
   it('stores strokes in mm within the quantum and acknowledges with the new seq', async () => {
     const p = await newPass();
     const s = stroke('a1', 1, 80.123, 20.456);
-    const r = await send(p.id, 'b-1', [{ op: 'add', stroke: s }, { op: 'add', stroke: stroke('a2') }]);
+    const r = await send(p.id, 'b-1', [
+      { op: 'add', stroke: s },
+      { op: 'add', stroke: stroke('a2') },
+    ]);
     expect(r).toEqual({ status: 200, body: { seq: 1 } });
     const st = await state(p.id);
     expect(st.seq).toBe(1);
@@ -122,8 +142,15 @@ describe('operations', () => {
 
   it('moves shift strokes; the delta since a seq carries only what changed', async () => {
     const p = await newPass();
-    await send(p.id, 'm-1', [{ op: 'add', stroke: stroke('m1') }, { op: 'add', stroke: stroke('m2') }, { op: 'add', stroke: stroke('m3') }]);
-    await send(p.id, 'm-2', [{ op: 'move', strokeIds: ['m1', 'ghost'], dx: 5, dy: -2 }, { op: 'remove', strokeId: 'm2' }]);
+    await send(p.id, 'm-1', [
+      { op: 'add', stroke: stroke('m1') },
+      { op: 'add', stroke: stroke('m2') },
+      { op: 'add', stroke: stroke('m3') },
+    ]);
+    await send(p.id, 'm-2', [
+      { op: 'move', strokeIds: ['m1', 'ghost'], dx: 5, dy: -2 },
+      { op: 'remove', strokeId: 'm2' },
+    ]);
     const st = await state(p.id);
     expect(st.strokes.find((s) => s.id === 'm1')!.points[0]).toEqual([15, 8, expect.closeTo(0.5, 2)]);
     const d = await callRoute(passRoute.GET, { as: 'editor', params: { passId: p.id }, url: `/api/passes/${p.id}?since=1` });
@@ -150,7 +177,10 @@ describe('operations', () => {
   it('adding a stroke writes the same number of rows at 0 or 500 strokes', async () => {
     const small = await newPass();
     const big = await newPass();
-    const many = Array.from({ length: 500 }, (_, i) => ({ op: 'add', stroke: stroke(`bulk${i}`, i % 4, 10 + (i % 4 === 1 || i % 4 === 3 ? 70 : 0), 10) }));
+    const many = Array.from({ length: 500 }, (_, i) => ({
+      op: 'add',
+      stroke: stroke(`bulk${i}`, i % 4, 10 + (i % 4 === 1 || i % 4 === 3 ? 70 : 0), 10),
+    }));
     expect((await send(big.id, 'bulk', many)).status).toBe(200);
     const measure = async (passId: string, batchId: string) => {
       const before = await rowCounts();
@@ -167,7 +197,11 @@ describe('operations', () => {
   it('stores points in at most a third of the bytes of plain JSON', async () => {
     const p = await newPass();
     const strokes = Array.from({ length: 40 }, (_, i) => stroke(`j${i}`, 0, 10, 10 + i, 60));
-    await send(p.id, 'json-size', strokes.map((s) => ({ op: 'add', stroke: s })));
+    await send(
+      p.id,
+      'json-size',
+      strokes.map((s) => ({ op: 'add', stroke: s })),
+    );
     const json = JSON.stringify((await state(p.id)).strokes.map((s) => s.points)).length;
     expect((await storedPointBytes(db, p.id)) * 3).toBeLessThanOrEqual(json);
   });
@@ -176,7 +210,11 @@ describe('operations', () => {
 describe('thumbnails', () => {
   it('an SVG page with one clipped path per live stroke', async () => {
     const p = await newPass();
-    await send(p.id, 't-1', [{ op: 'add', stroke: stroke('t1', 0) }, { op: 'add', stroke: stroke('t2', 3, 90, 100) }, { op: 'add', stroke: stroke('t3', 1, 80) }]);
+    await send(p.id, 't-1', [
+      { op: 'add', stroke: stroke('t1', 0) },
+      { op: 'add', stroke: stroke('t2', 3, 90, 100) },
+      { op: 'add', stroke: stroke('t3', 1, 80) },
+    ]);
     await send(p.id, 't-2', [{ op: 'remove', strokeId: 't3' }]);
     const r = await callRoute(thumbRoute.GET, { as: 'viewer', params: { passId: p.id } });
     expect(r.status).toBe(200);
@@ -194,7 +232,14 @@ describe('bad batches: 422 with the reason, and nothing stored', () => {
     ['a non-number', [{ op: 'add', stroke: { ...stroke('nan'), points: [[10, 'ten', 0.5]] } }], /numbers/],
     ['more than 10,000 points', [{ op: 'add', stroke: huge }], /10,000 points/],
     ['an unknown panel', [{ op: 'add', stroke: stroke('p4', 4) }], /Panels are numbered 0 to 3/],
-    ['a move out of the page', [{ op: 'add', stroke: stroke('ok1') }, { op: 'move', strokeIds: ['ok1'], dx: 200, dy: 0 }], /outside the bleed box/],
+    [
+      'a move out of the page',
+      [
+        { op: 'add', stroke: stroke('ok1') },
+        { op: 'move', strokeIds: ['ok1'], dx: 200, dy: 0 },
+      ],
+      /outside the bleed box/,
+    ],
     ['an unknown op', [{ op: 'paint', x: 1 }], /./],
   ];
   it.each(cases)('%s', async (_name, ops, reason) => {
@@ -227,9 +272,24 @@ describe('revisions', () => {
     const spec = DEFAULT_PAGE_SPEC;
     const apply = (batchId: string, ops: Parameters<typeof applyBatch>[1]['ops'], at: number) =>
       applyBatch(db, { passId: p.id, batchId, ops, userId: 'demo-user-cocreator', spec, now: new Date(at) });
-    await apply('v1', [{ op: 'add', stroke: stroke('v1') }, { op: 'add', stroke: stroke('v2', 1, 80) }], t0);
+    await apply(
+      'v1',
+      [
+        { op: 'add', stroke: stroke('v1') },
+        { op: 'add', stroke: stroke('v2', 1, 80) },
+      ],
+      t0,
+    );
     // A minute later, drawing resumes: the state at seq 1 becomes a revision.
-    await apply('v2', [{ op: 'remove', strokeId: 'v1' }, { op: 'add', stroke: stroke('v3', 2, 10, 90) }, { op: 'move', strokeIds: ['v2'], dx: 3, dy: 3 }], t0 + 60_000);
+    await apply(
+      'v2',
+      [
+        { op: 'remove', strokeId: 'v1' },
+        { op: 'add', stroke: stroke('v3', 2, 10, 90) },
+        { op: 'move', strokeIds: ['v2'], dx: 3, dy: 3 },
+      ],
+      t0 + 60_000,
+    );
     const revs = await callRoute(revisionsRoute.GET, { as: 'viewer', params: { passId: p.id } });
     expect(revs.status).toBe(200);
     const pause = revs.body.find((r: { reason: string }) => r.reason === 'pause');
@@ -272,9 +332,19 @@ describe('page spec', () => {
   it('defaults, and the owner may change it within sense', async () => {
     const get = await callRoute(specRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } });
     expect(get.body).toEqual(DEFAULT_PAGE_SPEC);
-    const bad = await callRoute(specRoute.PUT, { method: 'PUT', as: 'owner', params: { seriesId: DEMO_SERIES_ID }, body: { ...DEFAULT_PAGE_SPEC, safe: 74 } });
+    const bad = await callRoute(specRoute.PUT, {
+      method: 'PUT',
+      as: 'owner',
+      params: { seriesId: DEMO_SERIES_ID },
+      body: { ...DEFAULT_PAGE_SPEC, safe: 74 },
+    });
     expect(bad.status).toBe(422);
-    const put = await callRoute(specRoute.PUT, { method: 'PUT', as: 'owner', params: { seriesId: DEMO_SERIES_ID }, body: { ...DEFAULT_PAGE_SPEC, gutter: 6 } });
+    const put = await callRoute(specRoute.PUT, {
+      method: 'PUT',
+      as: 'owner',
+      params: { seriesId: DEMO_SERIES_ID },
+      body: { ...DEFAULT_PAGE_SPEC, gutter: 6 },
+    });
     expect(put.status).toBe(200);
     expect((await callRoute(specRoute.GET, { as: 'editor', params: { seriesId: DEMO_SERIES_ID } })).body.gutter).toBe(6);
     await callRoute(specRoute.PUT, { method: 'PUT', as: 'owner', params: { seriesId: DEMO_SERIES_ID }, body: DEFAULT_PAGE_SPEC });

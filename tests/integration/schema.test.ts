@@ -26,12 +26,20 @@ async function columnType(table: string, column: string): Promise<{ type: string
 describe('column types', () => {
   it('millimetres and board positions are 8-byte floats (PostgreSQL real would be 4 bytes)', async () => {
     const want = testDbKind() === 'postgres' ? 'double precision' : 'real';
-    for (const [t, c] of [['strokes', 'min_x'], ['gags', 'position'], ['rooms', 'w'], ['lightboxes', 'opacity']] as const) {
+    for (const [t, c] of [
+      ['strokes', 'min_x'],
+      ['gags', 'position'],
+      ['rooms', 'w'],
+      ['lightboxes', 'opacity'],
+    ] as const) {
       expect((await columnType(t, c)).type).toBe(want);
     }
     // 1/3 mm survives a round trip to 15 significant digits (IEEE 754 binary64), which a 4-byte float would not.
     await db.insertInto('series').values({ id: 's', title: 'S', createdAt: 'now' }).execute();
-    await db.insertInto('gags').values({ id: 'g', seriesId: 's', title: 'G', premise: '', status: 'idea', position: 1 / 3, createdAt: 'n', updatedAt: 'n' }).execute();
+    await db
+      .insertInto('gags')
+      .values({ id: 'g', seriesId: 's', title: 'G', premise: '', status: 'idea', position: 1 / 3, createdAt: 'n', updatedAt: 'n' })
+      .execute();
     const g = await db.selectFrom('gags').select('position').where('id', '=', 'g').executeTakeFirstOrThrow();
     expect(g.position).toBe(1 / 3);
   });

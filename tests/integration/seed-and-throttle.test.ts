@@ -13,10 +13,22 @@ beforeAll(async () => {
 
 async function counts() {
   const n = async (t: 'users' | 'series' | 'memberships' | 'gags' | 'beats' | 'passes' | 'strokes') =>
-    Number((await db.selectFrom(t).select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n);
+    Number(
+      (
+        await db
+          .selectFrom(t)
+          .select((eb) => eb.fn.countAll<number>().as('n'))
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
   return {
-    users: await n('users'), series: await n('series'), memberships: await n('memberships'), gags: await n('gags'),
-    beats: await n('beats'), passes: await n('passes'), strokes: await n('strokes'),
+    users: await n('users'),
+    series: await n('series'),
+    memberships: await n('memberships'),
+    gags: await n('gags'),
+    beats: await n('beats'),
+    passes: await n('passes'),
+    strokes: await n('strokes'),
   };
 }
 

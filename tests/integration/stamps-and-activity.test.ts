@@ -20,11 +20,26 @@ afterAll(async () => {
   await mail?.stop();
 });
 
-const line = (id: string) => ({ id, panel: 0, tool: 'pen', grey: 100, size: 0.6, points: [[10, 10, 0.5], [20, 12, 0.5]] });
+const line = (id: string) => ({
+  id,
+  panel: 0,
+  tool: 'pen',
+  grey: 100,
+  size: 0.6,
+  points: [
+    [10, 10, 0.5],
+    [20, 12, 0.5],
+  ],
+});
 
 async function gagWithPass(gagId: string) {
   const p = await callRoute(passesRoute.POST, { method: 'POST', as: 'cocreator', params: { gagId }, body: {} });
-  await callRoute(opsRoute.POST, { method: 'POST', as: 'cocreator', params: { passId: p.body.id }, body: { batchId: `first-${gagId}`, ops: [{ op: 'add', stroke: line('a') }] } });
+  await callRoute(opsRoute.POST, {
+    method: 'POST',
+    as: 'cocreator',
+    params: { passId: p.body.id },
+    body: { batchId: `first-${gagId}`, ops: [{ op: 'add', stroke: line('a') }] },
+  });
   return p.body.id as string;
 }
 const gagStatus = async (gagId: string) => (await callRoute(gagRoute.GET, { as: 'owner', params: { gagId } })).body.status;
@@ -52,7 +67,12 @@ describe('the stamp', () => {
     const passId = await gagWithPass('demo-gag-08');
     await stamp(passId, 'owner', 'ready');
     expect(await gagStatus('demo-gag-08')).toBe('ready_to_ink');
-    await callRoute(opsRoute.POST, { method: 'POST', as: 'cocreator', params: { passId }, body: { batchId: 'later', ops: [{ op: 'add', stroke: line('b') }] } });
+    await callRoute(opsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { passId },
+      body: { batchId: 'later', ops: [{ op: 'add', stroke: line('b') }] },
+    });
     expect(await gagStatus('demo-gag-08')).toBe('in_review');
     const stamps = await db.selectFrom('stamps').selectAll().where('passId', '=', passId).execute();
     expect(stamps[0]).toMatchObject({ clearedSeq: 2 });
@@ -92,7 +112,11 @@ describe('activity feed', () => {
     expect(first.body.items).toHaveLength(3);
     const ids = first.body.items.map((i: { id: number }) => i.id);
     expect([...ids].sort((a, b) => b - a)).toEqual(ids);
-    const next = await callRoute(activityRoute.GET, { as: 'editor', params: { seriesId: DEMO_SERIES_ID }, url: `/x?limit=3&before=${first.body.nextBefore}` });
+    const next = await callRoute(activityRoute.GET, {
+      as: 'editor',
+      params: { seriesId: DEMO_SERIES_ID },
+      url: `/x?limit=3&before=${first.body.nextBefore}`,
+    });
     expect(next.body.items[0].id).toBeLessThan(ids[2]);
     const kinds = new Set([...first.body.items, ...next.body.items].map((i: { kind: string }) => i.kind));
     expect(kinds.size).toBeGreaterThan(1);

@@ -18,7 +18,9 @@ async function upload(bytes: Buffer, name: string, as: Persona = 'cocreator', se
   const headers = new Headers();
   const cookie = await sessionCookie(as);
   if (cookie) headers.set('cookie', cookie);
-  const res = await uploadsRoute.POST(new Request('http://localhost/x', { method: 'POST', body: form, headers }), { params: Promise.resolve({ seriesId }) });
+  const res = await uploadsRoute.POST(new Request('http://localhost/x', { method: 'POST', body: form, headers }), {
+    params: Promise.resolve({ seriesId }),
+  });
   return { status: res.status, body: await res.json() };
 }
 
@@ -29,7 +31,10 @@ async function variant(uploadId: string, v: string, as: Persona = 'viewer') {
   return variantRoute.GET(new Request('http://localhost/x', { headers }), { params: Promise.resolve({ uploadId, variant: v }) });
 }
 
-const png = (w: number, h: number) => sharp({ create: { width: w, height: h, channels: 3, background: '#d9d7d2' } }).png().toBuffer();
+const png = (w: number, h: number) =>
+  sharp({ create: { width: w, height: h, channels: 3, background: '#d9d7d2' } })
+    .png()
+    .toBuffer();
 
 describe('uploads', () => {
   it('round-trips through the S3 fake; a PNG named .jpg is taken as a PNG', async () => {
@@ -84,7 +89,9 @@ describe('uploads', () => {
     expect(text.status).toBe(415);
     const big = Buffer.alloc(26 * 1024 * 1024, 1);
     expect((await upload(big, 'huge.png')).status).toBe(413);
-    const bomb = await sharp({ create: { width: 8000, height: 6300, channels: 3, background: '#fff' } }).png({ compressionLevel: 9 }).toBuffer();
+    const bomb = await sharp({ create: { width: 8000, height: 6300, channels: 3, background: '#fff' } })
+      .png({ compressionLevel: 9 })
+      .toBuffer();
     const b = await upload(bomb, 'bomb.png');
     expect(b.status).toBe(413);
     expect(b.body.error).toMatch(/50 megapixels/);
@@ -105,7 +112,9 @@ describe('uploads', () => {
   it('co-creators delete an upload', async () => {
     const u = await upload(await png(13, 13), 'gone.png');
     const headers = new Headers({ cookie: (await sessionCookie('owner'))! });
-    const res = await uploadRoute.DELETE(new Request('http://localhost/x', { method: 'DELETE', headers }), { params: Promise.resolve({ uploadId: u.body.id }) });
+    const res = await uploadRoute.DELETE(new Request('http://localhost/x', { method: 'DELETE', headers }), {
+      params: Promise.resolve({ uploadId: u.body.id }),
+    });
     expect(res.status).toBe(204);
     expect((await variant(u.body.id, 'original')).status).toBe(404);
   });

@@ -21,18 +21,53 @@ const order = async (volumeId: string) =>
 describe('volumes', () => {
   it('the demo volume "Low Tide": 150 mm square, 3 mm bleed, saddle stitched, due 2027-03-13', async () => {
     const r = await callRoute(volumesRoute.GET, { as: 'editor', params: { seriesId: DEMO_SERIES_ID } });
-    expect(r.body[0]).toMatchObject({ title: 'Low Tide', deadline: '2027-03-13', spec: { trimW: 150, trimH: 150, bleed: 3, binding: 'saddle', direction: 'ltr' } });
+    expect(r.body[0]).toMatchObject({
+      title: 'Low Tide',
+      deadline: '2027-03-13',
+      spec: { trimW: 150, trimH: 150, bleed: 3, binding: 'saddle', direction: 'ltr' },
+    });
   });
 
   it('owners create volumes and change the print spec; others may not', async () => {
-    const c = await callRoute(volumesRoute.POST, { method: 'POST', as: 'owner', params: { seriesId: DEMO_SERIES_ID }, body: { title: 'High Water', deadline: '2027-09-01', spec: { trimW: 148, trimH: 210 } } });
+    const c = await callRoute(volumesRoute.POST, {
+      method: 'POST',
+      as: 'owner',
+      params: { seriesId: DEMO_SERIES_ID },
+      body: { title: 'High Water', deadline: '2027-09-01', spec: { trimW: 148, trimH: 210 } },
+    });
     expect(c.status).toBe(201);
     expect(c.body.spec).toMatchObject({ trimW: 148, trimH: 210, bleed: 3 });
-    expect((await callRoute(volumeRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { volumeId: c.body.id }, body: { spec: { binding: 'perfect' } } })).status).toBe(403);
-    const p = await callRoute(volumeRoute.PATCH, { method: 'PATCH', as: 'owner', params: { volumeId: c.body.id }, body: { spec: { binding: 'perfect', bleed: 3.175 } } });
+    expect(
+      (
+        await callRoute(volumeRoute.PATCH, {
+          method: 'PATCH',
+          as: 'cocreator',
+          params: { volumeId: c.body.id },
+          body: { spec: { binding: 'perfect' } },
+        })
+      ).status,
+    ).toBe(403);
+    const p = await callRoute(volumeRoute.PATCH, {
+      method: 'PATCH',
+      as: 'owner',
+      params: { volumeId: c.body.id },
+      body: { spec: { binding: 'perfect', bleed: 3.175 } },
+    });
     expect(p.body.spec).toMatchObject({ binding: 'perfect', bleed: 3.175, trimW: 148 });
-    expect((await callRoute(volumeRoute.PATCH, { method: 'PATCH', as: 'owner', params: { volumeId: c.body.id }, body: { deadline: '13/03/2027' } })).status).toBe(422);
-    expect((await callRoute(volumeRoute.PATCH, { method: 'PATCH', as: 'owner', params: { volumeId: c.body.id }, body: { spec: { safe: 60, gutter: 40 } } })).status).toBe(422);
+    expect(
+      (await callRoute(volumeRoute.PATCH, { method: 'PATCH', as: 'owner', params: { volumeId: c.body.id }, body: { deadline: '13/03/2027' } }))
+        .status,
+    ).toBe(422);
+    expect(
+      (
+        await callRoute(volumeRoute.PATCH, {
+          method: 'PATCH',
+          as: 'owner',
+          params: { volumeId: c.body.id },
+          body: { spec: { safe: 60, gutter: 40 } },
+        })
+      ).status,
+    ).toBe(422);
   });
 });
 
@@ -46,7 +81,9 @@ describe('running order', () => {
     expect((await add({ gagId: 'demo-gag-21' })).status).toBe(422); // another series' gag
     expect((await add({ kind: 'blank' })).body.kind).toBe('blank');
     expect((await add({ kind: 'poster' })).status).toBe(422);
-    expect((await callRoute(entriesRoute.POST, { method: 'POST', as: 'editor', params: { volumeId: DEMO_VOLUME_ID }, body: { kind: 'blank' } })).status).toBe(403);
+    expect(
+      (await callRoute(entriesRoute.POST, { method: 'POST', as: 'editor', params: { volumeId: DEMO_VOLUME_ID }, body: { kind: 'blank' } })).status,
+    ).toBe(403);
   });
 
   it('moving an entry rewrites one row, and the order follows', async () => {
@@ -54,7 +91,12 @@ describe('running order', () => {
     const snapshot = async () => db.selectFrom('volumeEntries').select(['id', 'position']).where('volumeId', '=', DEMO_VOLUME_ID).execute();
     const rows0 = await snapshot();
     const moved = before[5];
-    const r = await callRoute(positionRoute.PUT, { method: 'PUT', as: 'cocreator', params: { volumeId: DEMO_VOLUME_ID, entryId: moved }, body: { after: before[1] } });
+    const r = await callRoute(positionRoute.PUT, {
+      method: 'PUT',
+      as: 'cocreator',
+      params: { volumeId: DEMO_VOLUME_ID, entryId: moved },
+      body: { after: before[1] },
+    });
     expect(r.status).toBe(200);
     const rows1 = await snapshot();
     const changed = rows1.filter((x) => rows0.find((y) => y.id === x.id)!.position !== x.position);
@@ -62,16 +104,28 @@ describe('running order', () => {
     const after = await order(DEMO_VOLUME_ID);
     expect(after).toEqual([before[0], before[1], moved, ...before.slice(2).filter((id: string) => id !== moved)]);
     // before: to the very front
-    await callRoute(positionRoute.PUT, { method: 'PUT', as: 'owner', params: { volumeId: DEMO_VOLUME_ID, entryId: moved }, body: { before: after[0] } });
+    await callRoute(positionRoute.PUT, {
+      method: 'PUT',
+      as: 'owner',
+      params: { volumeId: DEMO_VOLUME_ID, entryId: moved },
+      body: { before: after[0] },
+    });
     expect((await order(DEMO_VOLUME_ID))[0]).toBe(moved);
-    expect((await callRoute(positionRoute.PUT, { method: 'PUT', as: 'owner', params: { volumeId: DEMO_VOLUME_ID, entryId: moved }, body: {} })).status).toBe(422);
+    expect(
+      (await callRoute(positionRoute.PUT, { method: 'PUT', as: 'owner', params: { volumeId: DEMO_VOLUME_ID, entryId: moved }, body: {} })).status,
+    ).toBe(422);
   });
 
   it('removing an entry frees its gag', async () => {
     const entries = (await callRoute(volumeRoute.GET, { as: 'viewer', params: { volumeId: DEMO_VOLUME_ID } })).body.entries;
     const sugar = entries.find((e: { gagId: string }) => e.gagId === 'demo-gag-07');
-    expect((await callRoute(entryRoute.DELETE, { method: 'DELETE', as: 'cocreator', params: { volumeId: DEMO_VOLUME_ID, entryId: sugar.id } })).status).toBe(204);
-    expect((await callRoute(entriesRoute.POST, { method: 'POST', as: 'cocreator', params: { volumeId: DEMO_VOLUME_ID }, body: { gagId: 'demo-gag-07' } })).status).toBe(201);
+    expect(
+      (await callRoute(entryRoute.DELETE, { method: 'DELETE', as: 'cocreator', params: { volumeId: DEMO_VOLUME_ID, entryId: sugar.id } })).status,
+    ).toBe(204);
+    expect(
+      (await callRoute(entriesRoute.POST, { method: 'POST', as: 'cocreator', params: { volumeId: DEMO_VOLUME_ID }, body: { gagId: 'demo-gag-07' } }))
+        .status,
+    ).toBe(201);
   });
 });
 

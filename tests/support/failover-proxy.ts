@@ -20,7 +20,13 @@ export async function startFailoverProxy(targets: () => string[], port?: number)
         }
         const target = new URL(list[i]!);
         const up = http.request(
-          { host: target.hostname, port: target.port, method: req.method, path: req.url, headers: { ...req.headers, host: `${target.hostname}:${target.port}` } },
+          {
+            host: target.hostname,
+            port: target.port,
+            method: req.method,
+            path: req.url,
+            headers: { ...req.headers, host: `${target.hostname}:${target.port}` },
+          },
           (upRes) => {
             res.writeHead(upRes.statusCode ?? 502, upRes.headers);
             upRes.pipe(res);

@@ -106,7 +106,13 @@ export type Deployment = {
  * A throwaway PostgreSQL with the demo data, an S3 fake, and `count` instances
  * of the build in `distDir`. `publicUrls[i]`, when given, is instance i's NEXTAUTH_URL.
  */
-export async function startDeployment(opts: { distDir: string; count: number; env?: Record<string, string>; publicUrls?: string[]; ports?: number[] }): Promise<Deployment> {
+export async function startDeployment(opts: {
+  distDir: string;
+  count: number;
+  env?: Record<string, string>;
+  publicUrls?: string[];
+  ports?: number[];
+}): Promise<Deployment> {
   const pg = await startPgCluster();
   const databaseUrl = await createDatabase(pg.adminUrl, 'quadrille_multi');
   seed(databaseUrl);
@@ -114,12 +120,25 @@ export async function startDeployment(opts: { distDir: string; count: number; en
   const s3Dir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-multi-s3-'));
   const { startFakeS3 } = await import('@/lib/storage/fake-s3');
   const s3 = await startFakeS3(s3Port, s3Dir, 'quadrille');
-  const env = { S3_ENDPOINT: `http://127.0.0.1:${s3Port}`, S3_BUCKET: 'quadrille', S3_ACCESS_KEY_ID: 'S3RVER', S3_SECRET_ACCESS_KEY: 'S3RVER', ...opts.env };
+  const env = {
+    S3_ENDPOINT: `http://127.0.0.1:${s3Port}`,
+    S3_BUCKET: 'quadrille',
+    S3_ACCESS_KEY_ID: 'S3RVER',
+    S3_SECRET_ACCESS_KEY: 'S3RVER',
+    ...opts.env,
+  };
   const instances: Instance[] = [];
   try {
     for (let i = 0; i < opts.count; i++) {
       instances.push(
-        await startInstance({ name: String.fromCharCode(65 + i), distDir: opts.distDir, databaseUrl, env, publicUrl: opts.publicUrls?.[i], port: opts.ports?.[i] }),
+        await startInstance({
+          name: String.fromCharCode(65 + i),
+          distDir: opts.distDir,
+          databaseUrl,
+          env,
+          publicUrl: opts.publicUrls?.[i],
+          port: opts.ports?.[i],
+        }),
       );
     }
   } catch (err) {

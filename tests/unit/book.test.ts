@@ -1,7 +1,18 @@
 import { describe, expect, it } from 'vitest';
 import {
-  BLEED_PRESETS, TRIM_PRESETS, blankSuggestion, blanksNeeded, inToMm, mmToIn, pageCountValid, pdfBoxes, pixelsAt,
-  printerSpreads, readerSpreads, sheetsNeeded, spineMm,
+  BLEED_PRESETS,
+  TRIM_PRESETS,
+  blankSuggestion,
+  blanksNeeded,
+  inToMm,
+  mmToIn,
+  pageCountValid,
+  pdfBoxes,
+  pixelsAt,
+  printerSpreads,
+  readerSpreads,
+  sheetsNeeded,
+  spineMm,
 } from '@/lib/print/book';
 import { mmToPt } from '@/lib/print/geometry';
 import { DEFAULT_HOURS, plan } from '@/lib/planning/plan';
@@ -67,11 +78,25 @@ describe('page counts', () => {
 
 describe('spreads', () => {
   it('reader spreads: page 1 alone on the right; mirrored right to left', () => {
-    expect(readerSpreads(6)).toEqual([[null, 1], [2, 3], [4, 5], [6, null]]);
-    expect(readerSpreads(5, 'rtl')).toEqual([[1, null], [3, 2], [5, 4]]);
+    expect(readerSpreads(6)).toEqual([
+      [null, 1],
+      [2, 3],
+      [4, 5],
+      [6, null],
+    ]);
+    expect(readerSpreads(5, 'rtl')).toEqual([
+      [1, null],
+      [3, 2],
+      [5, 4],
+    ]);
   });
   it('printer spreads for saddle stitch: pairs summing to n + 1, outer and inner alternating', () => {
-    expect(printerSpreads(8)).toEqual([[8, 1], [2, 7], [6, 3], [4, 5]]);
+    expect(printerSpreads(8)).toEqual([
+      [8, 1],
+      [2, 7],
+      [6, 3],
+      [4, 5],
+    ]);
     for (const [l, r] of printerSpreads(24)) expect(l! + r!).toBe(25);
     expect(printerSpreads(10)).toEqual([]);
   });
@@ -80,7 +105,13 @@ describe('spreads', () => {
 describe('planner', () => {
   it('hours left per stage, the finish date and the margin', () => {
     const gags = [{ status: 'idea' as const }, { status: 'ready_to_ink' as const }, { status: 'inked' as const }, { status: 'placed' as const }];
-    const p = plan({ gags, hoursPerPage: DEFAULT_HOURS, hoursPerWeek: 2, today: new Date('2027-01-04T00:00:00Z'), deadline: new Date('2027-03-13T00:00:00Z') });
+    const p = plan({
+      gags,
+      hoursPerPage: DEFAULT_HOURS,
+      hoursPerWeek: 2,
+      today: new Date('2027-01-04T00:00:00Z'),
+      deadline: new Date('2027-03-13T00:00:00Z'),
+    });
     // idea: 0.5 + 1.5 + 0.25; ready: 1.5 + 0.25; inked: 0.25 → 4.25 h
     expect(p.hoursByStage).toEqual({ thumbnails: 0.5, finish: 3, scan: 0.75 });
     expect(p.hoursLeft).toBeCloseTo(4.25, 10);
@@ -93,7 +124,13 @@ describe('planner', () => {
   });
   it('warns when the plan is late', () => {
     const gags = Array.from({ length: 40 }, () => ({ status: 'idea' as const }));
-    const p = plan({ gags, hoursPerPage: DEFAULT_HOURS, hoursPerWeek: 3, today: new Date('2027-02-01T00:00:00Z'), deadline: new Date('2027-03-13T00:00:00Z') });
+    const p = plan({
+      gags,
+      hoursPerPage: DEFAULT_HOURS,
+      hoursPerWeek: 3,
+      today: new Date('2027-02-01T00:00:00Z'),
+      deadline: new Date('2027-03-13T00:00:00Z'),
+    });
     expect(p.late).toBe(true);
     expect(p.marginDays).toBeLessThan(0);
   });

@@ -17,13 +17,28 @@ function straight(x0: number, y: number, length: number, width: number, tool: St
 describe('coverage grid', () => {
   it('a square covers its own area exactly', () => {
     const g = new CoverageGrid({ x: 0, y: 0, w: 10, h: 10 }, 100, 100);
-    g.fillPolygon([[2, 2], [6, 2], [6, 7], [2, 7]]);
+    g.fillPolygon([
+      [2, 2],
+      [6, 2],
+      [6, 7],
+      [2, 7],
+    ]);
     expect(g.coveredArea()).toBeCloseTo(20, 6);
   });
   it('overlapping marks count once (a union, not a sum)', () => {
     const g = new CoverageGrid({ x: 0, y: 0, w: 10, h: 10 }, 100, 100);
-    g.fillPolygon([[0, 0], [5, 0], [5, 5], [0, 5]]);
-    g.fillPolygon([[0, 0], [5, 0], [5, 5], [0, 5]]);
+    g.fillPolygon([
+      [0, 0],
+      [5, 0],
+      [5, 5],
+      [0, 5],
+    ]);
+    g.fillPolygon([
+      [0, 0],
+      [5, 0],
+      [5, 5],
+      [0, 5],
+    ]);
     expect(g.coverage()).toBeCloseTo(0.25, 6);
   });
 });

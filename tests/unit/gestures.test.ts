@@ -1,6 +1,15 @@
 // The editor's pointer gestures without a canvas: tool × pointer events → operations.
 import { describe, expect, it } from 'vitest';
-import { type Gesture, type PointerInput, type Scene, type Settings, nearestPanel, pointerDown, pointerMove, pointerUp } from '@/components/editor/gestures';
+import {
+  type Gesture,
+  type PointerInput,
+  type Scene,
+  type Settings,
+  nearestPanel,
+  pointerDown,
+  pointerMove,
+  pointerUp,
+} from '@/components/editor/gestures';
 import { DEFAULT_PAGE_SPEC, panelRects } from '@/lib/print/geometry';
 import type { Stroke } from '@/lib/strokes/types';
 
@@ -11,8 +20,27 @@ function scene(strokes: Stroke[] = [], selection: Stroke[] = []): Scene {
   let n = 0;
   return { spec, strokes: () => strokes, selection, eraserRadius: 2, newId: () => `id${++n}` };
 }
-const settings = (over: Partial<Settings> = {}): Settings => ({ tool: 'pen', canDraw: true, penOnly: false, penSize: 0.5, toneSize: 5, toneGrey: 40, roomShape: 'ellipse', ...over });
-const at = (x: number, y: number, over: Partial<PointerInput> = {}): PointerInput => ({ pointerId: 1, pointerType: 'pen', button: 0, x, y, sx: x * 4, sy: y * 4, pressure: 0.7, ...over });
+const settings = (over: Partial<Settings> = {}): Settings => ({
+  tool: 'pen',
+  canDraw: true,
+  penOnly: false,
+  penSize: 0.5,
+  toneSize: 5,
+  toneGrey: 40,
+  roomShape: 'ellipse',
+  ...over,
+});
+const at = (x: number, y: number, over: Partial<PointerInput> = {}): PointerInput => ({
+  pointerId: 1,
+  pointerType: 'pen',
+  button: 0,
+  x,
+  y,
+  sx: x * 4,
+  sy: y * 4,
+  pressure: 0.7,
+  ...over,
+});
 
 /** Runs down, moves and up through the machine; returns every effect in order and the last gesture. */
 function drag(s: Settings, sc: Scene, points: [number, number][], over: Partial<PointerInput> = {}) {
@@ -29,12 +57,27 @@ function drag(s: Settings, sc: Scene, points: [number, number][], over: Partial<
   return { effects, last, end: step.effects };
 }
 
-const line = (id: string, x0: number, y0: number, x1: number, y1: number, panel = 0): Stroke => ({ id, panel, tool: 'pen', grey: 100, size: 0.5, points: [[x0, y0, 0.5], [(x0 + x1) / 2, (y0 + y1) / 2, 0.5], [x1, y1, 0.5]] });
+const line = (id: string, x0: number, y0: number, x1: number, y1: number, panel = 0): Stroke => ({
+  id,
+  panel,
+  tool: 'pen',
+  grey: 100,
+  size: 0.5,
+  points: [
+    [x0, y0, 0.5],
+    [(x0 + x1) / 2, (y0 + y1) / 2, 0.5],
+    [x1, y1, 0.5],
+  ],
+});
 
 describe('pen and tone', () => {
   it('a pen drag in panel 2 adds one stroke there, with the pen width, drawn into its bitmap and undoable', () => {
     const p = panels[1]!;
-    const { end } = drag(settings(), scene(), [[p.x + 5, p.y + 5], [p.x + 10, p.y + 8], [p.x + 20, p.y + 20]]);
+    const { end } = drag(settings(), scene(), [
+      [p.x + 5, p.y + 5],
+      [p.x + 10, p.y + 8],
+      [p.x + 20, p.y + 20],
+    ]);
     expect(end.ops).toHaveLength(1);
     const op = end.ops![0]!;
     expect(op.op).toBe('add');
@@ -46,7 +89,15 @@ describe('pen and tone', () => {
   });
 
   it('the tone marker takes its grey and width; a mouse has no pressure (0.5)', () => {
-    const { end } = drag(settings({ tool: 'tone' }), scene(), [[20, 20], [30, 30]], { pointerType: 'mouse', pressure: 0 });
+    const { end } = drag(
+      settings({ tool: 'tone' }),
+      scene(),
+      [
+        [20, 20],
+        [30, 30],
+      ],
+      { pointerType: 'mouse', pressure: 0 },
+    );
     const op = end.ops![0]!;
     if (op.op !== 'add') throw new Error('expected an add');
     expect(op.stroke).toMatchObject({ tool: 'tone', grey: 40, size: 5 });
@@ -56,7 +107,10 @@ describe('pen and tone', () => {
   it('points are kept inside the bleed box; a start in the gutter goes to the nearest panel', () => {
     const gutterX = panels[0]!.x + panels[0]!.w + 1; // 1 mm into the gutter, nearer panel 1 (left)
     expect(nearestPanel(spec, gutterX, 20)).toBe(0);
-    const { end } = drag(settings(), scene(), [[gutterX, 20], [400, -50]]);
+    const { end } = drag(settings(), scene(), [
+      [gutterX, 20],
+      [400, -50],
+    ]);
     const op = end.ops![0]!;
     if (op.op !== 'add') throw new Error('expected an add');
     expect(op.stroke.panel).toBe(0);
@@ -67,7 +121,14 @@ describe('pen and tone', () => {
 
   it('coalesced samples all land in the stroke', () => {
     let step = pointerDown(settings(), scene(), at(20, 20));
-    step = pointerMove(step.gesture, scene(), { ...at(23, 23), samples: [{ x: 21, y: 21, pressure: 0.2 }, { x: 22, y: 22, pressure: 0.3 }, { x: 23, y: 23, pressure: 0.4 }] });
+    step = pointerMove(step.gesture, scene(), {
+      ...at(23, 23),
+      samples: [
+        { x: 21, y: 21, pressure: 0.2 },
+        { x: 22, y: 22, pressure: 0.3 },
+        { x: 23, y: 23, pressure: 0.4 },
+      ],
+    });
     expect((step.gesture as Extract<Gesture, { kind: 'draw' }>).points.map((p) => p[2])).toEqual([0.7, 0.2, 0.3, 0.4]);
   });
 
@@ -84,7 +145,10 @@ describe('pen and tone', () => {
   });
 
   it('a viewer (cannot draw) pans instead, by the screen distance moved', () => {
-    const { effects } = drag(settings({ canDraw: false }), scene(), [[20, 20], [25, 22]]);
+    const { effects } = drag(settings({ canDraw: false }), scene(), [
+      [20, 20],
+      [25, 22],
+    ]);
     expect(effects[1]!.panBy).toEqual({ dx: 20, dy: 8 });
     expect(effects.some((e) => e.ops)).toBe(false);
   });
@@ -95,9 +159,17 @@ describe('eraser', () => {
     const a = line('a', 20, 20, 40, 20);
     const b = line('b', 20, 30, 40, 30);
     const far = line('far', 20, 60, 40, 60);
-    const { effects, end } = drag(settings({ tool: 'eraser' }), scene([a, b, far]), [[30, 19], [30, 25], [30, 31], [30, 31]]);
+    const { effects, end } = drag(settings({ tool: 'eraser' }), scene([a, b, far]), [
+      [30, 19],
+      [30, 25],
+      [30, 31],
+      [30, 31],
+    ]);
     const removed = effects.flatMap((e) => e.ops ?? []);
-    expect(removed).toEqual([{ op: 'remove', strokeId: 'a' }, { op: 'remove', strokeId: 'b' }]);
+    expect(removed).toEqual([
+      { op: 'remove', strokeId: 'a' },
+      { op: 'remove', strokeId: 'b' },
+    ]);
     const back = end.undo!.undo();
     expect(back.map((o) => o.op)).toEqual(['add', 'add']);
   });
@@ -107,14 +179,23 @@ describe('lasso', () => {
   it('selects the strokes inside the loop', () => {
     const inside = line('in', 22, 22, 28, 28);
     const outside = line('out', 50, 50, 60, 60);
-    const { effects, end } = drag(settings({ tool: 'lasso' }), scene([inside, outside]), [[15, 15], [35, 15], [35, 35], [15, 35]]);
+    const { effects, end } = drag(settings({ tool: 'lasso' }), scene([inside, outside]), [
+      [15, 15],
+      [35, 15],
+      [35, 35],
+      [15, 35],
+    ]);
     expect(effects[0]!.select).toEqual([]);
     expect(end.select).toEqual(['in']);
   });
 
   it('dragging inside the selection moves it, clamped to the bleed box, as one undoable move', () => {
     const s = line('s', 20, 20, 30, 20);
-    const { end } = drag(settings({ tool: 'lasso' }), scene([s], [s]), [[25, 20], [25, 10], [25, -100]]);
+    const { end } = drag(settings({ tool: 'lasso' }), scene([s], [s]), [
+      [25, 20],
+      [25, 10],
+      [25, -100],
+    ]);
     const dyMax = -spec.bleed - (20 - 0.25); // up to the bleed edge, less half the width
     expect(end.ops).toEqual([{ op: 'move', strokeIds: ['s'], dx: 0, dy: Math.round(dyMax * 100) / 100 }]);
     expect(end.undo!.undo()).toEqual([{ op: 'move', strokeIds: ['s'], dx: -0, dy: -Math.round(dyMax * 100) / 100 }]);
@@ -124,10 +205,18 @@ describe('lasso', () => {
 describe('balloon rooms, pins, lightbox', () => {
   it('a room is drawn inside its panel with the chosen shape; a tiny one is dropped', () => {
     const p = panels[2]!;
-    const { end } = drag(settings({ tool: 'room', roomShape: 'rect' }), scene(), [[p.x + 2, p.y + 2], [p.x + 30, p.y + 20]]);
+    const { end } = drag(settings({ tool: 'room', roomShape: 'rect' }), scene(), [
+      [p.x + 2, p.y + 2],
+      [p.x + 30, p.y + 20],
+    ]);
     expect(end.ops).toEqual([{ op: 'room', room: { id: 'id1', panel: 2, shape: 'rect', x: p.x + 2, y: p.y + 2, w: 28, h: 18 } }]);
     expect(end.selectRoom).toBe('id1');
-    expect(drag(settings({ tool: 'room' }), scene(), [[p.x + 2, p.y + 2], [p.x + 3, p.y + 3]]).end).toEqual({});
+    expect(
+      drag(settings({ tool: 'room' }), scene(), [
+        [p.x + 2, p.y + 2],
+        [p.x + 3, p.y + 3],
+      ]).end,
+    ).toEqual({});
   });
 
   it('pressing on an existing room or lightbox leaves it to its handles', () => {
@@ -138,6 +227,10 @@ describe('balloon rooms, pins, lightbox', () => {
 
   it('the pin tool places a point pin in the nearest panel, to 0.1 mm', () => {
     const p = panels[3]!;
-    expect(pointerDown(settings({ tool: 'pin' }), scene(), at(p.x + 10.04, p.y + 3.06)).effects.pin).toEqual({ panel: 3, x: Math.round((p.x + 10.04) * 10) / 10, y: Math.round((p.y + 3.06) * 10) / 10 });
+    expect(pointerDown(settings({ tool: 'pin' }), scene(), at(p.x + 10.04, p.y + 3.06)).effects.pin).toEqual({
+      panel: 3,
+      x: Math.round((p.x + 10.04) * 10) / 10,
+      y: Math.round((p.y + 3.06) * 10) / 10,
+    });
   });
 });

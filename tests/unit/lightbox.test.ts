@@ -9,7 +9,17 @@ import { applyDelta, applyOp, docFrom, emptyDoc } from '@/lib/strokes/pass-model
 import type { Lightbox, Op } from '@/lib/strokes/types';
 
 const lb = (patch: Partial<Lightbox> = {}): Lightbox => ({
-  id: 'l1', uploadId: 'u1', panel: 1, x: 80, y: 10, w: 60, h: 40, rotation: 0, opacity: 0.5, visible: true, ...patch,
+  id: 'l1',
+  uploadId: 'u1',
+  panel: 1,
+  x: 80,
+  y: 10,
+  w: 60,
+  h: 40,
+  rotation: 0,
+  opacity: 0.5,
+  visible: true,
+  ...patch,
 });
 
 describe('print check (ppi)', () => {
@@ -52,19 +62,30 @@ describe('lightbox geometry', () => {
 
   it('four quarter turns come back to the start, each keeping the centre and swapping the sides', () => {
     fc.assert(
-      fc.property(fc.double({ min: 0, max: 200, noNaN: true }), fc.double({ min: 0, max: 200, noNaN: true }), fc.double({ min: 1, max: 150, noNaN: true }), fc.double({ min: 1, max: 150, noNaN: true }), (x, y, w, h) => {
-        const start = lb({ x: Math.round(x * 100) / 100, y: Math.round(y * 100) / 100, w: Math.round(w * 100) / 100, h: Math.round(h * 100) / 100 });
-        const once = turnQuarter(start);
-        expect(once.rotation).toBe(90);
-        expect([once.w, once.h]).toEqual([start.h, start.w]);
-        expect(once.x + once.w / 2).toBeCloseTo(start.x + start.w / 2, 1);
-        expect(once.y + once.h / 2).toBeCloseTo(start.y + start.h / 2, 1);
-        expect(unrotatedSize(once)).toEqual({ w: start.w, h: start.h });
-        const back = turnQuarter(turnQuarter(turnQuarter(once)));
-        expect(back.rotation).toBe(0);
-        expect(Math.abs(back.x - start.x)).toBeLessThan(0.05);
-        expect(Math.abs(back.y - start.y)).toBeLessThan(0.05);
-      }),
+      fc.property(
+        fc.double({ min: 0, max: 200, noNaN: true }),
+        fc.double({ min: 0, max: 200, noNaN: true }),
+        fc.double({ min: 1, max: 150, noNaN: true }),
+        fc.double({ min: 1, max: 150, noNaN: true }),
+        (x, y, w, h) => {
+          const start = lb({
+            x: Math.round(x * 100) / 100,
+            y: Math.round(y * 100) / 100,
+            w: Math.round(w * 100) / 100,
+            h: Math.round(h * 100) / 100,
+          });
+          const once = turnQuarter(start);
+          expect(once.rotation).toBe(90);
+          expect([once.w, once.h]).toEqual([start.h, start.w]);
+          expect(once.x + once.w / 2).toBeCloseTo(start.x + start.w / 2, 1);
+          expect(once.y + once.h / 2).toBeCloseTo(start.y + start.h / 2, 1);
+          expect(unrotatedSize(once)).toEqual({ w: start.w, h: start.h });
+          const back = turnQuarter(turnQuarter(turnQuarter(once)));
+          expect(back.rotation).toBe(0);
+          expect(Math.abs(back.x - start.x)).toBeLessThan(0.05);
+          expect(Math.abs(back.y - start.y)).toBeLessThan(0.05);
+        },
+      ),
     );
   });
 

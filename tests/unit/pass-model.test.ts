@@ -3,7 +3,17 @@ import { Outbox } from '@/lib/strokes/outbox';
 import { applyDelta, applyOp, docFrom, emptyDoc } from '@/lib/strokes/pass-model';
 import type { Op, Stroke } from '@/lib/strokes/types';
 
-const s = (id: string, panel = 0, x = 10): Stroke => ({ id, panel, tool: 'pen', grey: 100, size: 1, points: [[x, 10, 0.5], [x + 5, 12, 0.5]] });
+const s = (id: string, panel = 0, x = 10): Stroke => ({
+  id,
+  panel,
+  tool: 'pen',
+  grey: 100,
+  size: 1,
+  points: [
+    [x, 10, 0.5],
+    [x + 5, 12, 0.5],
+  ],
+});
 
 describe('pass model', () => {
   it('operations on different ids commute', () => {
@@ -41,7 +51,13 @@ describe('pass model', () => {
     applyOp(doc, localAdd);
     // Someone else removed b; the server also re-sends a (say its grey changed by a restore).
     applyDelta(doc, { strokes: [{ ...s('a'), grey: 40 }], removedStrokes: ['b'], rooms: [], removedRooms: [] }, [localMove, localAdd]);
-    expect(doc.strokes.get('a')).toMatchObject({ grey: 40, points: [[15, 10, 0.5], [20, 12, 0.5]] });
+    expect(doc.strokes.get('a')).toMatchObject({
+      grey: 40,
+      points: [
+        [15, 10, 0.5],
+        [20, 12, 0.5],
+      ],
+    });
     expect(doc.strokes.has('b')).toBe(false);
     expect(doc.strokes.has('mine')).toBe(true);
   });
@@ -82,7 +98,14 @@ describe('outbox', () => {
   });
 
   it('sends batches oldest first', () => {
-    const box = new Outbox(new MemoryStore(), 'k', (() => { let i = 0; return () => `b${++i}`; })());
+    const box = new Outbox(
+      new MemoryStore(),
+      'k',
+      (() => {
+        let i = 0;
+        return () => `b${++i}`;
+      })(),
+    );
     box.push({ op: 'remove', strokeId: 'x' });
     box.seal();
     box.push({ op: 'remove', strokeId: 'y' });

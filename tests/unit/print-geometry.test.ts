@@ -1,15 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-  DEFAULT_PAGE_SPEC,
-  bleedBox,
-  mmToPt,
-  mmToPx,
-  panelAt,
-  panelRects,
-  ptToMm,
-  pxToMm,
-  safeBox,
-} from '@/lib/print/geometry';
+import { DEFAULT_PAGE_SPEC, bleedBox, mmToPt, mmToPx, panelAt, panelRects, ptToMm, pxToMm, safeBox } from '@/lib/print/geometry';
 import { fitView, toPage, toScreen, zoomAt } from '@/lib/print/view';
 
 describe('the default page (150 mm square trim, 3 mm bleed, 5 mm safe, 4 mm gutter)', () => {

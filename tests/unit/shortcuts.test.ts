@@ -61,7 +61,11 @@ describe('selection helpers', () => {
     const [c] = copiesInPanel([s], panels, 3, () => 'b');
     expect(c!.id).toBe('b');
     expect(c!.panel).toBe(3);
-    expect(c!.points[0]).toEqual([Math.round((10 + panels[3]!.x - panels[0]!.x) * 100) / 100, Math.round((12 + panels[3]!.y - panels[0]!.y) * 100) / 100, 0.5]);
+    expect(c!.points[0]).toEqual([
+      Math.round((10 + panels[3]!.x - panels[0]!.x) * 100) / 100,
+      Math.round((12 + panels[3]!.y - panels[0]!.y) * 100) / 100,
+      0.5,
+    ]);
   });
   it('a room resized past its panel is kept inside it, at least 2 mm', () => {
     const p = panels[1]!;

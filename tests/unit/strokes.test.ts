@@ -51,37 +51,63 @@ describe('point codec', () => {
 describe('simplification', () => {
   it('keeps exactly the points simplify-js (Douglas–Peucker, highQuality) keeps', () => {
     fc.assert(
-      fc.property(
-        fc.array(pointArb, { minLength: 2, maxLength: 200 }),
-        fc.double({ min: 0.01, max: 3, noNaN: true }),
-        (pts, tol) => {
-          const ours = simplifyPoints(pts as Point[], tol);
-          const ref = simplify(pts.map(([x, y]) => ({ x, y })), tol, true);
-          expect(ours.map(([x, y]) => ({ x, y }))).toEqual(ref);
-        },
-      ),
+      fc.property(fc.array(pointArb, { minLength: 2, maxLength: 200 }), fc.double({ min: 0.01, max: 3, noNaN: true }), (pts, tol) => {
+        const ours = simplifyPoints(pts as Point[], tol);
+        const ref = simplify(
+          pts.map(([x, y]) => ({ x, y })),
+          tol,
+          true,
+        );
+        expect(ours.map(([x, y]) => ({ x, y }))).toEqual(ref);
+      }),
       { numRuns: 300 },
     );
   });
   it('drops collinear points and keeps pressure with its point', () => {
-    const pts: Point[] = [[0, 0, 0.1], [1, 0, 0.2], [2, 0, 0.3], [3, 1, 0.9]];
-    expect(simplifyPoints(pts, 0.1)).toEqual([[0, 0, 0.1], [2, 0, 0.3], [3, 1, 0.9]]);
+    const pts: Point[] = [
+      [0, 0, 0.1],
+      [1, 0, 0.2],
+      [2, 0, 0.3],
+      [3, 1, 0.9],
+    ];
+    expect(simplifyPoints(pts, 0.1)).toEqual([
+      [0, 0, 0.1],
+      [2, 0, 0.3],
+      [3, 1, 0.9],
+    ]);
   });
 });
 
 describe('hit tests', () => {
-  const line: Point[] = [[10, 10, 0.5], [20, 10, 0.5]];
+  const line: Point[] = [
+    [10, 10, 0.5],
+    [20, 10, 0.5],
+  ];
   it('an eraser touches a stroke within its radius plus half the stroke width', () => {
     expect(strokeTouches(line, 1, 15, 11.4, 1)).toBe(true); // 1.4 ≤ 1 + 0.5
     expect(strokeTouches(line, 1, 15, 11.6, 1)).toBe(false);
     expect(strokeTouches(line, 1, 21.4, 10, 1)).toBe(true); // beyond the end, by the cap
   });
   it('point in polygon, and a lasso takes strokes mostly inside', () => {
-    const sq: [number, number][] = [[0, 0], [30, 0], [30, 30], [0, 30]];
+    const sq: [number, number][] = [
+      [0, 0],
+      [30, 0],
+      [30, 30],
+      [0, 30],
+    ];
     expect(pointInPolygon(15, 15, sq)).toBe(true);
     expect(pointInPolygon(35, 15, sq)).toBe(false);
     expect(strokeInLasso(line, sq)).toBe(true);
-    expect(strokeInLasso([[25, 10, 1], [40, 10, 1], [45, 10, 1]], sq)).toBe(false);
+    expect(
+      strokeInLasso(
+        [
+          [25, 10, 1],
+          [40, 10, 1],
+          [45, 10, 1],
+        ],
+        sq,
+      ),
+    ).toBe(false);
   });
   it('bounds', () => {
     expect(pointsBounds(line, 0.5)).toEqual({ x: 9.5, y: 9.5, w: 11, h: 1 });
@@ -89,7 +115,15 @@ describe('hit tests', () => {
 });
 
 describe('outlines and SVG', () => {
-  const stroke = { tool: 'pen' as const, size: 1.2, points: [[10, 10, 0.5], [15, 12, 0.6], [20, 10, 0.5]] as Point[] };
+  const stroke = {
+    tool: 'pen' as const,
+    size: 1.2,
+    points: [
+      [10, 10, 0.5],
+      [15, 12, 0.6],
+      [20, 10, 0.5],
+    ] as Point[],
+  };
   it('an outline surrounds the centre line', () => {
     const poly = outlineOf(stroke);
     expect(poly.length).toBeGreaterThan(8);

@@ -18,7 +18,12 @@ describe('gag input', () => {
   it('beats: known kinds, each once', () => {
     expect(updateGagSchema.safeParse({ beats: [{ kind: 'punchline', note: 'x' }] }).success).toBe(false);
     expect(
-      updateGagSchema.safeParse({ beats: [{ kind: 'turn', note: 'a' }, { kind: 'turn', note: 'b' }] }).success,
+      updateGagSchema.safeParse({
+        beats: [
+          { kind: 'turn', note: 'a' },
+          { kind: 'turn', note: 'b' },
+        ],
+      }).success,
     ).toBe(false);
     expect(updateGagSchema.safeParse({ beats: [{ kind: 'turn', note: 'The wave.' }] }).success).toBe(true);
   });
@@ -29,9 +34,7 @@ describe('gag input', () => {
 
 describe('sign-up input', () => {
   it('lower-cases the e-mail and asks for 10 characters', () => {
-    expect(signUpSchema.parse({ name: 'Kettle', email: ' Kettle@Pier.TEST ', password: '0123456789' }).email).toBe(
-      'kettle@pier.test',
-    );
+    expect(signUpSchema.parse({ name: 'Kettle', email: ' Kettle@Pier.TEST ', password: '0123456789' }).email).toBe('kettle@pier.test');
     expect(signUpSchema.safeParse({ name: 'Kettle', email: 'kettle@pier.test', password: 'short' }).success).toBe(false);
     expect(signUpSchema.safeParse({ name: 'Kettle', email: 'not-an-address', password: '0123456789' }).success).toBe(false);
   });

@@ -10,6 +10,10 @@ export const GET = withUser(async ({ db, user }) => {
 /** `{ notifyEmail: boolean }` turns mention and stamp e-mails on or off. */
 export const PATCH = withUser(async ({ req, db, user }) => {
   const { notifyEmail } = await parseBody(req, meSchema);
-  await db.updateTable('users').set({ notifyEmail: notifyEmail ? 1 : 0 }).where('id', '=', user.id).execute();
+  await db
+    .updateTable('users')
+    .set({ notifyEmail: notifyEmail ? 1 : 0 })
+    .where('id', '=', user.id)
+    .execute();
   return Response.json({ id: user.id, notifyEmail });
 });

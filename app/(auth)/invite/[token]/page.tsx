@@ -21,5 +21,14 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
       ? 'This invitation has expired. Ask the owner for a new one.'
       : null;
   const user = await currentUser();
-  return <AcceptInvitation token={token} signedIn={!!user} seriesTitle={inv.seriesTitle} role={ROLE_LABELS[inv.role].toLowerCase()} invitedBy={inv.invitedBy} problem={problem} />;
+  return (
+    <AcceptInvitation
+      token={token}
+      signedIn={!!user}
+      seriesTitle={inv.seriesTitle}
+      role={ROLE_LABELS[inv.role].toLowerCase()}
+      invitedBy={inv.invitedBy}
+      problem={problem}
+    />
+  );
 }

@@ -9,9 +9,7 @@ import { gagChanged } from '@/lib/live/events';
 type Params = { gagId: string };
 const seriesOf = byGagId;
 
-export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) =>
-  Response.json(await findGag(db, params.gagId)),
-);
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => Response.json(await findGag(db, params.gagId)));
 
 /** Any of title, premise, status, beats. Status moves follow lib/gags/status. */
 export const PATCH = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, seriesId }) => {

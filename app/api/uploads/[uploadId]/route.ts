@@ -20,10 +20,7 @@ export const DELETE = withSeriesRole<Params>('edit', seriesOf, async ({ req, db,
     const using = await passesUsingUpload(db, params.uploadId);
     if (using.length) {
       const names = using.map((u) => `pass ${u.passNumber} of “${u.gagTitle}”`).join(', ');
-      return Response.json(
-        { error: `This upload is the lightbox of ${names}. Delete it anyway?`, usedBy: using },
-        { status: 409 },
-      );
+      return Response.json({ error: `This upload is the lightbox of ${names}. Delete it anyway?`, usedBy: using }, { status: 409 });
     }
   }
   await deleteUpload(db, params.uploadId);

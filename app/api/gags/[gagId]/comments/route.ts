@@ -19,6 +19,7 @@ export const POST = withSeriesRole<Params>('comment', seriesOf, async ({ req, db
   await gagChanged(seriesId, params.gagId, ['comments'], ['activity']);
   const gag = await findGag(db, params.gagId);
   const mentioned = await mentionedMembers(db, seriesId, input.body);
-  if (gag && mentioned.length) await notifyMentions(db, { userIds: mentioned, author: user, gag: { id: gag.id, seriesId, title: gag.title }, body: input.body });
+  if (gag && mentioned.length)
+    await notifyMentions(db, { userIds: mentioned, author: user, gag: { id: gag.id, seriesId, title: gag.title }, body: input.body });
   return Response.json({ ...comment, mentioned }, { status: 201 });
 });

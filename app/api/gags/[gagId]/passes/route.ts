@@ -7,9 +7,7 @@ import { gagChanged } from '@/lib/live/events';
 type Params = { gagId: string };
 const seriesOf = byGagId;
 
-export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) =>
-  Response.json(await listPasses(db, params.gagId)),
-);
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => Response.json(await listPasses(db, params.gagId)));
 
 /** A new pass, blank or as a copy of an earlier one: `{ copyFrom?: passNumber }`. */
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, user, seriesId }) => {

@@ -23,7 +23,13 @@ export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, p
     const missing = wanted.find((id) => !known.has(id));
     if (missing) throw new Refused(422, `There is no upload ${missing} in this series to place as a lightbox.`);
   }
-  const { seq, replayed, stampCleared } = await applyBatch(db, { passId: params.passId, batchId: batch.batchId, ops: batch.ops as Op[], userId: user.id, spec });
+  const { seq, replayed, stampCleared } = await applyBatch(db, {
+    passId: params.passId,
+    batchId: batch.batchId,
+    ops: batch.ops as Op[],
+    userId: user.id,
+    spec,
+  });
   if (!replayed) {
     const gagId = (await passWithGag(db, params.passId))!.gagId;
     await passChanged({ seriesId, gagId, passId: params.passId, seq, stampCleared });

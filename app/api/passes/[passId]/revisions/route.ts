@@ -5,6 +5,4 @@ import { byPassId } from '@/lib/http/series-of';
 type Params = { passId: string };
 const seriesOf = byPassId;
 
-export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) =>
-  Response.json(await listRevisions(db, params.passId)),
-);
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => Response.json(await listRevisions(db, params.passId)));

@@ -11,7 +11,10 @@ const seriesOf = byPassId;
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params, seriesId }) => {
   const state = await passState(db, params.passId);
   if (!state) return new Response(null, { status: 404 });
-  const svg = passToSvg(await pageSpecForPass(db, seriesId, params.passId), state.strokes, state.rooms, { bleed: false, title: `Pass ${state.number}` });
+  const svg = passToSvg(await pageSpecForPass(db, seriesId, params.passId), state.strokes, state.rooms, {
+    bleed: false,
+    title: `Pass ${state.number}`,
+  });
   return new Response(svg, {
     headers: { 'content-type': 'image/svg+xml; charset=utf-8', 'cache-control': 'private, max-age=0, must-revalidate' },
   });

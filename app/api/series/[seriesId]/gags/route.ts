@@ -8,9 +8,7 @@ import { seriesChanged } from '@/lib/live/events';
 type Params = { seriesId: string };
 const seriesOf = bySeriesId;
 
-export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) =>
-  Response.json(await listGags(db, seriesId)),
-);
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await listGags(db, seriesId)));
 
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, seriesId, user }) => {
   const input = await parseBody(req, createGagSchema);

@@ -22,7 +22,16 @@ export const POST = withSeriesRole<Params>('manage', seriesOf, async ({ req, db,
     db,
     input.email,
     'invitation',
-    invitationMail({ seriesTitle: series!.title, inviter: user.name, role: input.role, link: `${appUrl()}/invite/${inv.token}`, expiresAt: inv.expiresAt }),
+    invitationMail({
+      seriesTitle: series!.title,
+      inviter: user.name,
+      role: input.role,
+      link: `${appUrl()}/invite/${inv.token}`,
+      expiresAt: inv.expiresAt,
+    }),
   );
-  return Response.json({ id: inv.id, email: input.email, role: input.role, expiresAt: inv.expiresAt.toISOString(), mailed: sent.ok }, { status: 201 });
+  return Response.json(
+    { id: inv.id, email: input.email, role: input.role, expiresAt: inv.expiresAt.toISOString(), mailed: sent.ok },
+    { status: 201 },
+  );
 });

@@ -34,7 +34,15 @@ export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, s
   await putObject(keys.previewKey, prepared.preview, 'image/webp');
   const name = (file instanceof File ? file.name : 'upload').slice(0, 200);
   const row = await insertUpload(db, {
-    seriesId, sha256: prepared.sha256, name, mime: prepared.mime, bytes: prepared.bytes, width: prepared.width, height: prepared.height, ...keys, createdBy: user.id,
+    seriesId,
+    sha256: prepared.sha256,
+    name,
+    mime: prepared.mime,
+    bytes: prepared.bytes,
+    width: prepared.width,
+    height: prepared.height,
+    ...keys,
+    createdBy: user.id,
   });
   return Response.json(row, { status: 201 });
 });

@@ -9,7 +9,14 @@ const seriesOf = byUploadId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
   const keys = await uploadKeys(db, params.uploadId);
-  const key = params.variant === 'original' ? keys?.originalKey : params.variant === 'working' ? keys?.workingKey : params.variant === 'preview' ? keys?.previewKey : undefined;
+  const key =
+    params.variant === 'original'
+      ? keys?.originalKey
+      : params.variant === 'working'
+        ? keys?.workingKey
+        : params.variant === 'preview'
+          ? keys?.previewKey
+          : undefined;
   if (!keys || !key) return jsonError(404, 'Not found: the variants are original, working and preview.');
   const obj = await getObject(key);
   if (!obj) return jsonError(404, 'Not found.');

@@ -7,5 +7,10 @@ const seriesOf = byVolumeId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
   const volume = (await findVolume(db, params.volumeId))!;
-  return Response.json({ deadline: volume.deadline, hoursPerWeek: volume.hoursPerWeek, hoursPerPage: volume.hoursPerPage, ...planOf(volume, await listEntries(db, params.volumeId)) });
+  return Response.json({
+    deadline: volume.deadline,
+    hoursPerWeek: volume.hoursPerWeek,
+    hoursPerPage: volume.hoursPerPage,
+    ...planOf(volume, await listEntries(db, params.volumeId)),
+  });
 });

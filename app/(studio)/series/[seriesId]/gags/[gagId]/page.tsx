@@ -19,7 +19,13 @@ export default async function GagPage({ params }: { params: Promise<{ seriesId: 
         <GagDetail key={gag.id} seriesId={series.id} seriesTitle={series.title} role={role} initial={gag} />
         <PassStrip seriesId={series.id} gagId={gag.id} passes={passes} beats={gag.beats} canEdit={can(role, 'edit')} />
         <UploadsPanel seriesId={series.id} canUpload={can(role, 'edit')} />
-        <ReviewSection seriesId={series.id} gagId={gag.id} role={role} meId={user.id} passes={passes.map((p) => ({ id: p.id, number: p.number, seq: p.seq }))} />
+        <ReviewSection
+          seriesId={series.id}
+          gagId={gag.id}
+          role={role}
+          meId={user.id}
+          passes={passes.map((p) => ({ id: p.id, number: p.number, seq: p.seq }))}
+        />
       </div>
     </LiveProvider>
   );

@@ -9,5 +9,7 @@ const seriesOf = byVolumeId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
   const csv = runningOrderCsv(await listEntries(db, params.volumeId), PRINTER_NOTE);
-  return new Response(csv, { headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': 'attachment; filename="running-order.csv"' } });
+  return new Response(csv, {
+    headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': 'attachment; filename="running-order.csv"' },
+  });
 });

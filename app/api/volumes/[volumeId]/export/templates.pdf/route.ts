@@ -15,7 +15,10 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, pa
   if (!(paper in PAPERS)) return jsonError(422, '"paper" is A4 or A3.');
   const { volume, entries } = await volumePages(db, params.volumeId);
   if (!templateFits(volume.spec, scalePct / 100, paper)) {
-    return jsonError(422, `At ${scalePct}% the page (${volume.spec.trimW} × ${volume.spec.trimH} mm plus bleed) does not fit on ${paper}: choose a smaller scale or a larger paper.`);
+    return jsonError(
+      422,
+      `At ${scalePct}% the page (${volume.spec.trimW} × ${volume.spec.trimH} mm plus bleed) does not fit on ${paper}: choose a smaller scale or a larger paper.`,
+    );
   }
   const bytes = await templatesPdf(volume.spec, volume.title, await gagNotes(db, entries), scalePct / 100, paper);
   return new Response(Buffer.from(bytes), {

@@ -12,7 +12,14 @@ export default async function ComparePage({ params }: { params: Promise<{ series
   const { spec, passes } = await loadPassThumbnails(series.id, gag.id);
   return (
     <LiveProvider url={`/api/gags/${gag.id}/events`} gagId={gag.id} where="compare">
-      <CompareView seriesId={series.id} gagId={gag.id} gagTitle={gag.title} meId={user.id} spec={spec} passes={passes.map((p) => ({ id: p.id, number: p.number, svg: p.svg }))} />
+      <CompareView
+        seriesId={series.id}
+        gagId={gag.id}
+        gagTitle={gag.title}
+        meId={user.id}
+        spec={spec}
+        passes={passes.map((p) => ({ id: p.id, number: p.number, svg: p.svg }))}
+      />
     </LiveProvider>
   );
 }
