@@ -5,7 +5,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import SqliteDatabase from 'better-sqlite3';
-import { CamelCasePlugin, CompiledQuery, type DatabaseConnection, Kysely, Migrator, PostgresDialect, SqliteDialect, SqliteDriver } from 'kysely';
+import { CamelCasePlugin, CompiledQuery, sql, type DatabaseConnection, Kysely, Migrator, PostgresDialect, SqliteDialect, SqliteDriver } from 'kysely';
 import pg from 'pg';
 import type { Database } from './database';
 import { type DbKind, kindOf, markAdapter } from './dialect';
@@ -83,6 +83,11 @@ export function createDb(url = process.env.DATABASE_URL || DEFAULT_DATABASE_URL)
     ? new MarkedPostgresDialect({ pool: createPgPool(url) })
     : new ImmediateSqliteDialect({ database: openSqlite(sqlitePathFromUrl(url)) });
   return new Kysely<Database>({ dialect, plugins: [new CamelCasePlugin()] });
+}
+
+/** One round trip to the database: for health checks. */
+export async function ping(db: Kysely<Database>): Promise<void> {
+  await sql`select 1`.execute(db);
 }
 
 export async function migrateToLatest(db: Kysely<any>): Promise<string[]> {

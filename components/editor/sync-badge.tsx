@@ -1,4 +1,5 @@
 import { Check, CloudOff, Eye, Loader2, OctagonX } from 'lucide-react';
+import { SAVED_WORDS } from '@/components/ui/save-words';
 import type { SyncStatus } from './pass-sync';
 
 export function SyncBadge({ status, readOnly }: { status: SyncStatus; readOnly: boolean }) {
@@ -13,7 +14,7 @@ export function SyncBadge({ status, readOnly }: { status: SyncStatus; readOnly: 
   const { state, waiting, message } = status;
   const text =
     state === 'saved'
-      ? 'Saved'
+      ? SAVED_WORDS
       : state === 'saving'
         ? `Saving… ${ops(waiting)}`
         : state === 'offline'

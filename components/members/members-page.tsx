@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import type { MemberDto } from '@/db/queries/members';
 import { useMembers } from '@/hooks/use-review';
-import { ROLES, ROLE_LABELS, type Role } from '@/lib/auth/permissions';
+import { ROLES, ROLE_HINT, ROLE_LABELS, type Role } from '@/lib/auth/permissions';
 import { api, fetcher, messageOf } from '@/lib/http/client';
 import { inviteSchema } from '@/lib/validation/members';
 
@@ -53,6 +53,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
         </p>
       )}
       <section className="panel overflow-x-auto">
+        {canManage && <p className="px-3 pt-3 text-sm text-graphite-soft">{ROLE_HINT}</p>}
         <table className="w-full min-w-[560px] text-left text-sm">
           <thead className="border-b border-paper-edge bg-paper-deep/60">
             <tr>
@@ -138,6 +139,9 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
               Send invitation
             </Button>
           </form>
+          <p className="text-sm text-graphite-soft" id="role-hint">
+            {ROLE_HINT}
+          </p>
           <p className="text-xs text-graphite-faint">The link works once and for 7 days.</p>
           {(invitations.data ?? []).length > 0 && (
             <ul className="space-y-1 text-sm">

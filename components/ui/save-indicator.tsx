@@ -1,8 +1,9 @@
 import { Check, CloudOff, Loader2, PencilLine } from 'lucide-react';
 import type { SaveState } from '@/hooks/use-autosave';
+import { SAVED_WORDS } from './save-words';
 
 const TEXT: Record<SaveState, string> = {
-  saved: 'All changes saved',
+  saved: SAVED_WORDS,
   pending: 'Unsaved changes…',
   saving: 'Saving…',
   error: 'Not saved',

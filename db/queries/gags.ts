@@ -1,7 +1,8 @@
 // Gags with their four beats. Every write that touches a beat also bumps the
 // gag's updatedAt, so "last change" on the board means any change.
 import type { Kysely, Transaction } from 'kysely';
-import { BEAT_KINDS, type BeatKind, type GagStatus } from '@/lib/gags/status';
+import { BEAT_KINDS, type BeatKind, type GagStatus, checkManualMove } from '@/lib/gags/status';
+import { Refused } from '@/lib/refused';
 import type { Database } from '../database';
 import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
@@ -168,6 +169,37 @@ export async function updateGag(
     .execute();
 }
 
+export type GagPatch = Parameters<typeof updateGag>[2];
+
+/** A person's edit of a gag: a status moved by hand must follow lib/gags/status (422 otherwise). */
+export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPatch): Promise<void> {
+  await db.transaction().execute(async (trx) => {
+    // Two edits at once: the second checks its status move against the first's result.
+    await lockRow(trx, 'gags', gagId);
+    const current = await trx.selectFrom('gags').select('status').where('id', '=', gagId).executeTakeFirst();
+    if (!current) throw new Refused(404, 'Not found.');
+    if (patch.status) {
+      const check = checkManualMove(current.status, patch.status);
+      if (!check.ok) throw new Refused(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
+    }
+    await updateGag(trx, gagId, patch);
+  });
+}
+
 export async function deleteGag(db: Db, gagId: string): Promise<void> {
   await db.deleteFrom('gags').where('id', '=', gagId).execute();
+}
+
+/** Deletes a gag and tells the series' activity who did. */
+export async function removeGag(db: Kysely<Database>, input: { gagId: string; seriesId: string; userId: string }): Promise<void> {
+  const gag = await findGag(db, input.gagId);
+  await db.transaction().execute(async (trx) => {
+    await deleteGag(trx, input.gagId);
+    await recordActivity(trx, {
+      seriesId: input.seriesId,
+      userId: input.userId,
+      kind: 'gag.deleted',
+      summary: `deleted the gag “${gag?.title ?? ''}”`,
+    });
+  });
 }

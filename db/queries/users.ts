@@ -52,3 +52,17 @@ export async function claimAttemptSlot(db: Kysely<Database>, email: string, atMs
     return true;
   });
 }
+
+/** My own account as the app shows it: no password hash. */
+export async function findMe(db: Kysely<Database>, id: string) {
+  const row = await db.selectFrom('users').select(['id', 'name', 'email', 'notifyEmail']).where('id', '=', id).executeTakeFirstOrThrow();
+  return { ...row, notifyEmail: row.notifyEmail === 1 };
+}
+
+export async function setNotifyEmail(db: Kysely<Database>, id: string, on: boolean): Promise<void> {
+  await db
+    .updateTable('users')
+    .set({ notifyEmail: on ? 1 : 0 })
+    .where('id', '=', id)
+    .execute();
+}

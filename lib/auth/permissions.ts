@@ -11,6 +11,13 @@ export const ROLE_LABELS: Record<Role, string> = {
   viewer: 'Viewer',
 };
 
+/**
+ * One line where a role is chosen. "Editor" is the publishing role, which people used to
+ * file sharing read as "can edit"; the hint says what it is.
+ */
+export const ROLE_HINT =
+  'An editor reads, comments and stamps passes “ready to ink” but does not draw; a co-creator draws and edits; a viewer only reads.';
+
 export const ACTIONS = ['read', 'comment', 'edit', 'stamp', 'manage'] as const;
 export type Action = (typeof ACTIONS)[number];
 

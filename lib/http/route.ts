@@ -17,12 +17,16 @@ export function jsonError(status: number, message: string, issues?: unknown): Re
   return Response.json(issues === undefined ? { error: message } : { error: message, issues }, { status });
 }
 
-/** Reads and validates a JSON body; malformed or invalid → 422 with the zod issues. */
+/** A JSON body larger than this is refused unless the route allows more. */
+export const DEFAULT_MAX_BODY_BYTES = 64 * 1024;
+
+/** Reads and validates a JSON body: too large → 413; malformed or invalid → 422 with the zod issues. */
 export async function parseBody<S extends z.ZodType>(req: Request, schema: S, opts: { maxBytes?: number } = {}): Promise<z.infer<S>> {
   let raw: unknown;
+  const maxBytes = opts.maxBytes ?? DEFAULT_MAX_BODY_BYTES;
   const text = await req.text();
-  if (opts.maxBytes !== undefined && Buffer.byteLength(text) > opts.maxBytes) {
-    throw new Refused(422, `The body is over ${opts.maxBytes.toLocaleString('en')} bytes; send it in smaller batches.`);
+  if (Buffer.byteLength(text) > maxBytes) {
+    throw new Refused(413, `The body is over ${maxBytes.toLocaleString('en')} bytes; send it in smaller parts.`);
   }
   try {
     raw = JSON.parse(text);
@@ -41,6 +45,11 @@ export async function parseBody<S extends z.ZodType>(req: Request, schema: S, op
 }
 
 type RouteContext<P> = { params: Promise<P> };
+type RouteHandler<P> = (req: Request, context: RouteContext<P>) => Promise<Response>;
+
+/** A route's JSON body: its schema (the wrapper validates it before the handler runs) and size limit. */
+export type BodySpec<S extends z.ZodType> = { body: S; maxBytes?: number };
+type WithBody<C, S extends z.ZodType> = C & { body: z.infer<S> };
 
 export type UserCtx<P> = { req: Request; params: P; user: SessionUser; db: Kysely<Database> };
 export type SeriesCtx<P> = UserCtx<P> & { seriesId: string; role: Role };
@@ -55,14 +64,22 @@ async function run(fn: () => Promise<Response>): Promise<Response> {
   }
 }
 
-/** Signed-in routes that are not about one series. */
-export function withUser<P = Record<string, never>>(handler: (ctx: UserCtx<P>) => Promise<Response>) {
+/** Signed-in routes that are not about one series; with a body spec, the body arrives validated. */
+export function withUser<P = Record<string, never>>(handler: (ctx: UserCtx<P>) => Promise<Response>): RouteHandler<P>;
+export function withUser<P, S extends z.ZodType>(spec: BodySpec<S>, handler: (ctx: WithBody<UserCtx<P>, S>) => Promise<Response>): RouteHandler<P>;
+export function withUser<P, S extends z.ZodType>(
+  a: BodySpec<S> | ((ctx: UserCtx<P>) => Promise<Response>),
+  b?: (ctx: WithBody<UserCtx<P>, S>) => Promise<Response>,
+): RouteHandler<P> {
+  const spec = typeof a === 'function' ? null : a;
+  const handler = (typeof a === 'function' ? a : b!) as (ctx: UserCtx<P> & { body?: unknown }) => Promise<Response>;
   return (req: Request, context: RouteContext<P>) =>
     run(async () => {
       const user = await userFromRequest(req);
       if (!user) return jsonError(401, 'Sign in first.');
       const params = (await context?.params) ?? ({} as P);
-      return handler({ req, params, user, db: await getDb() });
+      const ctx = { req, params, user, db: await getDb() };
+      return spec ? handler({ ...ctx, body: await parseBody(req, spec.body, spec) }) : handler(ctx);
     });
 }
 
@@ -70,16 +87,30 @@ export function withUser<P = Record<string, never>>(handler: (ctx: UserCtx<P>) =
  * Routes about one series. `seriesOf` finds the series a resource belongs to
  * (null when the resource does not exist, which answers 404 like a non-member).
  */
-export function withSeriesRole<P>(
+type SeriesOf<P> = (params: P, db: Kysely<Database>) => Promise<string | null>;
+
+export function withSeriesRole<P>(action: Action, seriesOf: SeriesOf<P>, handler: (ctx: SeriesCtx<P>) => Promise<Response>): RouteHandler<P>;
+export function withSeriesRole<P, S extends z.ZodType>(
   action: Action,
-  seriesOf: (params: P, db: Kysely<Database>) => Promise<string | null>,
-  handler: (ctx: SeriesCtx<P>) => Promise<Response>,
-) {
+  seriesOf: SeriesOf<P>,
+  spec: BodySpec<S>,
+  handler: (ctx: WithBody<SeriesCtx<P>, S>) => Promise<Response>,
+): RouteHandler<P>;
+export function withSeriesRole<P, S extends z.ZodType>(
+  action: Action,
+  seriesOf: SeriesOf<P>,
+  a: BodySpec<S> | ((ctx: SeriesCtx<P>) => Promise<Response>),
+  b?: (ctx: WithBody<SeriesCtx<P>, S>) => Promise<Response>,
+): RouteHandler<P> {
+  const spec = typeof a === 'function' ? null : a;
+  const handler = (typeof a === 'function' ? a : b!) as (ctx: SeriesCtx<P> & { body?: unknown }) => Promise<Response>;
   return withUser<P>(async (ctx) => {
     const seriesId = await seriesOf(ctx.params, ctx.db);
     if (!seriesId) return jsonError(404, 'Not found.');
     const access = await authorizeSeries(ctx.user.id, seriesId, action);
     if (!access.ok) return jsonError(access.status, access.message);
-    return handler({ ...ctx, seriesId, role: access.role });
+    // The body is read only after the role check: a refused caller never gets a parser's attention.
+    const sctx = { ...ctx, seriesId, role: access.role };
+    return spec ? handler({ ...sctx, body: await parseBody(ctx.req, spec.body, spec) }) : handler(sctx);
   });
 }

@@ -3,6 +3,7 @@
 import 'server-only';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
+import { notifiableAddress, stampNotice } from '@/db/queries/mail';
 import { type Mail, mentionMail, stampMail } from './templates';
 import { sendMail } from './transport';
 
@@ -12,20 +13,13 @@ export function appUrl(): string {
 }
 
 async function tell(db: Kysely<Database>, userId: string, kind: string, mail: Mail) {
-  const u = await db.selectFrom('users').select(['email', 'notifyEmail']).where('id', '=', userId).executeTakeFirst();
-  if (!u || !u.notifyEmail) return;
-  await sendMail(db, u.email, kind, mail);
+  const address = await notifiableAddress(db, userId);
+  if (address) await sendMail(db, address, kind, mail);
 }
 
 /** A stamp on your gag: told to the person who started the gag, unless they stamped it themselves. */
 export async function notifyStamp(db: Kysely<Database>, input: { stampId: string; by: { id: string; name: string } }) {
-  const s = await db
-    .selectFrom('stamps as s')
-    .innerJoin('gags as g', 'g.id', 's.gagId')
-    .innerJoin('passes as p', 'p.id', 's.passId')
-    .select(['s.decision', 's.note', 'g.id as gagId', 'g.seriesId', 'g.title', 'g.createdBy', 'p.number'])
-    .where('s.id', '=', input.stampId)
-    .executeTakeFirst();
+  const s = await stampNotice(db, input.stampId);
   if (!s?.createdBy || s.createdBy === input.by.id) return;
   await tell(
     db,

@@ -5,6 +5,7 @@ import type { Kysely } from 'kysely';
 import nodemailer from 'nodemailer';
 import type { Database } from '@/db/database';
 import type { Mail } from './templates';
+import { logMail } from '@/db/queries/mail';
 
 export const FAKE_SMTP_PORT_DEFAULT = 2525;
 
@@ -34,11 +35,11 @@ export async function sendMail(
   const createdAt = new Date().toISOString();
   try {
     const info = await transport().sendMail({ from: MAIL_FROM, to, subject: mail.subject, text: mail.text, html: mail.html });
-    await db.insertInto('mailLog').values({ to, subject: mail.subject, kind, messageId: info.messageId, error: null, createdAt }).execute();
+    await logMail(db, { to, subject: mail.subject, kind, messageId: info.messageId, error: null, createdAt });
     return { ok: true, messageId: info.messageId };
   } catch (err) {
     const error = err instanceof Error ? err.message : String(err);
-    await db.insertInto('mailLog').values({ to, subject: mail.subject, kind, messageId: null, error, createdAt }).execute();
+    await logMail(db, { to, subject: mail.subject, kind, messageId: null, error, createdAt });
     console.error(`[mail] could not send ${kind} to ${to}: ${error}`);
     return { ok: false, error };
   }

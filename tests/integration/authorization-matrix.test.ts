@@ -647,8 +647,15 @@ function declaredRoutes(): string[] {
       const full = path.join(dir, entry.name);
       if (entry.isDirectory()) walk(full);
       else if (entry.name === 'route.ts') {
-        const url = '/api/' + path.relative(root, dir).split(path.sep).map((seg) => seg.replace(/^\[(.+)\]$/, ':$1')).join('/');
-        for (const m of fs.readFileSync(full, 'utf8').matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)) found.push(`${m[1]} ${url}`);
+        const url =
+          '/api/' +
+          path
+            .relative(root, dir)
+            .split(path.sep)
+            .map((seg) => seg.replace(/^\[(.+)\]$/, ':$1'))
+            .join('/');
+        for (const m of fs.readFileSync(full, 'utf8').matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g))
+          found.push(`${m[1]} ${url}`);
       }
     }
   };
@@ -663,8 +670,14 @@ describe('the matrix covers every route', () => {
   it('lists each method of each route handler in app/api, and nothing that does not exist', () => {
     const declared = declaredRoutes().filter((r) => !NOT_IN_MATRIX.includes(r));
     const listed = [...new Set(ROUTES.map((r) => r.route.split(' ').slice(0, 2).join(' ').split('?')[0]!))].sort();
-    expect(declared.filter((r) => !listed.includes(r)), 'routes missing from the matrix').toEqual([]);
-    expect(listed.filter((r) => !declared.includes(r)), 'matrix rows for routes that do not exist').toEqual([]);
+    expect(
+      declared.filter((r) => !listed.includes(r)),
+      'routes missing from the matrix',
+    ).toEqual([]);
+    expect(
+      listed.filter((r) => !declared.includes(r)),
+      'matrix rows for routes that do not exist',
+    ).toEqual([]);
   });
 });
 

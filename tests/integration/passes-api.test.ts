@@ -253,13 +253,14 @@ describe('bad batches: 422 with the reason, and nothing stored', () => {
     expect((await state(p.id)).seq).toBe(1);
   });
 
-  it('a batch over 1 MB', async () => {
+  it('a batch over 1 MB is 413', async () => {
     const p = await newPass();
     const ops = Array.from({ length: 9 }, (_, i) => ({ op: 'add', stroke: stroke(`big${i}`, 0, 10, 10, 9000) }));
     const raw = JSON.stringify({ batchId: 'too-big', ops });
     expect(raw.length).toBeGreaterThan(1_000_000);
     const r = await callRoute(opsRoute.POST, { method: 'POST', as: 'owner', params: { passId: p.id }, rawBody: raw });
-    expect(r.status).toBe(422);
+    // 413 Content Too Large (RFC 9110 §15.5.14): the body, not its content, is what is wrong.
+    expect(r.status).toBe(413);
     expect(r.body.error).toMatch(/1,000,000 bytes/);
     expect((await state(p.id)).strokes).toEqual([]);
   });

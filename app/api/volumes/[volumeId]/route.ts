@@ -1,5 +1,5 @@
 import { findVolume, listEntries, unplacedGags, updateVolume } from '@/db/queries/volumes';
-import { Refused, parseBody, withSeriesRole } from '@/lib/http/route';
+import { Refused, withSeriesRole } from '@/lib/http/route';
 import { specIssues, updateVolumeSchema } from '@/lib/validation/volume';
 import { byVolumeId } from '@/lib/http/series-of';
 
@@ -13,10 +13,15 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params,
 });
 
 /** Owners change the title, deadline, hours and print spec. */
-export const PATCH = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, params }) => {
-  const patch = await parseBody(req, updateVolumeSchema);
-  const cur = (await findVolume(db, params.volumeId))!;
-  const problems = specIssues({ ...cur.spec, ...patch.spec });
-  if (problems.length) throw new Refused(422, problems.join(' '));
-  return Response.json(await updateVolume(db, params.volumeId, patch));
-});
+export const PATCH = withSeriesRole<Params, typeof updateVolumeSchema>(
+  'manage',
+  seriesOf,
+  { body: updateVolumeSchema },
+  async ({ db, params, body }) => {
+    const patch = body;
+    const cur = (await findVolume(db, params.volumeId))!;
+    const problems = specIssues({ ...cur.spec, ...patch.spec });
+    if (problems.length) throw new Refused(422, problems.join(' '));
+    return Response.json(await updateVolume(db, params.volumeId, patch));
+  },
+);

@@ -1,7 +1,7 @@
 import { createComment, listThreads, mentionedMembers } from '@/db/queries/comments';
 import { findGag } from '@/db/queries/gags';
 import { notifyMentions } from '@/lib/mail/notify';
-import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { withSeriesRole } from '@/lib/http/route';
 import { commentCreateSchema } from '@/lib/validation/review';
 import { byGagId } from '@/lib/http/series-of';
 import { gagChanged } from '@/lib/live/events';
@@ -13,13 +13,18 @@ const seriesOf = byGagId;
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => Response.json(await listThreads(db, params.gagId)));
 
 /** A new thread or a reply; @name mentions a member, who is told by e-mail. */
-export const POST = withSeriesRole<Params>('comment', seriesOf, async ({ req, db, params, user, seriesId }) => {
-  const input = await parseBody(req, commentCreateSchema);
-  const comment = await createComment(db, { ...input, gagId: params.gagId, seriesId, authorId: user.id });
-  await gagChanged(seriesId, params.gagId, ['comments'], ['activity']);
-  const gag = await findGag(db, params.gagId);
-  const mentioned = await mentionedMembers(db, seriesId, input.body);
-  if (gag && mentioned.length)
-    await notifyMentions(db, { userIds: mentioned, author: user, gag: { id: gag.id, seriesId, title: gag.title }, body: input.body });
-  return Response.json({ ...comment, mentioned }, { status: 201 });
-});
+export const POST = withSeriesRole<Params, typeof commentCreateSchema>(
+  'comment',
+  seriesOf,
+  { body: commentCreateSchema },
+  async ({ db, params, user, seriesId, body }) => {
+    const input = body;
+    const comment = await createComment(db, { ...input, gagId: params.gagId, seriesId, authorId: user.id });
+    await gagChanged(seriesId, params.gagId, ['comments'], ['activity']);
+    const gag = await findGag(db, params.gagId);
+    const mentioned = await mentionedMembers(db, seriesId, input.body);
+    if (gag && mentioned.length)
+      await notifyMentions(db, { userIds: mentioned, author: user, gag: { id: gag.id, seriesId, title: gag.title }, body: input.body });
+    return Response.json({ ...comment, mentioned }, { status: 201 });
+  },
+);

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { beat, present } from '@/db/queries/presence';
 import { publish } from '@/lib/live/bus';
-import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { withSeriesRole } from '@/lib/http/route';
 import { byGagId } from '@/lib/http/series-of';
 import { presenceWhere, tabId } from '@/lib/validation/live';
 
@@ -20,8 +20,8 @@ const bodySchema = z
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => Response.json(await present(db, params.gagId)));
 
 /** I am here (`{ where, tab, panel }`): a heartbeat without a stream, or a move to another panel. Answers who is. */
-export const POST = withSeriesRole<Params>('read', seriesOf, async ({ req, db, params, user }) => {
-  const { where, tab, panel } = await parseBody(req, bodySchema);
+export const POST = withSeriesRole<Params, typeof bodySchema>('read', seriesOf, { body: bodySchema }, async ({ db, params, user, body }) => {
+  const { where, tab, panel } = body;
   await beat(db, { gagId: params.gagId, tabId: tab, userId: user.id, where, panel });
   await publish({ topic: `gag:${params.gagId}`, type: 'presence' });
   return Response.json(await present(db, params.gagId));

@@ -1,5 +1,5 @@
 import { passChecklist, setTicks } from '@/db/queries/review';
-import { Refused, parseBody, withSeriesRole } from '@/lib/http/route';
+import { Refused, withSeriesRole } from '@/lib/http/route';
 import { checklistPutSchema } from '@/lib/validation/review';
 import { byPassId } from '@/lib/http/series-of';
 import { passWithGag } from '@/db/queries/pass-info';
@@ -14,10 +14,15 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params,
 );
 
 /** `{ ticked: [itemId] }`: exactly these items are ticked on this pass. Anyone who may comment. */
-export const PUT = withSeriesRole<Params>('comment', seriesOf, async ({ req, db, params, seriesId, user }) => {
-  const input = await parseBody(req, checklistPutSchema);
-  const problem = await setTicks(db, seriesId, params.passId, user.id, input.ticked);
-  if (problem) throw new Refused(422, problem);
-  await gagChanged(seriesId, (await passWithGag(db, params.passId))!.gagId, ['checklist']);
-  return Response.json(await passChecklist(db, seriesId, params.passId));
-});
+export const PUT = withSeriesRole<Params, typeof checklistPutSchema>(
+  'comment',
+  seriesOf,
+  { body: checklistPutSchema },
+  async ({ db, params, seriesId, user, body }) => {
+    const input = body;
+    const problem = await setTicks(db, seriesId, params.passId, user.id, input.ticked);
+    if (problem) throw new Refused(422, problem);
+    await gagChanged(seriesId, (await passWithGag(db, params.passId))!.gagId, ['checklist']);
+    return Response.json(await passChecklist(db, seriesId, params.passId));
+  },
+);

@@ -1,7 +1,7 @@
 // Receives a batch of editor operations; applies it in one transaction, once.
 import { applyBatch } from '@/db/queries/passes';
 import { pageSpecForPass } from '@/db/queries/series';
-import { Refused, parseBody, withSeriesRole } from '@/lib/http/route';
+import { Refused, withSeriesRole } from '@/lib/http/route';
 import { MAX_BATCH_BYTES, type Op } from '@/lib/strokes/types';
 import { batchSchema, checkOpsInside } from '@/lib/validation/pass';
 import { byPassId } from '@/lib/http/series-of';
@@ -12,27 +12,32 @@ import { passChanged } from '@/lib/live/events';
 type Params = { passId: string };
 const seriesOf = byPassId;
 
-export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, user, seriesId }) => {
-  const batch = await parseBody(req, batchSchema, { maxBytes: MAX_BATCH_BYTES });
-  const spec = await pageSpecForPass(db, seriesId, params.passId);
-  const outside = checkOpsInside(batch.ops as Op[], spec);
-  if (outside) throw new Refused(422, outside);
-  const wanted = [...new Set((batch.ops as Op[]).flatMap((op) => (op.op === 'lightbox' ? [op.lightbox.uploadId] : [])))];
-  if (wanted.length) {
-    const known = await uploadsInSeries(db, seriesId, wanted);
-    const missing = wanted.find((id) => !known.has(id));
-    if (missing) throw new Refused(422, `There is no upload ${missing} in this series to place as a lightbox.`);
-  }
-  const { seq, replayed, stampCleared } = await applyBatch(db, {
-    passId: params.passId,
-    batchId: batch.batchId,
-    ops: batch.ops as Op[],
-    userId: user.id,
-    spec,
-  });
-  if (!replayed) {
-    const gagId = (await passWithGag(db, params.passId))!.gagId;
-    await passChanged({ seriesId, gagId, passId: params.passId, seq, stampCleared });
-  }
-  return Response.json({ seq });
-});
+export const POST = withSeriesRole<Params, typeof batchSchema>(
+  'edit',
+  seriesOf,
+  { body: batchSchema, maxBytes: MAX_BATCH_BYTES },
+  async ({ db, params, user, seriesId, body }) => {
+    const batch = body;
+    const spec = await pageSpecForPass(db, seriesId, params.passId);
+    const outside = checkOpsInside(batch.ops as Op[], spec);
+    if (outside) throw new Refused(422, outside);
+    const wanted = [...new Set((batch.ops as Op[]).flatMap((op) => (op.op === 'lightbox' ? [op.lightbox.uploadId] : [])))];
+    if (wanted.length) {
+      const known = await uploadsInSeries(db, seriesId, wanted);
+      const missing = wanted.find((id) => !known.has(id));
+      if (missing) throw new Refused(422, `There is no upload ${missing} in this series to place as a lightbox.`);
+    }
+    const { seq, replayed, stampCleared } = await applyBatch(db, {
+      passId: params.passId,
+      batchId: batch.batchId,
+      ops: batch.ops as Op[],
+      userId: user.id,
+      spec,
+    });
+    if (!replayed) {
+      const gagId = (await passWithGag(db, params.passId))!.gagId;
+      await passChanged({ seriesId, gagId, passId: params.passId, seq, stampCleared });
+    }
+    return Response.json({ seq });
+  },
+);

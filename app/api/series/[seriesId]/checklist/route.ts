@@ -1,5 +1,5 @@
 import { checklistItems, setChecklistItems } from '@/db/queries/review';
-import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { withSeriesRole } from '@/lib/http/route';
 import { checklistItemsSchema } from '@/lib/validation/review';
 import { bySeriesId } from '@/lib/http/series-of';
 
@@ -9,7 +9,12 @@ const seriesOf = bySeriesId;
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await checklistItems(db, seriesId)));
 
 /** Owners: `{ items: [{ id?, text }] }` replaces the list (reword, reorder, add, remove). */
-export const PUT = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId }) => {
-  const input = await parseBody(req, checklistItemsSchema);
-  return Response.json(await setChecklistItems(db, seriesId, input.items));
-});
+export const PUT = withSeriesRole<Params, typeof checklistItemsSchema>(
+  'manage',
+  seriesOf,
+  { body: checklistItemsSchema },
+  async ({ db, seriesId, body }) => {
+    const input = body;
+    return Response.json(await setChecklistItems(db, seriesId, input.items));
+  },
+);

@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { createGag, listGags } from '@/db/queries/gags';
-import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { withSeriesRole } from '@/lib/http/route';
 import { createGagSchema } from '@/lib/validation/gag';
 import { bySeriesId } from '@/lib/http/series-of';
 import { seriesChanged } from '@/lib/live/events';
@@ -10,9 +10,14 @@ const seriesOf = bySeriesId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await listGags(db, seriesId)));
 
-export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, seriesId, user }) => {
-  const input = await parseBody(req, createGagSchema);
-  const gag = await createGag(db, { id: randomUUID(), seriesId, title: input.title, premise: input.premise, createdBy: user.id });
-  await seriesChanged(seriesId, ['gags', 'activity'], [gag.id]);
-  return Response.json(gag, { status: 201 });
-});
+export const POST = withSeriesRole<Params, typeof createGagSchema>(
+  'edit',
+  seriesOf,
+  { body: createGagSchema },
+  async ({ db, seriesId, user, body }) => {
+    const input = body;
+    const gag = await createGag(db, { id: randomUUID(), seriesId, title: input.title, premise: input.premise, createdBy: user.id });
+    await seriesChanged(seriesId, ['gags', 'activity'], [gag.id]);
+    return Response.json(gag, { status: 201 });
+  },
+);

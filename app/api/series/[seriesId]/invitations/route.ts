@@ -3,7 +3,7 @@ import { findSeries } from '@/db/queries/series';
 import { invitationMail } from '@/lib/mail/templates';
 import { appUrl } from '@/lib/mail/notify';
 import { sendMail } from '@/lib/mail/transport';
-import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { withSeriesRole } from '@/lib/http/route';
 import { inviteSchema } from '@/lib/validation/members';
 import { bySeriesId } from '@/lib/http/series-of';
 
@@ -14,8 +14,8 @@ const seriesOf = bySeriesId;
 export const GET = withSeriesRole<Params>('manage', seriesOf, async ({ db, seriesId }) => Response.json(await listInvitations(db, seriesId)));
 
 /** `{ email, role }` → 201; the invitation goes out by e-mail with a one-time link valid 7 days. */
-export const POST = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId, user }) => {
-  const input = await parseBody(req, inviteSchema);
+export const POST = withSeriesRole<Params, typeof inviteSchema>('manage', seriesOf, { body: inviteSchema }, async ({ db, seriesId, user, body }) => {
+  const input = body;
   const inv = await createInvitation(db, { seriesId, email: input.email, role: input.role, invitedBy: user.id });
   const series = await findSeries(db, seriesId);
   const sent = await sendMail(

@@ -1,5 +1,5 @@
 import { addEntry } from '@/db/queries/volumes';
-import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { withSeriesRole } from '@/lib/http/route';
 import { addEntrySchema } from '@/lib/validation/volume';
 import { byVolumeId } from '@/lib/http/series-of';
 
@@ -7,7 +7,12 @@ type Params = { volumeId: string };
 const seriesOf = byVolumeId;
 
 /** `{ gagId }` places a gag (once); `{ kind }` adds a matter page. Appended at the end. */
-export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, seriesId }) => {
-  const input = await parseBody(req, addEntrySchema);
-  return Response.json(await addEntry(db, params.volumeId, seriesId, input), { status: 201 });
-});
+export const POST = withSeriesRole<Params, typeof addEntrySchema>(
+  'edit',
+  seriesOf,
+  { body: addEntrySchema },
+  async ({ db, params, seriesId, body }) => {
+    const input = body;
+    return Response.json(await addEntry(db, params.volumeId, seriesId, input), { status: 201 });
+  },
+);

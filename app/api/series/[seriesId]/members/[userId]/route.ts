@@ -1,5 +1,5 @@
 import { changeRole, listMembers, removeMember } from '@/db/queries/members';
-import { parseBody, withSeriesRole } from '@/lib/http/route';
+import { withSeriesRole } from '@/lib/http/route';
 import { roleSchema } from '@/lib/validation/members';
 import { bySeriesId } from '@/lib/http/series-of';
 import { accessChanged } from '@/lib/live/events';
@@ -8,8 +8,8 @@ type Params = { seriesId: string; userId: string };
 const seriesOf = bySeriesId;
 
 /** Owners change a member's role (`{ role }`); the last owner stays an owner. */
-export const PATCH = withSeriesRole<Params>('manage', seriesOf, async ({ req, db, seriesId, params }) => {
-  const { role } = await parseBody(req, roleSchema);
+export const PATCH = withSeriesRole<Params, typeof roleSchema>('manage', seriesOf, { body: roleSchema }, async ({ db, seriesId, params, body }) => {
+  const { role } = body;
   await changeRole(db, seriesId, params.userId, role);
   await accessChanged(seriesId, params.userId);
   return Response.json((await listMembers(db, seriesId)).find((m) => m.userId === params.userId));
