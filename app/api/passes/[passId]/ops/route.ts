@@ -2,7 +2,7 @@
 import { applyBatch } from '@/db/queries/passes';
 import { pageSpecForPass } from '@/db/queries/series';
 import { Refused, withSeriesRole } from '@/lib/http/route';
-import { MAX_BATCH_BYTES, type Op } from '@/lib/strokes/types';
+import { MAX_BATCH_BYTES } from '@/lib/strokes/types';
 import { batchSchema, checkOpsInside } from '@/lib/validation/pass';
 import { byPassId } from '@/lib/http/series-of';
 import { uploadsInSeries } from '@/db/queries/uploads';
@@ -19,9 +19,9 @@ export const POST = withSeriesRole<Params, typeof batchSchema>(
   async ({ db, params, user, seriesId, body }) => {
     const batch = body;
     const spec = await pageSpecForPass(db, seriesId, params.passId);
-    const outside = checkOpsInside(batch.ops as Op[], spec);
+    const outside = checkOpsInside(batch.ops, spec);
     if (outside) throw new Refused(422, outside);
-    const wanted = [...new Set((batch.ops as Op[]).flatMap((op) => (op.op === 'lightbox' ? [op.lightbox.uploadId] : [])))];
+    const wanted = [...new Set(batch.ops.flatMap((op) => (op.op === 'lightbox' ? [op.lightbox.uploadId] : [])))];
     if (wanted.length) {
       const known = await uploadsInSeries(db, seriesId, wanted);
       const missing = wanted.find((id) => !known.has(id));
@@ -30,7 +30,7 @@ export const POST = withSeriesRole<Params, typeof batchSchema>(
     const { seq, replayed, stampCleared } = await applyBatch(db, {
       passId: params.passId,
       batchId: batch.batchId,
-      ops: batch.ops as Op[],
+      ops: batch.ops,
       userId: user.id,
       spec,
     });
