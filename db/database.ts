@@ -196,7 +196,10 @@ export interface ChecklistTicksTable {
   tickedAt: Timestamp;
 }
 
-export type StampDecision = 'ready' | 'again';
+export type { StampDecision } from '@/lib/review/words';
+import type { CommentTarget, StampDecision } from '@/lib/review/words';
+import type { EntryKind } from '@/lib/print/matter';
+export type { CommentTarget, EntryKind };
 
 export interface StampsTable {
   id: string;
@@ -211,8 +214,6 @@ export interface StampsTable {
   clearedAt: Timestamp | null;
   clearedSeq: number | null;
 }
-
-export type CommentTarget = 'gag' | 'pass' | 'panel' | 'beat' | 'point';
 
 export interface CommentsTable {
   id: string;
@@ -277,8 +278,6 @@ export interface PresenceTabsTable {
   panel: number | null;
   seenAt: Timestamp;
 }
-
-export type EntryKind = 'gag' | 'cover' | 'inside-cover' | 'title' | 'credits' | 'blank' | 'afterword' | 'inside-back' | 'back-cover';
 
 export interface VolumesTable {
   id: string;

@@ -11,6 +11,7 @@ import type { StampDto } from '@/db/queries/stamps';
 import type { ActivityDto } from '@/db/queries/activity';
 import { api, fetcher } from '@/lib/http/client';
 import type { Findings } from '@/lib/review/findings';
+import type { StampDecision } from '@/lib/review/words';
 
 export function useChecklist(passId: string | null) {
   const swr = useLiveSWR<ChecklistItemDto[]>(passId ? `/api/passes/${passId}/checklist` : null, fetcher, { types: ['checklist'], pollMs: 2000 });
@@ -30,7 +31,7 @@ export function useFindings(passId: string | null, seq?: number) {
 
 export function useStamps(gagId: string | null) {
   const swr = useLiveSWR<StampDto[]>(gagId ? `/api/gags/${gagId}/stamps` : null, fetcher, { types: ['stamps'], pollMs: 2000 });
-  async function stamp(passId: string, decision: 'ready' | 'again', note: string) {
+  async function stamp(passId: string, decision: StampDecision, note: string) {
     const s = await api<StampDto>(`/api/passes/${passId}/stamp`, { method: 'POST', json: { decision, note } });
     await swr.mutate();
     return s;

@@ -15,6 +15,7 @@ import type { BeatKind } from '@/lib/gags/status';
 import { type PageSpec, bleedBox, panelAt, panelRects, safeBox } from '@/lib/print/geometry';
 import { toPage } from '@/lib/print/view';
 import { TONE_GREYS, type Lightbox, type Room, type RoomShape, type Stroke } from '@/lib/strokes/types';
+import { EditorFrame } from './editor-frame';
 import { EditorSidebar, type PointPin } from './editor-sidebar';
 import { EditorStage } from './editor-stage';
 import type { Effects, Scene, Settings } from './gestures';
@@ -195,125 +196,132 @@ export default function Editor(props: EditorProps) {
 
   const lightboxes = session.lightboxes;
   return (
-    <div className="flex h-[calc(100vh-8.5rem)] min-h-[520px] flex-col gap-2 lg:flex-row">
-      <EditorToolbar
-        canDraw={canDraw}
-        canComment={canComment}
-        tool={tool}
-        setTool={chooseTool}
-        penSize={penSize}
-        setPenSize={setPenSize}
-        penSizes={PEN_SIZES}
-        toneSize={toneSize}
-        setToneSize={setToneSize}
-        toneSizes={TONE_SIZES}
-        toneGrey={toneGrey}
-        setToneGrey={setToneGrey}
-        roomShape={roomShape}
-        setRoomShape={setRoomShape}
-        penOnly={penOnly}
-        setPenOnly={setPenOnly}
-        guides={guides}
-        setGuides={setGuides}
-        onUndo={() => session.runUndo('undo')}
-        onRedo={() => session.runUndo('redo')}
-        canUndo={session.undoState.canUndo}
-        canRedo={session.undoState.canRedo}
-        zoomIn={() => v.zoom(1.25)}
-        zoomOut={() => v.zoom(0.8)}
-        fit={v.fit}
-        openHelp={() => setHelpOpen(true)}
-      />
-      <div className="relative min-h-0 min-w-0 flex-1">
-        <SelectionBar
-          status={session.status}
-          canDraw={canDraw}
-          selected={selection.ids.length}
-          roomChosen={!!selection.room && tool === 'room'}
-          onDeleteStrokes={selection.deleteStrokes}
-          onCopyTo={selection.copyTo}
-          onDone={() => selection.setIds([])}
-          onDeleteRoom={selection.deleteRoom}
-        />
-        <div
-          ref={wrapRef}
-          role="application"
-          aria-label={`Sketch canvas, pass ${props.passNumber}. ${canDraw ? 'Draw with a pen, mouse or finger.' : 'Read-only.'} Press ? for shortcuts.`}
-          data-testid="sketch-canvas"
-          data-stroke-count={session.strokeCount}
-          data-room-count={session.rooms.length}
-          data-lightbox-count={lightboxes.filter((l) => l.visible).length}
-          data-lightbox-images={lightboxes.filter((l) => l.visible && images.get(l.uploadId) instanceof HTMLImageElement).length}
-          data-tool={tool}
-          tabIndex={0}
-          className={`h-full w-full touch-none overflow-hidden rounded-lg border bg-marker-10 ${dropOver ? 'border-ink ring-2 ring-ink' : 'border-paper-edge'}`}
-          onDragOver={(e) => {
-            if (!canDraw || !e.dataTransfer.types.includes('Files')) return;
-            e.preventDefault();
-            setDropOver(true);
-          }}
-          onDragLeave={() => setDropOver(false)}
-          onDrop={(e) => {
-            if (!canDraw || !e.dataTransfer.files.length) return;
-            e.preventDefault();
-            setDropOver(false);
-            const rect = e.currentTarget.getBoundingClientRect();
-            const mm = toPage(v.view, e.clientX - rect.left, e.clientY - rect.top);
-            arranging.upload(e.dataTransfer.files, panelAt(spec, mm.x, mm.y));
-          }}
-          style={{ cursor: tool === 'pan' || !canDraw ? 'grab' : 'crosshair' }}
-        >
-          <EditorStage
-            stageRef={stageRef}
-            strokesLayerRef={session.strokesLayerRef}
-            overlayLayerRef={overlayLayerRef}
-            size={v.size}
-            view={v.view}
-            spec={spec}
-            panels={panels}
-            bleed={bleed}
-            safe={safe}
-            guides={guides}
-            notes={notes}
-            tool={tool}
+    <>
+      <EditorFrame
+        sidebarLabel="Beats, review and revisions"
+        toolbar={
+          <EditorToolbar
             canDraw={canDraw}
-            rasters={session.rasters}
-            lightboxes={lightboxes}
-            lightboxPreview={arranging.preview}
-            images={images}
-            selectedLightbox={arranging.selected}
-            areaOf={arranging.areaOf}
-            onLightboxDown={arranging.setSelected}
-            onLightboxEdited={arranging.edited}
-            rooms={session.rooms}
-            selectedRoom={selection.room}
-            onRoomDown={selection.setRoom}
-            onRoomEdited={selection.roomEdited}
-            pins={pins}
-            pointPin={pointPin}
-            drawOverlay={paintOverlay}
+            canComment={canComment}
+            tool={tool}
+            setTool={chooseTool}
+            penSize={penSize}
+            setPenSize={setPenSize}
+            penSizes={PEN_SIZES}
+            toneSize={toneSize}
+            setToneSize={setToneSize}
+            toneSizes={TONE_SIZES}
+            toneGrey={toneGrey}
+            setToneGrey={setToneGrey}
+            roomShape={roomShape}
+            setRoomShape={setRoomShape}
+            penOnly={penOnly}
+            setPenOnly={setPenOnly}
+            guides={guides}
+            setGuides={setGuides}
+            onUndo={() => session.runUndo('undo')}
+            onRedo={() => session.runUndo('redo')}
+            canUndo={session.undoState.canUndo}
+            canRedo={session.undoState.canRedo}
+            zoomIn={() => v.zoom(1.25)}
+            zoomOut={() => v.zoom(0.8)}
+            fit={v.fit}
+            openHelp={() => setHelpOpen(true)}
           />
-        </div>
-      </div>
-      <aside className="flex w-full shrink-0 flex-col gap-3 overflow-y-auto lg:w-80" aria-label="Beats, review and revisions">
-        <EditorSidebar
-          {...props}
-          notes={notes}
-          findings={findings}
-          highlight={highlight}
-          setHighlight={setHighlight}
-          lightboxes={lightboxes}
-          arranging={arranging}
-          onChooseLightbox={(id) => {
-            arranging.setSelected(id);
-            if (canDraw) setTool('lightbox');
-          }}
-          pointPin={pointPin}
-          setPointPin={setPointPin}
-          onRestored={() => void session.syncRef.current?.resync()}
-        />
-      </aside>
+        }
+        canvas={
+          <>
+            <SelectionBar
+              status={session.status}
+              canDraw={canDraw}
+              selected={selection.ids.length}
+              roomChosen={!!selection.room && tool === 'room'}
+              onDeleteStrokes={selection.deleteStrokes}
+              onCopyTo={selection.copyTo}
+              onDone={() => selection.setIds([])}
+              onDeleteRoom={selection.deleteRoom}
+            />
+            <div
+              ref={wrapRef}
+              role="application"
+              aria-label={`Sketch canvas, pass ${props.passNumber}. ${canDraw ? 'Draw with a pen, mouse or finger.' : 'Read-only.'} Press ? for shortcuts.`}
+              data-testid="sketch-canvas"
+              data-stroke-count={session.strokeCount}
+              data-room-count={session.rooms.length}
+              data-lightbox-count={lightboxes.filter((l) => l.visible).length}
+              data-lightbox-images={lightboxes.filter((l) => l.visible && images.get(l.uploadId) instanceof HTMLImageElement).length}
+              data-tool={tool}
+              tabIndex={0}
+              className={`h-full w-full touch-none overflow-hidden rounded-lg border bg-marker-10 ${dropOver ? 'border-ink ring-2 ring-ink' : 'border-paper-edge'}`}
+              onDragOver={(e) => {
+                if (!canDraw || !e.dataTransfer.types.includes('Files')) return;
+                e.preventDefault();
+                setDropOver(true);
+              }}
+              onDragLeave={() => setDropOver(false)}
+              onDrop={(e) => {
+                if (!canDraw || !e.dataTransfer.files.length) return;
+                e.preventDefault();
+                setDropOver(false);
+                const rect = e.currentTarget.getBoundingClientRect();
+                const mm = toPage(v.view, e.clientX - rect.left, e.clientY - rect.top);
+                arranging.upload(e.dataTransfer.files, panelAt(spec, mm.x, mm.y));
+              }}
+              style={{ cursor: tool === 'pan' || !canDraw ? 'grab' : 'crosshair' }}
+            >
+              <EditorStage
+                stageRef={stageRef}
+                strokesLayerRef={session.strokesLayerRef}
+                overlayLayerRef={overlayLayerRef}
+                size={v.size}
+                view={v.view}
+                spec={spec}
+                panels={panels}
+                bleed={bleed}
+                safe={safe}
+                guides={guides}
+                notes={notes}
+                tool={tool}
+                canDraw={canDraw}
+                rasters={session.rasters}
+                lightboxes={lightboxes}
+                lightboxPreview={arranging.preview}
+                images={images}
+                selectedLightbox={arranging.selected}
+                areaOf={arranging.areaOf}
+                onLightboxDown={arranging.setSelected}
+                onLightboxEdited={arranging.edited}
+                rooms={session.rooms}
+                selectedRoom={selection.room}
+                onRoomDown={selection.setRoom}
+                onRoomEdited={selection.roomEdited}
+                pins={pins}
+                pointPin={pointPin}
+                drawOverlay={paintOverlay}
+              />
+            </div>
+          </>
+        }
+        sidebar={
+          <EditorSidebar
+            {...props}
+            notes={notes}
+            findings={findings}
+            highlight={highlight}
+            setHighlight={setHighlight}
+            lightboxes={lightboxes}
+            arranging={arranging}
+            onChooseLightbox={(id) => {
+              arranging.setSelected(id);
+              if (canDraw) setTool('lightbox');
+            }}
+            pointPin={pointPin}
+            setPointPin={setPointPin}
+            onRestored={() => void session.syncRef.current?.resync()}
+          />
+        }
+      />
       <HelpSheet open={helpOpen} onClose={() => setHelpOpen(false)} />
-    </div>
+    </>
   );
 }

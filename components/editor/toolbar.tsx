@@ -92,7 +92,7 @@ export function EditorToolbar(p: {
   const tools = TOOL_INFO.filter((t) => toolAllowed(t.tool, { draw: p.canDraw, comment: p.canComment }));
   return (
     <div
-      className="panel flex shrink-0 flex-row flex-wrap items-start gap-3 p-2 lg:w-48 lg:flex-col lg:flex-nowrap lg:overflow-y-auto"
+      className="panel flex shrink-0 flex-row flex-nowrap items-center gap-3 overflow-x-auto p-2 lg:w-48 lg:flex-col lg:items-start lg:overflow-y-auto lg:overflow-x-hidden [&>*]:shrink-0"
       role="toolbar"
       aria-label="Sketch tools"
     >
@@ -178,7 +178,7 @@ export function EditorToolbar(p: {
           <Maximize aria-hidden className="h-5 w-5" />
         </IconButton>
       </div>
-      <fieldset className="text-xs">
+      <fieldset className="whitespace-nowrap text-xs">
         <legend className="font-bold text-graphite-soft">Guides</legend>
         {(['bleed', 'trim', 'safe', 'panels'] as const).map((g) => (
           <label key={g} className="mr-2 inline-flex items-center gap-1 lg:flex">
@@ -188,12 +188,16 @@ export function EditorToolbar(p: {
         ))}
       </fieldset>
       {p.canDraw && (
-        <label className="inline-flex items-center gap-1 text-xs">
+        <label className="inline-flex items-center gap-1 whitespace-nowrap text-xs">
           <input type="checkbox" checked={p.penOnly} onChange={(e) => p.setPenOnly(e.target.checked)} />
           Pen only (ignore touch) (P)
         </label>
       )}
-      <button type="button" onClick={p.openHelp} className="inline-flex items-center gap-1 rounded px-1 text-xs font-bold text-ink hover:underline">
+      <button
+        type="button"
+        onClick={p.openHelp}
+        className="inline-flex items-center gap-1 whitespace-nowrap rounded px-1 text-xs font-bold text-ink hover:underline"
+      >
         <Keyboard aria-hidden className="h-4 w-4" /> Shortcuts (?)
       </button>
     </div>

@@ -109,6 +109,8 @@ export function GagDetail({ seriesId, seriesTitle, role, initial }: { seriesId: 
           </p>
           {canEdit ? (
             <>
+              {/* The page's heading is the gag's name; people who can edit see it as the title field below. */}
+              <h1 className="sr-only">{title || 'Untitled gag'}</h1>
               <label htmlFor="gag-title" className="sr-only">
                 Title
               </label>

@@ -39,21 +39,11 @@ export function PassStrip({
         <ol className="flex gap-4 overflow-x-auto pb-2">
           {passes.map((p) => (
             <li key={p.id} className="w-72 shrink-0">
-              <Link
-                href={`/series/${seriesId}/gags/${gagId}/passes/${p.number}`}
-                className="panel block p-2 hover:border-ink"
-                aria-label={`Open pass ${p.number} (${p.strokeCount} strokes)`}
-              >
+              <Link href={`/series/${seriesId}/gags/${gagId}/passes/${p.number}`} className="panel block p-2 hover:border-ink">
                 {/* eslint-disable-next-line @next/next/no-img-element -- a private SVG from our own route, versioned by seq */}
-                <img
-                  src={`/api/passes/${p.id}/thumbnail.svg?v=${p.seq}`}
-                  alt={`Pass ${p.number}`}
-                  width={272}
-                  height={272}
-                  className="aspect-square w-full bg-white"
-                />
+                <img src={`/api/passes/${p.id}/thumbnail.svg?v=${p.seq}`} alt="" width={272} height={272} className="aspect-square w-full bg-white" />
                 <p className="mt-1 flex justify-between text-sm">
-                  <span className="font-bold">Pass {p.number}</span>
+                  <span className="font-bold">Open pass {p.number}</span>
                   <span className="text-graphite-faint" data-testid={`pass-${p.number}-strokes`}>
                     {p.strokeCount} strokes
                   </span>

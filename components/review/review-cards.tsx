@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/button';
 import { useChecklist, useFindings, useStamps } from '@/hooks/use-review';
 import { BEAT_KINDS, BEAT_LABELS } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
+import type { StampDecision } from '@/lib/review/words';
 
 export function ChecklistCard({ passId, canTick }: { passId: string; canTick: boolean }) {
   const { data, setTicked } = useChecklist(passId);
@@ -119,7 +120,7 @@ export function StampCard({ gagId, passId, passNumber, canStamp }: { gagId: stri
   const [error, setError] = useState<string | null>(null);
   const mine = (data ?? []).filter((s) => s.passId === passId);
   const current = mine[0];
-  const act = async (decision: 'ready' | 'again') => {
+  const act = async (decision: StampDecision) => {
     setBusy(true);
     setError(null);
     try {

@@ -7,7 +7,8 @@ const TONES: Record<GagStatus, string> = {
   in_review: 'bg-ink-light text-ink border-ink/30',
   ready_to_ink: 'bg-stamp-light text-stamp border-stamp/50',
   inked: 'bg-graphite text-white border-graphite',
-  scanned: 'bg-marker-60 text-white border-marker-60',
+  // White on marker-80 is about 6.6:1 (WCAG 2.x AA asks 4.5:1 for small text).
+  scanned: 'bg-marker-80 text-white border-marker-80',
   placed: 'bg-paper-deep text-graphite border-paper-edge',
 };
 

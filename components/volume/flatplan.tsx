@@ -4,7 +4,7 @@
 import { AlertTriangle } from 'lucide-react';
 import type { Flatplan as FlatplanData } from '@/db/queries/volumes';
 import { STATUS_LABELS } from '@/lib/gags/status';
-import { MATTER_LABELS } from './running-order';
+import { MATTER_LABELS } from '@/lib/print/matter';
 
 export function FlatplanView({ data, binding }: { data: FlatplanData; binding: 'saddle' | 'perfect' }) {
   const byNumber = new Map(data.pages.map((p) => [p.number, p]));

@@ -11,11 +11,8 @@ import { StatusBadge } from '@/components/ui/status-badge';
 import type { EntryDto } from '@/db/queries/volumes';
 import type { GagStatus } from '@/lib/gags/status';
 import { api, messageOf } from '@/lib/http/client';
-import { MATTER_KINDS } from '@/lib/validation/volume';
 
-export { MATTER_LABELS, entryLabel } from './labels';
-import { entryLabel } from './labels';
-import { MATTER_LABELS } from './labels';
+import { MATTER_KINDS, MATTER_LABELS, entryLabel } from '@/lib/print/matter';
 
 function Row({ entry, index, canEdit, onRemove }: { entry: EntryDto; index: number; canEdit: boolean; onRemove: () => void }) {
   const { attributes, listeners, setNodeRef, transform, transition, isDragging } = useSortable({ id: entry.id, disabled: !canEdit });

@@ -1,22 +1,15 @@
 // Gags with their four beats. Every write that touches a beat also bumps the
 // gag's updatedAt, so "last change" on the board means any change.
-import type { Kysely, Transaction } from 'kysely';
+import type { Kysely, Selectable, Transaction } from 'kysely';
 import { BEAT_KINDS, type BeatKind, type GagStatus, checkManualMove } from '@/lib/gags/status';
 import { Refused } from '@/lib/refused';
-import type { Database } from '../database';
+import type { BeatsTable, Database, GagsTable } from '../database';
 import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 
-export type BeatDto = { kind: BeatKind; note: string; updatedAt: string };
-export type GagDto = {
-  id: string;
-  seriesId: string;
-  title: string;
-  premise: string;
-  status: GagStatus;
-  position: number;
-  createdAt: string;
-  updatedAt: string;
+export type BeatDto = Pick<Selectable<BeatsTable>, 'kind' | 'note' | 'updatedAt'>;
+/** A gag as the app shows it: its row (but who started it), its beats, and its newest pass. */
+export type GagDto = Omit<Selectable<GagsTable>, 'createdBy'> & {
   beats: BeatDto[];
   beatsWritten: number;
   /** The newest pass, for the board's thumbnail. */

@@ -70,14 +70,26 @@ export async function liveItems<I extends { id: string }, R extends { rowId: num
   kind: Kind<I, R>,
   passId: string,
 ): Promise<I[]> {
+  return (await liveItemsOfPasses(db, kind, [passId])).get(passId) ?? [];
+}
+
+/** The live items of several passes in one query, by pass. */
+export async function liveItemsOfPasses<I extends { id: string }, R extends { rowId: number; addedSeq: number; removedSeq: number | null }>(
+  db: Db,
+  kind: Kind<I, R>,
+  passIds: string[],
+): Promise<Map<string, I[]>> {
+  const out = new Map<string, I[]>(passIds.map((id) => [id, []]));
+  if (passIds.length === 0) return out;
   const rows = await loose(db)
     .selectFrom(kind.table)
     .selectAll()
-    .where('passId', '=', passId)
+    .where('passId', 'in', passIds)
     .where('removedSeq', 'is', null)
     .orderBy('rowId')
     .execute();
-  return rows.map((r) => kind.toItem(r as R));
+  for (const r of rows) out.get(r.passId as string)?.push(kind.toItem(r as R));
+  return out;
 }
 
 /** Items changed after `since` (live values) and ids taken away after it. */

@@ -121,15 +121,23 @@ export async function listPasses(db: Db, gagId: string): Promise<PassSummary[]> 
 }
 
 export async function liveStrokes(db: Db, passId: string): Promise<Stroke[]> {
+  return (await liveStrokesOfPasses(db, [passId])).get(passId) ?? [];
+}
+
+/** The live strokes of several passes in one query, by pass (for thumbnails side by side). */
+export async function liveStrokesOfPasses(db: Db, passIds: string[]): Promise<Map<string, Stroke[]>> {
+  const out = new Map<string, Stroke[]>(passIds.map((id) => [id, []]));
+  if (passIds.length === 0) return out;
   const rows = await db
     .selectFrom('strokes')
-    .select(['strokeId', 'panel', 'tool', 'grey', 'size', 'points', 'ox', 'oy'])
-    .where('passId', '=', passId)
+    .select(['passId', 'strokeId', 'panel', 'tool', 'grey', 'size', 'points', 'ox', 'oy'])
+    .where('passId', 'in', passIds)
     .where('removedSeq', 'is', null)
     .orderBy('addedSeq')
     .orderBy('rowId')
     .execute();
-  return rows.map((r) => rowToStroke(r, r.ox, r.oy));
+  for (const r of rows) out.get(r.passId)?.push(rowToStroke(r, r.ox, r.oy));
+  return out;
 }
 
 export async function liveRooms(db: Db, passId: string): Promise<Room[]> {

@@ -4,7 +4,8 @@ import 'server-only';
 import { notFound, redirect } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { findGag, listGags } from '@/db/queries/gags';
-import { findPassByNumber, listPasses, passState } from '@/db/queries/passes';
+import { findPassByNumber, listPasses, liveStrokesOfPasses, passState } from '@/db/queries/passes';
+import { ROOMS, liveItemsOfPasses } from '@/db/queries/pass-items';
 import { findSeries, listSeriesForUser, pageSpecForGag, pageSpecOf } from '@/db/queries/series';
 import { passToSvg } from '@/lib/strokes/svg';
 import { findVolume, listEntries, unplacedGags } from '@/db/queries/volumes';
@@ -72,19 +73,18 @@ export async function loadPassThumbnails(seriesId: string, gagId: string) {
   const db = await getDb();
   const spec = await pageSpecForGag(db, seriesId, gagId);
   const passes = await listPasses(db, gagId);
-  const out = [];
-  for (const p of passes) {
-    const state = await passState(db, p.id);
-    if (!state) continue;
-    out.push({
-      id: p.id,
-      number: p.number,
-      seq: p.seq,
-      strokeCount: p.strokeCount,
-      updatedAt: p.updatedAt,
-      svg: passToSvg(spec, state.strokes, state.rooms, { idPrefix: `pass${p.number}`, title: `Pass ${p.number}` }),
-    });
-  }
+  // Two queries for all the passes, however many there are.
+  const ids = passes.map((p) => p.id);
+  const strokes = await liveStrokesOfPasses(db, ids);
+  const rooms = await liveItemsOfPasses(db, ROOMS, ids);
+  const out = passes.map((p) => ({
+    id: p.id,
+    number: p.number,
+    seq: p.seq,
+    strokeCount: p.strokeCount,
+    updatedAt: p.updatedAt,
+    svg: passToSvg(spec, strokes.get(p.id) ?? [], rooms.get(p.id) ?? [], { idPrefix: `pass${p.number}`, title: `Pass ${p.number}` }),
+  }));
   return { spec, passes: out };
 }
 

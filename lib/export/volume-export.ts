@@ -5,7 +5,7 @@ import type { Database } from '@/db/database';
 import { findGag } from '@/db/queries/gags';
 import { passState } from '@/db/queries/passes';
 import { type EntryDto, type VolumeDto, findVolume, listEntries } from '@/db/queries/volumes';
-import { entryLabel } from '@/components/volume/labels';
+import { entryLabel } from '@/lib/print/matter';
 import { uploadKeys } from '@/db/queries/uploads';
 import { getObject } from '@/lib/storage/s3';
 import sharp from 'sharp';

@@ -1,5 +1,6 @@
 // Outgoing messages, each with a text and an HTML body (pure).
 import { ROLE_LABELS, type Role } from '@/lib/auth/permissions';
+import type { StampDecision } from '@/lib/review/words';
 
 export type Mail = { subject: string; text: string; html: string };
 
@@ -46,14 +47,7 @@ export function mentionMail(p: { author: string; gagTitle: string; excerpt: stri
   };
 }
 
-export function stampMail(p: {
-  editor: string;
-  gagTitle: string;
-  passNumber: number;
-  decision: 'ready' | 'again';
-  note: string;
-  link: string;
-}): Mail {
+export function stampMail(p: { editor: string; gagTitle: string; passNumber: number; decision: StampDecision; note: string; link: string }): Mail {
   const verdict = p.decision === 'ready' ? 'is ready to ink' : 'needs another pass';
   const subject = `“${p.gagTitle}” ${verdict}`;
   const lines = [`${p.editor} stamped pass ${p.passNumber} of “${p.gagTitle}”: ${verdict}.`, ...(p.note ? [`Note: ${p.note}`] : [])];

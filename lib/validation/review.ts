@@ -1,10 +1,11 @@
 // Review-loop input: stamps, checklist ticks and items, comments.
 import { z } from 'zod';
 import { BEAT_KINDS } from '@/lib/gags/status';
+import { COMMENT_TARGETS, STAMP_DECISIONS } from '@/lib/review/words';
 
 export const stampSchema = z
   .object({
-    decision: z.enum(['ready', 'again'], { error: 'The decision is "ready" or "again".' }),
+    decision: z.enum(STAMP_DECISIONS, { error: 'The decision is "ready" or "again".' }),
     note: z.string().trim().max(1000, 'Keep the note under 1,000 characters.').default(''),
   })
   .strict();
@@ -28,7 +29,7 @@ export const commentCreateSchema = z
   .object({
     body: z.string().trim().min(1, 'Write something first.').max(4000, 'Keep a comment under 4,000 characters.'),
     parentId: z.string().min(1).max(64).optional(),
-    target: z.enum(['gag', 'pass', 'panel', 'beat', 'point']).default('gag'),
+    target: z.enum(COMMENT_TARGETS).default('gag'),
     passId: z.string().min(1).max(64).optional(),
     panel: z.number().int().min(0).max(3).optional(),
     beat: z.enum(BEAT_KINDS).optional(),

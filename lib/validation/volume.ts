@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { STAGES } from '@/lib/planning/plan';
 import { specProblems } from '@/lib/print/geometry';
+import { MATTER_KINDS } from '@/lib/print/matter';
 
 const date = z
   .string()
@@ -44,8 +45,6 @@ export const updateVolumeSchema = z
   })
   .strict()
   .refine((v) => Object.values(v).some((x) => x !== undefined), 'Send at least one field.');
-
-export const MATTER_KINDS = ['cover', 'inside-cover', 'title', 'credits', 'blank', 'afterword', 'inside-back', 'back-cover'] as const;
 
 export const addEntrySchema = z.union([z.object({ gagId: z.string().min(1).max(64) }).strict(), z.object({ kind: z.enum(MATTER_KINDS) }).strict()]);
 

@@ -6,12 +6,15 @@ import { type BrowserContext, type Page, chromium } from 'playwright-core';
 
 export const DEMO_PASSWORD = 'kettle-crab-demo';
 
-export async function openBrowser(): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
+export async function openBrowser(
+  opts: { viewport?: { width: number; height: number }; hasTouch?: boolean } = {},
+): Promise<{ context: BrowserContext; close: () => Promise<void> }> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-chromium-'));
   const context = await chromium.launchPersistentContext(dir, {
     executablePath: process.env.CHROMIUM_PATH || '/usr/bin/chromium',
     headless: true,
-    viewport: { width: 1280, height: 900 },
+    viewport: opts.viewport ?? { width: 1280, height: 900 },
+    hasTouch: opts.hasTouch ?? false,
     args: [
       '--headless',
       '--no-sandbox',

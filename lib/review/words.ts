@@ -1,0 +1,10 @@
+// The review loop's fixed word lists, one place each (as GagStatus and Role are):
+// the validation, the database types, the forms and the e-mails all read these.
+
+/** An editor's decision on a pass: "ready to ink", or "needs another pass". */
+export const STAMP_DECISIONS = ['ready', 'again'] as const;
+export type StampDecision = (typeof STAMP_DECISIONS)[number];
+
+/** What a comment is pinned to. */
+export const COMMENT_TARGETS = ['gag', 'pass', 'panel', 'beat', 'point'] as const;
+export type CommentTarget = (typeof COMMENT_TARGETS)[number];
