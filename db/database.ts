@@ -1,6 +1,6 @@
 // The database's shape as the app sees it (camelCase; columns are snake_case,
 // mapped by Kysely's CamelCasePlugin). Migrations never import this file.
-import type { ColumnType, Generated, Insertable, Selectable, Updateable } from 'kysely';
+import type { ColumnType, Generated, Selectable } from 'kysely';
 import type { BeatKind, GagStatus } from '@/lib/gags/status';
 import type { Role } from '@/lib/auth/permissions';
 import type { RoomShape, StrokeTool } from '@/lib/strokes/types';
@@ -350,7 +350,5 @@ export interface Database {
 }
 
 export type User = Selectable<UsersTable>;
-export type NewUser = Insertable<UsersTable>;
 export type Gag = Selectable<GagsTable>;
-export type GagUpdate = Updateable<GagsTable>;
 export type Beat = Selectable<BeatsTable>;

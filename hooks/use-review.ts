@@ -4,7 +4,6 @@
 import useSWR from 'swr';
 import { useLive, useLiveSWR } from '@/hooks/use-live';
 import type { CommentDto, ThreadDto } from '@/db/queries/comments';
-import type { MemberDto } from '@/db/queries/members';
 import type { PresenceDto } from '@/db/queries/presence';
 import type { ChecklistItemDto } from '@/db/queries/review';
 import type { StampDto } from '@/db/queries/stamps';
@@ -67,10 +66,6 @@ export function usePresence(gagId: string | null, where: string): { data: Presen
     { refreshInterval: 5000, revalidateOnFocus: true },
   );
   return { data: live.connected && live.presence ? live.presence : polled.data };
-}
-
-export function useMembers(seriesId: string | null) {
-  return useSWR<MemberDto[]>(seriesId ? `/api/series/${seriesId}/members` : null, fetcher);
 }
 
 export function useActivity(seriesId: string) {

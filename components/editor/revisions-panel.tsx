@@ -1,9 +1,9 @@
 'use client';
 import { History } from 'lucide-react';
-import { useLiveSWR } from '@/hooks/use-live';
+import { useRevisions } from '@/hooks/use-passes';
 import { useState } from 'react';
 import type { RevisionDto } from '@/db/queries/passes';
-import { api, fetcher, messageOf } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 
 const REASONS: Record<RevisionDto['reason'], string> = {
   created: 'Pass started',
@@ -15,16 +15,15 @@ const REASONS: Record<RevisionDto['reason'], string> = {
 };
 
 export function RevisionsPanel({ passId, canRestore, onRestored }: { passId: string; canRestore: boolean; onRestored: () => void }) {
-  const { data, mutate } = useLiveSWR<RevisionDto[]>(`/api/passes/${passId}/revisions`, fetcher, { types: ['seq'], pollMs: 5000 });
+  const { data, restore: restoreRevision } = useRevisions(passId);
   const [busy, setBusy] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
   async function restore(id: string) {
     setBusy(id);
     setError(null);
     try {
-      await api(`/api/passes/${passId}/revisions/${id}/restore`, { method: 'POST' });
+      await restoreRevision(id);
       onRestored();
-      await mutate();
     } catch (err) {
       setError(messageOf(err, 'Could not restore.'));
     } finally {

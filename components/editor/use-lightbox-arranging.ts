@@ -5,10 +5,9 @@
 import type Konva from 'konva';
 import { nanoid } from 'nanoid';
 import { useCallback, useMemo, useRef, useState } from 'react';
-import useSWR from 'swr';
 import { useUploadJobs } from '@/components/uploads/upload-jobs';
-import type { UploadDto, UploadListItem } from '@/db/queries/uploads';
-import { fetcher } from '@/lib/http/client';
+import type { UploadDto } from '@/db/queries/uploads';
+import { useUploads } from '@/hooks/use-uploads';
 import type { Rect } from '@/lib/print/geometry';
 import { centreAt, fitInto, scaleTo, turnQuarter, turned } from '@/lib/strokes/lightbox';
 import type { Lightbox, Op } from '@/lib/strokes/types';
@@ -22,7 +21,7 @@ export function useLightboxArranging(o: { seriesId: string; session: PassSession
   const [selected, setSelected] = useState<string | null>(null);
   /** A value shown while a slider moves, before it is committed. */
   const [preview, setPreview] = useState<Lightbox | null>(null);
-  const { data: uploads, mutate: reloadUploads } = useSWR<UploadListItem[]>(`/api/series/${o.seriesId}/uploads`, fetcher);
+  const { data: uploads, mutate: reloadUploads } = useUploads(o.seriesId);
   const uploadsById = useMemo(() => new Map((uploads ?? []).map((u) => [u.id, u])), [uploads]);
   const areaOf = useCallback((t: Target) => (t === null ? bleed : panels[t]!), [bleed, panels]);
   const current = (id: string) => session.syncRef.current?.doc.lightboxes.get(id);

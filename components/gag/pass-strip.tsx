@@ -3,9 +3,8 @@
 // geometry as the editor), with the beat notes under its panels. The list
 // follows the page's stream, so strokes others draw show up here without a reload.
 import Link from 'next/link';
-import { useLiveSWR } from '@/hooks/use-live';
+import { usePasses } from '@/hooks/use-passes';
 import type { PassSummary } from '@/db/queries/passes';
-import { fetcher } from '@/lib/http/client';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import { NewPassButton } from './new-pass-button';
 
@@ -22,7 +21,7 @@ export function PassStrip({
   beats: { kind: BeatKind; note: string }[];
   canEdit: boolean;
 }) {
-  const { data } = useLiveSWR<PassSummary[]>(`/api/gags/${gagId}/passes`, fetcher, { fallbackData: initial, types: ['passes'], pollMs: 2000 });
+  const { data } = usePasses(gagId, initial);
   const passes = data ?? initial;
   const notes = Object.fromEntries(beats.map((b) => [b.kind, b.note])) as Record<BeatKind, string>;
   return (

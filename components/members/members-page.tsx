@@ -3,22 +3,19 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import useSWR from 'swr';
 import type { z } from 'zod';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import type { MemberDto } from '@/db/queries/members';
-import { useMembers } from '@/hooks/use-review';
+import { useInvitations, useMe, useMembers } from '@/hooks/use-members';
 import { ROLES, ROLE_HINT, ROLE_LABELS, type Role } from '@/lib/auth/permissions';
-import { api, fetcher, messageOf } from '@/lib/http/client';
+import { api, messageOf } from '@/lib/http/client';
 import { inviteSchema } from '@/lib/validation/members';
-
-type Invitation = { id: string; email: string; role: Role; expiresAt: string; invitedBy: string };
 
 export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { seriesId: string; seriesTitle: string; canManage: boolean; meId: string }) {
   const { data: members, mutate } = useMembers(seriesId);
-  const invitations = useSWR<Invitation[]>(canManage ? `/api/series/${seriesId}/invitations` : null, fetcher);
-  const me = useSWR<{ notifyEmail: boolean }>('/api/me', fetcher);
+  const invitations = useInvitations(seriesId, canManage);
+  const me = useMe();
   const [message, setMessage] = useState<string | null>(null);
   const form = useForm<z.input<typeof inviteSchema>>({ resolver: zodResolver(inviteSchema), defaultValues: { email: '', role: 'viewer' } });
 

@@ -5,7 +5,8 @@ import { MessageSquare } from 'lucide-react';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import type { ThreadDto } from '@/db/queries/comments';
-import { useComments, useMembers } from '@/hooks/use-review';
+import { useMembers } from '@/hooks/use-members';
+import { useComments } from '@/hooks/use-review';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
 

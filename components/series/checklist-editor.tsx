@@ -1,14 +1,12 @@
 'use client';
 // The owner's wording of the silent-read checklist for this series: one item a line.
 import { useState } from 'react';
-import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
-import { api, fetcher, messageOf } from '@/lib/http/client';
-
-type Item = { id: string; text: string };
+import { useSeriesChecklist } from '@/hooks/use-series-checklist';
+import { messageOf } from '@/lib/http/client';
 
 export function ChecklistEditor({ seriesId, canEdit }: { seriesId: string; canEdit: boolean }) {
-  const { data, mutate } = useSWR<Item[]>(`/api/series/${seriesId}/checklist`, fetcher);
+  const { data, save: saveItems } = useSeriesChecklist(seriesId);
   const [rows, setRows] = useState<{ id?: string; text: string }[] | null>(null);
   const [message, setMessage] = useState<string | null>(null);
   const items = rows ?? data ?? [];
@@ -16,8 +14,7 @@ export function ChecklistEditor({ seriesId, canEdit }: { seriesId: string; canEd
   const save = async () => {
     setMessage(null);
     try {
-      const next = await api<Item[]>(`/api/series/${seriesId}/checklist`, { method: 'PUT', json: { items: items.filter((r) => r.text.trim()) } });
-      await mutate(next, { revalidate: false });
+      await saveItems(items.filter((r) => r.text.trim()));
       setRows(null);
       setMessage('Checklist saved.');
     } catch (err) {

@@ -3,15 +3,15 @@
 // a real progress bar (XHR upload progress), and a clear message on failure.
 import { ImagePlus, Trash2 } from 'lucide-react';
 import { useCallback, useRef, useState } from 'react';
-import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import type { UploadListItem } from '@/db/queries/uploads';
-import { api, ApiError, fetcher, messageOf } from '@/lib/http/client';
+import { useUploads } from '@/hooks/use-uploads';
+import { api, ApiError, messageOf } from '@/lib/http/client';
 import { ImageFilesInput, UploadJobList, useUploadJobs } from './upload-jobs';
 
 export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpload: boolean }) {
-  const { data, mutate } = useSWR<UploadListItem[]>(`/api/series/${seriesId}/uploads`, fetcher);
+  const { data, mutate } = useUploads(seriesId);
   const [over, setOver] = useState(false);
   const [confirm, setConfirm] = useState<UploadListItem | null>(null);
   const input = useRef<HTMLInputElement>(null);

@@ -1,32 +1,16 @@
 'use client';
 // One volume: running order, flatplan, print spec, planner and exports.
 import Link from 'next/link';
-import useSWR from 'swr';
-import type { EntryDto, Flatplan, VolumeDto } from '@/db/queries/volumes';
+import { type VolumeData, useVolume } from '@/hooks/use-volumes';
 import { type Role, can } from '@/lib/auth/permissions';
-import type { GagStatus } from '@/lib/gags/status';
-import { api, fetcher } from '@/lib/http/client';
 import { Exports } from './exports';
 import { FlatplanView } from './flatplan';
-import { type PlanData, Planner } from './planner';
+import { Planner } from './planner';
 import { RunningOrder } from './running-order';
 import { VolumeSpecForm } from './volume-spec-form';
 
-type VolumeData = VolumeDto & { entries: EntryDto[]; unplaced: { id: string; title: string; status: GagStatus }[] };
-
 export function VolumePage({ seriesId, seriesTitle, role, initial }: { seriesId: string; seriesTitle: string; role: Role; initial: VolumeData }) {
-  const vol = useSWR<VolumeData>(`/api/volumes/${initial.id}`, fetcher, { fallbackData: initial });
-  const flat = useSWR<Flatplan>(`/api/volumes/${initial.id}/flatplan`, fetcher);
-  const plan = useSWR<PlanData>(`/api/volumes/${initial.id}/plan`, fetcher);
-  const v = vol.data ?? initial;
-  const refresh = async (next?: EntryDto[]) => {
-    if (next) await vol.mutate({ ...v, entries: next }, { revalidate: false });
-    else await Promise.all([vol.mutate(), flat.mutate(), plan.mutate()]);
-  };
-  const patch = async (body: Record<string, unknown>) => {
-    await api(`/api/volumes/${v.id}`, { method: 'PATCH', json: body });
-    await Promise.all([vol.mutate(), flat.mutate(), plan.mutate()]);
-  };
+  const { volume: v, flatplan, plan, refresh, patch } = useVolume(initial);
   return (
     <div className="space-y-8">
       <div>
@@ -42,8 +26,8 @@ export function VolumePage({ seriesId, seriesTitle, role, initial }: { seriesId:
         </p>
       </div>
       <RunningOrder volumeId={v.id} entries={v.entries} unplaced={v.unplaced} canEdit={can(role, 'edit')} onChanged={refresh} />
-      {flat.data && <FlatplanView data={flat.data} binding={v.spec.binding} />}
-      {plan.data && <Planner data={plan.data} canEdit={can(role, 'manage')} onPatch={patch} />}
+      {flatplan && <FlatplanView data={flatplan} binding={v.spec.binding} />}
+      {plan && <Planner data={plan} canEdit={can(role, 'manage')} onPatch={patch} />}
       <VolumeSpecForm
         key={JSON.stringify(v.spec)}
         spec={v.spec}

@@ -3,14 +3,13 @@
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
-import type { VolumeDto } from '@/db/queries/volumes';
-import { api, fetcher, messageOf } from '@/lib/http/client';
+import { useVolumes } from '@/hooks/use-volumes';
+import { messageOf } from '@/lib/http/client';
 
 export function VolumesList({ seriesId, canCreate }: { seriesId: string; canCreate: boolean }) {
   const router = useRouter();
-  const { data } = useSWR<VolumeDto[]>(`/api/series/${seriesId}/volumes`, fetcher);
+  const { data, create } = useVolumes(seriesId);
   const [title, setTitle] = useState('');
   const [deadline, setDeadline] = useState('');
   const [error, setError] = useState<string | null>(null);
@@ -37,7 +36,7 @@ export function VolumesList({ seriesId, canCreate }: { seriesId: string; canCrea
             e.preventDefault();
             setError(null);
             try {
-              const v = await api<VolumeDto>(`/api/series/${seriesId}/volumes`, { method: 'POST', json: { title, deadline } });
+              const v = await create({ title, deadline });
               router.push(`/series/${seriesId}/volumes/${v.id}`);
             } catch (err) {
               setError(messageOf(err, 'Could not create the volume.'));

@@ -13,10 +13,6 @@ export function fakeSmtpPort(): number {
   return Number(process.env.MAIL_FAKE_PORT || FAKE_SMTP_PORT_DEFAULT);
 }
 
-export function usesFakeMail(): boolean {
-  return !process.env.SMTP_URL;
-}
-
 function transport() {
   if (process.env.SMTP_URL) return nodemailer.createTransport(process.env.SMTP_URL);
   // The fake speaks plain SMTP on loopback only.

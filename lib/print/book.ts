@@ -1,5 +1,5 @@
 // The arithmetic of a printed volume (pure). Lengths in mm unless the name says pt or px.
-import { MM_PER_INCH, type PageSpec, type Rect, bleedBox, mmToPt, mmToPx, safeBox } from './geometry';
+import { MM_PER_INCH, type PageSpec, mmToPt, mmToPx, safeBox } from './geometry';
 
 export type Binding = 'saddle' | 'perfect';
 export type ReadingDirection = 'ltr' | 'rtl';
@@ -60,10 +60,6 @@ export function pdfBoxes(spec: PageSpec): { media: PdfBox; bleed: PdfBox; trim: 
     trim: [b, b, b + mmToPt(spec.trimW), b + mmToPt(spec.trimH)],
     safe: [b + mmToPt(s.x), b + mmToPt(spec.trimH - s.y - s.h), b + mmToPt(s.x + s.w), b + mmToPt(spec.trimH - s.y)],
   };
-}
-
-export function mediaRect(spec: PageSpec): Rect {
-  return bleedBox(spec);
 }
 
 /** Saddle stitching folds sheets of 4 pages: a multiple of 4. Perfect binding glues leaves: even. */

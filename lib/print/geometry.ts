@@ -18,8 +18,6 @@ export type PageSpec = {
 /** The series default until volumes bring their own (PRODUCT.md / issue 3). */
 export const DEFAULT_PAGE_SPEC: PageSpec = { trimW: 150, trimH: 150, bleed: 3, safe: 5, gutter: 4 };
 
-export const PANEL_COUNT = 4;
-
 export function mmToPt(mm: number): number {
   return (mm / MM_PER_INCH) * PT_PER_INCH;
 }
@@ -31,10 +29,6 @@ export function mmToPx(mm: number, ppi: number): number {
 }
 export function pxToMm(px: number, ppi: number): number {
   return (px / ppi) * MM_PER_INCH;
-}
-
-export function trimBox(spec: PageSpec): Rect {
-  return { x: 0, y: 0, w: spec.trimW, h: spec.trimH };
 }
 
 /** The trim box grown by the bleed on every side. */

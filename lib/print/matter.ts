@@ -2,7 +2,6 @@
 // back matter. Names as the volume page and the exports show them.
 
 export const MATTER_KINDS = ['cover', 'inside-cover', 'title', 'credits', 'blank', 'afterword', 'inside-back', 'back-cover'] as const;
-export type MatterKind = (typeof MATTER_KINDS)[number];
 export const ENTRY_KINDS = ['gag', ...MATTER_KINDS] as const;
 export type EntryKind = (typeof ENTRY_KINDS)[number];
 

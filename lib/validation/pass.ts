@@ -63,7 +63,6 @@ export const batchSchema = z.object({
   batchId: clientId,
   ops: z.array(opSchema).min(1, 'A batch holds at least one operation.').max(5000),
 });
-export type BatchInput = { batchId: string; ops: Op[] };
 
 export const createPassSchema = z.object({ copyFrom: z.number().int().positive().optional() }).strict();
 

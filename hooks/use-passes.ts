@@ -1,0 +1,18 @@
+'use client';
+// A gag's passes and a pass's revisions, kept fresh by the page's live stream.
+import type { PassSummary, RevisionDto } from '@/db/queries/passes';
+import { useLiveSWR } from '@/hooks/use-live';
+import { api, fetcher } from '@/lib/http/client';
+
+export function usePasses(gagId: string, fallbackData?: PassSummary[]) {
+  return useLiveSWR<PassSummary[]>(`/api/gags/${gagId}/passes`, fetcher, { fallbackData, types: ['passes'], pollMs: 2000 });
+}
+
+export function useRevisions(passId: string) {
+  const swr = useLiveSWR<RevisionDto[]>(`/api/passes/${passId}/revisions`, fetcher, { types: ['seq'], pollMs: 5000 });
+  async function restore(revisionId: string) {
+    await api(`/api/passes/${passId}/revisions/${revisionId}/restore`, { method: 'POST' });
+    await swr.mutate();
+  }
+  return { ...swr, restore };
+}

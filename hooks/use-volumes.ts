@@ -1,0 +1,37 @@
+'use client';
+// Volumes: a series' list, and one volume with its flatplan and plan kept in step.
+import useSWR from 'swr';
+import type { EntryDto, Flatplan, VolumeDto } from '@/db/queries/volumes';
+import type { GagStatus } from '@/lib/gags/status';
+import { api, fetcher } from '@/lib/http/client';
+import type { PlanData } from '@/components/volume/planner';
+
+export type VolumeData = VolumeDto & { entries: EntryDto[]; unplaced: { id: string; title: string; status: GagStatus }[] };
+
+export function useVolumes(seriesId: string | null) {
+  const swr = useSWR<VolumeDto[]>(seriesId ? `/api/series/${seriesId}/volumes` : null, fetcher);
+  async function create(input: { title: string; deadline: string }) {
+    const v = await api<VolumeDto>(`/api/series/${seriesId}/volumes`, { method: 'POST', json: input });
+    await swr.mutate();
+    return v;
+  }
+  return { ...swr, create };
+}
+
+export function useVolume(initial: VolumeData) {
+  const vol = useSWR<VolumeData>(`/api/volumes/${initial.id}`, fetcher, { fallbackData: initial });
+  const flat = useSWR<Flatplan>(`/api/volumes/${initial.id}/flatplan`, fetcher);
+  const plan = useSWR<PlanData>(`/api/volumes/${initial.id}/plan`, fetcher);
+  const volume = vol.data ?? initial;
+  const reloadAll = () => Promise.all([vol.mutate(), flat.mutate(), plan.mutate()]);
+  /** After a running-order change: the new entries at once, or everything read again. */
+  async function refresh(next?: EntryDto[]) {
+    if (next) await vol.mutate({ ...volume, entries: next }, { revalidate: false });
+    else await reloadAll();
+  }
+  async function patch(body: Record<string, unknown>) {
+    await api(`/api/volumes/${volume.id}`, { method: 'PATCH', json: body });
+    await reloadAll();
+  }
+  return { volume, flatplan: flat.data, plan: plan.data, refresh, patch };
+}
