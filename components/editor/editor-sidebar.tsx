@@ -6,6 +6,7 @@ import { PresenceBar } from '@/components/review/presence-bar';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import type { Findings } from '@/lib/review/findings';
 import type { Lightbox } from '@/lib/strokes/types';
+import type { EditorProps } from './editor';
 import { LightboxPanel } from './lightbox-panel';
 import { RevisionsPanel } from './revisions-panel';
 import type { LightboxArranging } from './use-lightbox-arranging';
@@ -46,28 +47,21 @@ export function FindingsPanel({
   );
 }
 
-export function EditorSidebar(p: {
-  passId: string;
-  passNumber: number;
-  gagId: string;
-  seriesId: string;
-  meId: string;
-  passes: { id: string; number: number }[];
-  canDraw: boolean;
-  canComment: boolean;
-  canRestore: boolean;
-  notes: Record<BeatKind, string>;
-  findings: Findings | undefined;
-  highlight: boolean;
-  setHighlight: (on: boolean) => void;
-  lightboxes: Lightbox[];
-  arranging: LightboxArranging;
-  /** A lightbox chosen in the panel: arrange it on the canvas. */
-  onChooseLightbox: (id: string) => void;
-  pointPin: PointPin | null;
-  setPointPin: (pin: PointPin | null) => void;
-  onRestored: () => void;
-}) {
+export function EditorSidebar(
+  p: Pick<EditorProps, 'passId' | 'passNumber' | 'gagId' | 'seriesId' | 'meId' | 'passes' | 'canDraw' | 'canComment' | 'canRestore'> & {
+    notes: Record<BeatKind, string>;
+    findings: Findings | undefined;
+    highlight: boolean;
+    setHighlight: (on: boolean) => void;
+    lightboxes: Lightbox[];
+    arranging: LightboxArranging;
+    /** A lightbox chosen in the panel: arrange it on the canvas. */
+    onChooseLightbox: (id: string) => void;
+    pointPin: PointPin | null;
+    setPointPin: (pin: PointPin | null) => void;
+    onRestored: () => void;
+  },
+) {
   const a = p.arranging;
   return (
     <>

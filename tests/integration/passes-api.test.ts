@@ -10,7 +10,7 @@ import { applyBatch, storedPointBytes } from '@/db/queries/passes';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import type { Point, Stroke } from '@/lib/strokes/types';
 import { callRoute } from '../support/call-route';
-import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
+import { DEMO_SERIES_ID, type Persona, countRows, freshDb } from '../support/test-db';
 
 let db: Awaited<ReturnType<typeof freshDb>>;
 beforeAll(async () => {
@@ -40,25 +40,7 @@ async function state(passId: string) {
 
 const ids = (s: { strokes: Stroke[] }) => s.strokes.map((x) => x.id).sort();
 
-async function rowCounts() {
-  const n = async (t: 'strokes' | 'passBatches' | 'strokeMoves' | 'strokeTombstones' | 'rooms' | 'revisions') =>
-    Number(
-      (
-        await db
-          .selectFrom(t)
-          .select((eb) => eb.fn.countAll<number>().as('n'))
-          .executeTakeFirstOrThrow()
-      ).n,
-    );
-  return {
-    strokes: await n('strokes'),
-    batches: await n('passBatches'),
-    moves: await n('strokeMoves'),
-    tombstones: await n('strokeTombstones'),
-    rooms: await n('rooms'),
-    revisions: await n('revisions'),
-  };
-}
+const rowCounts = () => countRows(db, ['strokes', 'passBatches', 'strokeMoves', 'strokeTombstones', 'rooms', 'revisions']);
 
 describe('passes', () => {
   it('numbers passes 1, 2, 3… and lists them', async () => {
@@ -191,7 +173,7 @@ describe('operations', () => {
     const a = await measure(small.id, 'one-small');
     const b = await measure(big.id, 'one-big');
     expect(a).toEqual(b);
-    expect(a).toMatchObject({ strokes: 1, batches: 1 });
+    expect(a).toMatchObject({ strokes: 1, passBatches: 1 });
   });
 
   it('stores points in at most a third of the bytes of plain JSON', async () => {

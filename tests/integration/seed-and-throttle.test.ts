@@ -4,33 +4,14 @@ import { DEMO_GAGS, DEMO_USERS, seedDemo } from '@/db/seed/demo';
 import { MAX_FAILURES, WINDOW_MS, isThrottled, noteFailure, noteSuccess } from '@/lib/auth/throttle';
 import { verifyPassword } from '@/lib/auth/password';
 import { GAG_STATUSES } from '@/lib/gags/status';
-import { freshDb } from '../support/test-db';
+import { countRows, freshDb } from '../support/test-db';
 
 let db: Awaited<ReturnType<typeof freshDb>>;
 beforeAll(async () => {
   db = await freshDb();
 });
 
-async function counts() {
-  const n = async (t: 'users' | 'series' | 'memberships' | 'gags' | 'beats' | 'passes' | 'strokes') =>
-    Number(
-      (
-        await db
-          .selectFrom(t)
-          .select((eb) => eb.fn.countAll<number>().as('n'))
-          .executeTakeFirstOrThrow()
-      ).n,
-    );
-  return {
-    users: await n('users'),
-    series: await n('series'),
-    memberships: await n('memberships'),
-    gags: await n('gags'),
-    beats: await n('beats'),
-    passes: await n('passes'),
-    strokes: await n('strokes'),
-  };
-}
+const counts = () => countRows(db, ['users', 'series', 'memberships', 'gags', 'beats', 'passes', 'strokes']);
 
 describe('migrations and the demo seed', () => {
   it('migrating again applies nothing', async () => {

@@ -6,7 +6,9 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { inject } from 'vitest';
+import { type Kysely, sql } from 'kysely';
 import { getDb } from '@/db/client';
+import type { Database } from '@/db/database';
 import { DEMO_SERIES_ID, OTHER_SERIES_ID, seedDemo } from '@/db/seed/demo';
 import { createDatabase } from './pg-cluster';
 
@@ -22,6 +24,19 @@ export async function freshDatabaseUrl(): Promise<string> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-test-'));
   return `file:${path.join(dir, 'test.sqlite')}`;
 }
+
+/** How many rows each table holds now (to show that a refused request wrote nothing). */
+export async function countRows<T extends keyof Database>(db: Kysely<Database>, tables: T[]): Promise<Record<T, number>> {
+  const out = {} as Record<T, number>;
+  for (const t of tables) {
+    // Any table: counted with plain SQL (the builder's types are per table).
+    const r = await sql<{ n: number }>`select count(*) as n from ${sql.table(snakeCase(t))}`.execute(db);
+    out[t] = Number(r.rows[0]!.n);
+  }
+  return out;
+}
+
+const snakeCase = (name: string) => name.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
 
 export async function freshDb(opts: { seed?: boolean } = {}) {
   process.env.DATABASE_URL = await freshDatabaseUrl();
