@@ -1,6 +1,7 @@
 // npm run db:migrate | db:seed  (tsx db/cli.ts <command>)
 import { closeDb, createDb, migrateToLatest } from './client';
 import { isEmpty, seedDemo } from './seed/demo';
+import { seedDemoScan } from './seed/demo-scan';
 
 async function main(command: string | undefined, flags: string[]) {
   const db = createDb();
@@ -17,6 +18,8 @@ async function main(command: string | undefined, flags: string[]) {
       }
       await seedDemo(db);
       console.log('Demo data loaded: series "Kettle Crab" and "Lantern Moth" (password kettle-crab-demo).');
+      // DEMO_SCAN=off leaves the scan out (the browser tests' servers bring their own storage).
+      if (process.env.DEMO_SCAN !== 'off') console.log(await seedDemoScan(db));
       return;
     }
     throw new Error(`Unknown command "${command}". Use: migrate | seed [--if-empty]`);

@@ -320,7 +320,7 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
         const passId = `${g.id}-pass-${n}`;
         const exists = await trx.selectFrom('passes').select('id').where('id', '=', passId).executeTakeFirst();
         if (exists) continue;
-        const { strokes, rooms } = demoSketch(i, n);
+        const { strokes, rooms } = demoSketch(g.id, n);
         await trx
           .insertInto('passes')
           .values({

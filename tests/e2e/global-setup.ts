@@ -33,7 +33,8 @@ export default async function setup(project: TestProject) {
   const databaseUrl = `file:${path.join(dataDir, 'e2e.sqlite')}`;
   execFileSync(process.execPath, [path.join(root, 'node_modules/tsx/dist/cli.mjs'), 'db/cli.ts', 'seed'], {
     cwd: root,
-    env: { ...env, DATABASE_URL: databaseUrl },
+    // The test server brings its own storage: no demo scan in someone else's.
+    env: { ...env, DATABASE_URL: databaseUrl, DEMO_SCAN: 'off' },
     stdio: ['ignore', 'inherit', 'inherit'],
   });
 

@@ -40,7 +40,7 @@ export function ensureBuild(distDir: string, opts: { force?: boolean } = {}) {
 export function seed(databaseUrl: string) {
   execFileSync(process.execPath, [TSX_CLI, 'db/cli.ts', 'seed'], {
     cwd: ROOT,
-    env: { ...process.env, DATABASE_URL: databaseUrl },
+    env: { ...process.env, DATABASE_URL: databaseUrl, DEMO_SCAN: 'off' },
     stdio: ['ignore', 'inherit', 'inherit'],
   });
 }

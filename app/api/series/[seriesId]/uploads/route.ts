@@ -1,8 +1,8 @@
 // Uploads of scans and photos (multipart, field "file", several allowed).
-import { findUploadBySha, insertUpload, listUploads } from '@/db/queries/uploads';
+import { listUploads } from '@/db/queries/uploads';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
-import { putObject } from '@/lib/storage/s3';
-import { ACCEPTED, MAX_UPLOAD_BYTES, prepareUpload } from '@/lib/uploads/process';
+import { MAX_UPLOAD_BYTES, prepareUpload } from '@/lib/uploads/process';
+import { storeUpload } from '@/lib/uploads/store';
 import { bySeriesId } from '@/lib/http/series-of';
 
 type Params = { seriesId: string };
@@ -24,25 +24,7 @@ export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, s
   if (!(file instanceof Blob)) return jsonError(422, 'Send the image in a field named "file".');
   if (file.size > MAX_UPLOAD_BYTES) return jsonError(413, 'The file is over 25 MB.');
   const prepared = await prepareUpload(Buffer.from(await file.arrayBuffer()));
-  const existing = await findUploadBySha(db, seriesId, prepared.sha256);
-  if (existing) return Response.json({ ...existing, duplicate: true }, { status: 200 });
-  const ext = ACCEPTED[prepared.mime];
-  const prefix = `series/${seriesId}/uploads/${prepared.sha256}`;
-  const keys = { originalKey: `${prefix}/original.${ext}`, workingKey: `${prefix}/working.${ext}`, previewKey: `${prefix}/preview.webp` };
-  await putObject(keys.originalKey, prepared.original, prepared.mime);
-  await putObject(keys.workingKey, prepared.working, prepared.mime);
-  await putObject(keys.previewKey, prepared.preview, 'image/webp');
-  const name = (file instanceof File ? file.name : 'upload').slice(0, 200);
-  const row = await insertUpload(db, {
-    seriesId,
-    sha256: prepared.sha256,
-    name,
-    mime: prepared.mime,
-    bytes: prepared.bytes,
-    width: prepared.width,
-    height: prepared.height,
-    ...keys,
-    createdBy: user.id,
-  });
-  return Response.json(row, { status: 201 });
+  const name = file instanceof File ? file.name : 'upload';
+  const { upload, duplicate } = await storeUpload(db, { seriesId, userId: user.id, name, prepared });
+  return duplicate ? Response.json({ ...upload, duplicate: true }, { status: 200 }) : Response.json(upload, { status: 201 });
 });
