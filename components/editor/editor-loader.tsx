@@ -2,7 +2,7 @@
 // Konva needs a browser: the editor is loaded on the client only.
 import dynamic from 'next/dynamic';
 import { LiveProvider } from '@/components/live/live-provider';
-import type { EditorProps } from './editor';
+import type { EditorProps } from './types';
 
 const Editor = dynamic(() => import('./editor'), {
   ssr: false,

@@ -6,7 +6,7 @@ import { PresenceBar } from '@/components/review/presence-bar';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import type { Findings } from '@/lib/review/findings';
 import type { Lightbox } from '@/lib/strokes/types';
-import type { EditorProps } from './editor';
+import type { EditorProps } from './types';
 import { LightboxPanel } from './lightbox-panel';
 import { RevisionsPanel } from './revisions-panel';
 import type { LightboxArranging } from './use-lightbox-arranging';

@@ -12,9 +12,9 @@ import { nanoid } from 'nanoid';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { useComments, useFindings } from '@/hooks/use-review';
 import type { BeatKind } from '@/lib/gags/status';
-import { type PageSpec, bleedBox, panelAt, panelRects, safeBox } from '@/lib/print/geometry';
-import { toPage } from '@/lib/print/view';
-import { TONE_GREYS, type Lightbox, type Room, type RoomShape, type Stroke } from '@/lib/strokes/types';
+import { bleedBox, panelRects, safeBox } from '@/lib/print/geometry';
+import { TONE_GREYS, type RoomShape, type Stroke } from '@/lib/strokes/types';
+import { CanvasSurface } from './canvas-surface';
 import { EditorFrame } from './editor-frame';
 import { EditorSidebar, type PointPin } from './editor-sidebar';
 import { EditorStage } from './editor-stage';
@@ -24,6 +24,7 @@ import { useLightboxImages } from './lightbox-images';
 import { drawOverlay } from './overlay';
 import { SelectionBar } from './selection-bar';
 import { EditorToolbar } from './toolbar';
+import type { EditorProps } from './types';
 import { ERASER_RADIUS_PX, type Guides, PEN_SIZES, TONE_SIZES, type Tool, stepSize, toolAllowed } from './tools';
 import { useEditorKeys } from './use-editor-keys';
 import { useLightboxArranging } from './use-lightbox-arranging';
@@ -32,22 +33,7 @@ import { usePointerGestures } from './use-pointer-gestures';
 import { useSelection } from './use-selection';
 import { useView } from './use-view';
 
-export type { Guides };
-
-export type EditorProps = {
-  passId: string;
-  passNumber: number;
-  gagId: string;
-  seriesId: string;
-  meId: string;
-  passes: { id: string; number: number }[];
-  canDraw: boolean;
-  canComment: boolean;
-  canRestore: boolean;
-  spec: PageSpec;
-  beats: { kind: BeatKind; note: string }[];
-  initial: { seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
-};
+export type { EditorProps, Guides };
 
 const ALL_GUIDES: Guides = { bleed: true, trim: true, safe: true, panels: true };
 
@@ -72,7 +58,6 @@ export default function Editor(props: EditorProps) {
   const [helpOpen, setHelpOpen] = useState(false);
   const [pointPin, setPointPin] = useState<PointPin | null>(null);
   const [highlight, setHighlight] = useState(true);
-  const [dropOver, setDropOver] = useState(false);
 
   const session = usePassSession({ passId: props.passId, initial: props.initial, canDraw, spec, pxPerMm: () => 3 });
   const v = useView({ wrapRef, bleed, onSettled: session.rescale });
@@ -241,33 +226,20 @@ export default function Editor(props: EditorProps) {
               onDone={() => selection.setIds([])}
               onDeleteRoom={selection.deleteRoom}
             />
-            <div
-              ref={wrapRef}
-              role="application"
-              aria-label={`Sketch canvas, pass ${props.passNumber}. ${canDraw ? 'Draw with a pen, mouse or finger.' : 'Read-only.'} Press ? for shortcuts.`}
-              data-testid="sketch-canvas"
-              data-stroke-count={session.strokeCount}
-              data-room-count={session.rooms.length}
-              data-lightbox-count={lightboxes.filter((l) => l.visible).length}
-              data-lightbox-images={lightboxes.filter((l) => l.visible && images.get(l.uploadId) instanceof HTMLImageElement).length}
-              data-tool={tool}
-              tabIndex={0}
-              className={`h-full w-full touch-none overflow-hidden rounded-lg border bg-marker-10 ${dropOver ? 'border-ink ring-2 ring-ink' : 'border-paper-edge'}`}
-              onDragOver={(e) => {
-                if (!canDraw || !e.dataTransfer.types.includes('Files')) return;
-                e.preventDefault();
-                setDropOver(true);
+            <CanvasSurface
+              wrapRef={wrapRef}
+              label={`Sketch canvas, pass ${props.passNumber}. ${canDraw ? 'Draw with a pen, mouse or finger.' : 'Read-only.'} Press ? for shortcuts.`}
+              canDraw={canDraw}
+              tool={tool}
+              view={v.view}
+              spec={spec}
+              counts={{
+                strokes: session.strokeCount,
+                rooms: session.rooms.length,
+                lightboxes: lightboxes.filter((l) => l.visible).length,
+                lightboxImages: lightboxes.filter((l) => l.visible && images.get(l.uploadId) instanceof HTMLImageElement).length,
               }}
-              onDragLeave={() => setDropOver(false)}
-              onDrop={(e) => {
-                if (!canDraw || !e.dataTransfer.files.length) return;
-                e.preventDefault();
-                setDropOver(false);
-                const rect = e.currentTarget.getBoundingClientRect();
-                const mm = toPage(v.view, e.clientX - rect.left, e.clientY - rect.top);
-                arranging.upload(e.dataTransfer.files, panelAt(spec, mm.x, mm.y));
-              }}
-              style={{ cursor: tool === 'pan' || !canDraw ? 'grab' : 'crosshair' }}
+              onDropFiles={arranging.upload}
             >
               <EditorStage
                 stageRef={stageRef}
@@ -299,7 +271,7 @@ export default function Editor(props: EditorProps) {
                 pointPin={pointPin}
                 drawOverlay={paintOverlay}
               />
-            </div>
+            </CanvasSurface>
           </>
         }
         sidebar={
