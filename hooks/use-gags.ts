@@ -3,6 +3,7 @@ import { useLiveSWR } from '@/hooks/use-live';
 import type { GagDto } from '@/db/queries/gags';
 import { api, fetcher } from '@/lib/http/client';
 import type { CreateGagInput } from '@/lib/validation/gag';
+import type { GagStatus } from '@/lib/gags/status';
 
 export function useGags(seriesId: string | null, fallbackData?: GagDto[]) {
   // Others' new gags, moves and status changes arrive through the board's stream.
@@ -17,5 +18,11 @@ export function useGags(seriesId: string | null, fallbackData?: GagDto[]) {
     await mutate((list) => [...(list ?? []).filter((g) => g.id !== gag.id), gag], { revalidate: false });
     return gag;
   }
-  return { data, error, isLoading, mutate, createGag };
+  /** Moves a gag to another status by hand (the board's menu); the list shows it at once. */
+  async function setStatus(gagId: string, status: GagStatus) {
+    const updated = await api<GagDto>(`/api/gags/${gagId}`, { method: 'PATCH', json: { status } });
+    await mutate((list) => list?.map((g) => (g.id === updated.id ? updated : g)), { revalidate: false });
+    return updated;
+  }
+  return { data, error, isLoading, mutate, createGag, setStatus };
 }

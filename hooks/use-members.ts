@@ -3,7 +3,7 @@
 import useSWR from 'swr';
 import type { MemberDto } from '@/db/queries/members';
 import type { Role } from '@/lib/auth/permissions';
-import { fetcher } from '@/lib/http/client';
+import { api, fetcher } from '@/lib/http/client';
 
 export type InvitationDto = { id: string; email: string; role: Role; expiresAt: string; invitedBy: string };
 
@@ -17,5 +17,23 @@ export function useInvitations(seriesId: string, enabled: boolean) {
 }
 
 export function useMe() {
-  return useSWR<{ id: string; name: string; email: string; notifyEmail: boolean }>('/api/me', fetcher);
+  const swr = useSWR<{ id: string; name: string; email: string; notifyEmail: boolean }>('/api/me', fetcher);
+  async function setNotifyEmail(notifyEmail: boolean) {
+    await api('/api/me', { method: 'PATCH', json: { notifyEmail } });
+    await swr.mutate();
+  }
+  return { ...swr, setNotifyEmail };
+}
+
+/** What an owner does on the members page. */
+export function memberActions(seriesId: string) {
+  return {
+    invite: (input: { email: string; role: Role }) => api(`/api/series/${seriesId}/invitations`, { method: 'POST', json: input }),
+    changeRole: (userId: string, role: Role) => api(`/api/series/${seriesId}/members/${userId}`, { method: 'PATCH', json: { role } }),
+    remove: (userId: string) => api(`/api/series/${seriesId}/members/${userId}`, { method: 'DELETE' }),
+  };
+}
+
+export function acceptInvitation(token: string) {
+  return api<{ seriesId: string }>(`/api/invitations/${token}/accept`, { method: 'POST' });
 }

@@ -8,6 +8,11 @@ export function usePasses(gagId: string, fallbackData?: PassSummary[]) {
   return useLiveSWR<PassSummary[]>(`/api/gags/${gagId}/passes`, fetcher, { fallbackData, types: ['passes'], pollMs: 2000 });
 }
 
+/** Starts a pass of a gag: blank, or a copy of pass `copyFrom`. */
+export function startPass(gagId: string, copyFrom?: number) {
+  return api<{ id: string; number: number }>(`/api/gags/${gagId}/passes`, { method: 'POST', json: copyFrom ? { copyFrom } : {} });
+}
+
 export function useRevisions(passId: string) {
   const swr = useLiveSWR<RevisionDto[]>(`/api/passes/${passId}/revisions`, fetcher, { types: ['seq'], pollMs: 5000 });
   async function restore(revisionId: string) {

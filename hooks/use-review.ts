@@ -68,6 +68,11 @@ export function usePresence(gagId: string | null, where: string): { data: Presen
   return { data: live.connected && live.presence ? live.presence : polled.data };
 }
 
+/** A page of older activity, before the entry with id `before`. */
+export function olderActivity(seriesId: string, before: number) {
+  return api<{ items: ActivityDto[]; nextBefore: number | null }>(`/api/series/${seriesId}/activity?limit=15&before=${before}`);
+}
+
 export function useActivity(seriesId: string) {
   return useLiveSWR<{ items: ActivityDto[]; nextBefore: number | null }>(`/api/series/${seriesId}/activity?limit=15`, fetcher, {
     types: ['activity'],

@@ -18,6 +18,17 @@ export function useVolumes(seriesId: string | null) {
   return { ...swr, create };
 }
 
+/** Changes to a volume's running order. */
+export function runningOrderActions(volumeId: string) {
+  const base = `/api/volumes/${volumeId}/entries`;
+  return {
+    addGag: (gagId: string) => api<EntryDto>(base, { method: 'POST', json: { gagId } }),
+    addMatter: (kind: string) => api<EntryDto>(base, { method: 'POST', json: { kind } }),
+    remove: (entryId: string) => api(`${base}/${entryId}`, { method: 'DELETE' }),
+    move: (entryId: string, to: { before: string } | { after: string }) => api(`${base}/${entryId}/position`, { method: 'PUT', json: to }),
+  };
+}
+
 export function useVolume(initial: VolumeData) {
   const vol = useSWR<VolumeData>(`/api/volumes/${initial.id}`, fetcher, { fallbackData: initial });
   const flat = useSWR<Flatplan>(`/api/volumes/${initial.id}/flatplan`, fetcher);

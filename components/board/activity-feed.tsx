@@ -4,8 +4,7 @@ import Link from 'next/link';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import type { ActivityDto } from '@/db/queries/activity';
-import { useActivity } from '@/hooks/use-review';
-import { api } from '@/lib/http/client';
+import { olderActivity, useActivity } from '@/hooks/use-review';
 
 export function ActivityFeed({ seriesId }: { seriesId: string }) {
   const { data } = useActivity(seriesId);
@@ -41,7 +40,7 @@ export function ActivityFeed({ seriesId }: { seriesId: string }) {
           variant="secondary"
           className="mt-3"
           onClick={async () => {
-            const page = await api<{ items: ActivityDto[]; nextBefore: number | null }>(`/api/series/${seriesId}/activity?limit=15&before=${cursor}`);
+            const page = await olderActivity(seriesId, cursor);
             setOlder((o) => [...o, ...page.items]);
             setNext(page.nextBefore);
           }}

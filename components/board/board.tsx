@@ -12,14 +12,14 @@ import { useGags } from '@/hooks/use-gags';
 import { ROLE_LABELS, type Role, can } from '@/lib/auth/permissions';
 import { filterGags } from '@/lib/gags/filter';
 import { GAG_STATUSES, type GagStatus, STATUS_LABELS } from '@/lib/gags/status';
-import { api, messageOf } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 import { GagTable } from './gag-table';
 import { NewGagForm } from './new-gag-form';
 
 type View = 'board' | 'table';
 
 export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: string; seriesTitle: string; role: Role; initialGags: GagDto[] }) {
-  const { data, createGag, mutate } = useGags(seriesId, initialGags);
+  const { data, createGag, setStatus: moveGag } = useGags(seriesId, initialGags);
   const [view, setView] = useState<View>('board');
   const [query, setQuery] = useState('');
   const [status, setStatus] = useState<GagStatus | 'all'>('all');
@@ -31,14 +31,13 @@ export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: 
     async (gag: GagDto, next: GagStatus) => {
       setNotice(null);
       try {
-        const updated = await api<GagDto>(`/api/gags/${gag.id}`, { method: 'PATCH', json: { status: next } });
-        await mutate((list) => list?.map((g) => (g.id === updated.id ? updated : g)), { revalidate: false });
+        const updated = await moveGag(gag.id, next);
         setNotice(`“${updated.title}” is now ${STATUS_LABELS[updated.status]}.`);
       } catch (err) {
         setNotice(messageOf(err, 'Could not change the status.'));
       }
     },
-    [mutate],
+    [moveGag],
   );
 
   const columns = status === 'all' ? GAG_STATUSES : [status];

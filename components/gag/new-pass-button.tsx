@@ -3,7 +3,8 @@ import { Plus } from 'lucide-react';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { api, messageOf } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
+import { startPass } from '@/hooks/use-passes';
 
 /** Starts a pass, blank or as a copy of an earlier one, and opens it in the editor. */
 export function NewPassButton({ seriesId, gagId, passNumbers }: { seriesId: string; gagId: string; passNumbers: number[] }) {
@@ -15,10 +16,7 @@ export function NewPassButton({ seriesId, gagId, passNumbers }: { seriesId: stri
     setBusy(true);
     setError(null);
     try {
-      const pass = await api<{ id: string; number: number }>(`/api/gags/${gagId}/passes`, {
-        method: 'POST',
-        json: from ? { copyFrom: Number(from) } : {},
-      });
+      const pass = await startPass(gagId, from ? Number(from) : undefined);
       router.push(`/series/${seriesId}/gags/${gagId}/passes/${pass.number}`);
     } catch (err) {
       setError(messageOf(err, 'Could not start a pass.'));

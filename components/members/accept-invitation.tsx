@@ -3,7 +3,8 @@ import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { api, messageOf } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
+import { acceptInvitation } from '@/hooks/use-members';
 
 export function AcceptInvitation({
   token,
@@ -40,7 +41,7 @@ export function AcceptInvitation({
             onClick={async () => {
               setError(null);
               try {
-                const r = await api<{ seriesId: string }>(`/api/invitations/${token}/accept`, { method: 'POST' });
+                const r = await acceptInvitation(token);
                 router.push(`/series/${r.seriesId}`);
               } catch (err) {
                 setError(messageOf(err, 'Could not accept.'));

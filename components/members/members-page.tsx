@@ -7,15 +7,16 @@ import type { z } from 'zod';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import type { MemberDto } from '@/db/queries/members';
-import { useInvitations, useMe, useMembers } from '@/hooks/use-members';
+import { memberActions, useInvitations, useMe, useMembers } from '@/hooks/use-members';
 import { ROLES, ROLE_HINT, ROLE_LABELS, type Role } from '@/lib/auth/permissions';
-import { api, messageOf } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 import { inviteSchema } from '@/lib/validation/members';
 
 export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { seriesId: string; seriesTitle: string; canManage: boolean; meId: string }) {
   const { data: members, mutate } = useMembers(seriesId);
   const invitations = useInvitations(seriesId, canManage);
   const me = useMe();
+  const actions = memberActions(seriesId);
   const [message, setMessage] = useState<string | null>(null);
   const form = useForm<z.input<typeof inviteSchema>>({ resolver: zodResolver(inviteSchema), defaultValues: { email: '', role: 'viewer' } });
 
@@ -33,7 +34,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
 
   const invite = form.handleSubmit((v) =>
     act(async () => {
-      await api(`/api/series/${seriesId}/invitations`, { method: 'POST', json: v });
+      await actions.invite(v);
       form.reset({ email: '', role: v.role });
     }, `Invitation sent to ${v.email}.`),
   );
@@ -80,7 +81,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
                       value={m.role}
                       onChange={(e) =>
                         void act(
-                          () => api(`/api/series/${seriesId}/members/${m.userId}`, { method: 'PATCH', json: { role: e.target.value } }),
+                          () => actions.changeRole(m.userId, e.target.value as Role),
                           `${m.name} is now ${ROLE_LABELS[e.target.value as Role]}.`,
                         )
                       }
@@ -97,13 +98,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
                 </td>
                 {canManage && (
                   <td className="px-3 py-2 text-right">
-                    <Button
-                      variant="ghost"
-                      className="text-stamp"
-                      onClick={() =>
-                        void act(() => api(`/api/series/${seriesId}/members/${m.userId}`, { method: 'DELETE' }), `${m.name} was removed.`)
-                      }
-                    >
+                    <Button variant="ghost" className="text-stamp" onClick={() => void act(() => actions.remove(m.userId), `${m.name} was removed.`)}>
                       Remove
                     </Button>
                   </td>
@@ -164,7 +159,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
             onChange={(e) =>
               void act(
                 async () => {
-                  await api('/api/me', { method: 'PATCH', json: { notifyEmail: e.target.checked } });
+                  await me.setNotifyEmail(e.target.checked);
                   await me.mutate();
                 },
                 e.target.checked ? 'E-mail notifications on.' : 'E-mail notifications off.',

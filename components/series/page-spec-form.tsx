@@ -7,8 +7,9 @@ import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { Button } from '@/components/ui/button';
 import { type PageSpec, panelRects } from '@/lib/print/geometry';
-import { api, messageOf } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 import { pageSpecSchema } from '@/lib/validation/pass';
+import { savePrintSpec } from '@/hooks/use-print-spec';
 
 const FIELDS: { key: keyof PageSpec; label: string }[] = [
   { key: 'trimW', label: 'Trim width' },
@@ -29,7 +30,7 @@ export function PageSpecForm({ seriesId, initial, canEdit }: { seriesId: string;
   const onSubmit = handleSubmit(async (values) => {
     setMessage(null);
     try {
-      const spec = await api<PageSpec>(`/api/series/${seriesId}/print-spec`, { method: 'PUT', json: values });
+      const spec = await savePrintSpec(seriesId, values);
       setSaved(spec);
       setMessage('Page setup saved.');
     } catch (err) {

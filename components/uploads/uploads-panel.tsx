@@ -7,11 +7,11 @@ import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import type { UploadListItem } from '@/db/queries/uploads';
 import { useUploads } from '@/hooks/use-uploads';
-import { api, ApiError, messageOf } from '@/lib/http/client';
+import { ApiError, messageOf } from '@/lib/http/client';
 import { ImageFilesInput, UploadJobList, useUploadJobs } from './upload-jobs';
 
 export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpload: boolean }) {
-  const { data, mutate } = useUploads(seriesId);
+  const { data, mutate, remove } = useUploads(seriesId);
   const [over, setOver] = useState(false);
   const [confirm, setConfirm] = useState<UploadListItem | null>(null);
   const input = useRef<HTMLInputElement>(null);
@@ -94,7 +94,7 @@ export function UploadsPanel({ seriesId, canUpload }: { seriesId: string; canUpl
           try {
             // Only a dialog that said which passes use it may delete a used upload;
             // if one started using it since the list loaded, the server says so (409) and we ask again.
-            await api(`/api/uploads/${confirm.id}${confirm.passesUsing > 0 ? '?confirm=1' : ''}`, { method: 'DELETE' });
+            await remove(confirm.id, confirm.passesUsing > 0);
           } catch (err) {
             if (err instanceof ApiError && err.status === 409) {
               const usedBy = (await mutate())?.find((u) => u.id === confirm.id);

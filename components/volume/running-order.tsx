@@ -10,9 +10,10 @@ import { Button } from '@/components/ui/button';
 import { StatusBadge } from '@/components/ui/status-badge';
 import type { EntryDto } from '@/db/queries/volumes';
 import type { GagStatus } from '@/lib/gags/status';
-import { api, messageOf } from '@/lib/http/client';
+import { messageOf } from '@/lib/http/client';
 
 import { MATTER_KINDS, MATTER_LABELS, entryLabel } from '@/lib/print/matter';
+import { runningOrderActions } from '@/hooks/use-volumes';
 
 function Row({ entry, index, canEdit, onRemove }: { entry: EntryDto; index: number; canEdit: boolean; onRemove: () => void }) {
   const { attributes, listeners, setNodeRef, transform, transition, isDragging } = useSortable({ id: entry.id, disabled: !canEdit });
@@ -91,6 +92,7 @@ export function RunningOrder({
 }) {
   const [error, setError] = useState<string | null>(null);
   const [matter, setMatter] = useState<string>('blank');
+  const order = runningOrderActions(volumeId);
   const sensors = useSensors(
     useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
     useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
@@ -118,9 +120,9 @@ export function RunningOrder({
     if (activeId.startsWith('gag:')) {
       // Dropped from the unplaced list: append, then move next to where it was dropped.
       await run(async () => {
-        const e = await api<EntryDto>(`/api/volumes/${volumeId}/entries`, { method: 'POST', json: { gagId: activeId.slice(4) } });
+        const e = await order.addGag(activeId.slice(4));
         if (over.id !== 'running-order' && over.id !== e.id) {
-          await api(`/api/volumes/${volumeId}/entries/${e.id}/position`, { method: 'PUT', json: { before: String(over.id) } });
+          await order.move(e.id, { before: String(over.id) });
         }
       });
       return;
@@ -131,12 +133,7 @@ export function RunningOrder({
     if (from < 0 || to < 0) return;
     const next = arrayMove(entries, from, to);
     await onChanged(next); // show the new order at once
-    await run(() =>
-      api(`/api/volumes/${volumeId}/entries/${activeId}/position`, {
-        method: 'PUT',
-        json: to > from ? { after: String(over.id) } : { before: String(over.id) },
-      }),
-    );
+    await run(() => order.move(activeId, to > from ? { after: String(over.id) } : { before: String(over.id) }));
   };
 
   return (
@@ -170,13 +167,7 @@ export function RunningOrder({
           <SortableContext items={entries.map((e) => e.id)} strategy={verticalListSortingStrategy} id="running-order">
             <ol className="space-y-1" aria-label="Running order">
               {entries.map((e, i) => (
-                <Row
-                  key={e.id}
-                  entry={e}
-                  index={i}
-                  canEdit={canEdit}
-                  onRemove={() => void run(() => api(`/api/volumes/${volumeId}/entries/${e.id}`, { method: 'DELETE' }))}
-                />
+                <Row key={e.id} entry={e} index={i} canEdit={canEdit} onRemove={() => void run(() => order.remove(e.id))} />
               ))}
             </ol>
           </SortableContext>
@@ -192,10 +183,7 @@ export function RunningOrder({
                   ))}
                 </select>
               </label>
-              <Button
-                variant="secondary"
-                onClick={() => void run(() => api(`/api/volumes/${volumeId}/entries`, { method: 'POST', json: { kind: matter } }))}
-              >
+              <Button variant="secondary" onClick={() => void run(() => order.addMatter(matter))}>
                 Add page
               </Button>
             </div>
@@ -210,12 +198,7 @@ export function RunningOrder({
           ) : (
             <ul className="space-y-1">
               {unplaced.map((g) => (
-                <Unplaced
-                  key={g.id}
-                  gag={g}
-                  canEdit={canEdit}
-                  onAdd={() => void run(() => api(`/api/volumes/${volumeId}/entries`, { method: 'POST', json: { gagId: g.id } }))}
-                />
+                <Unplaced key={g.id} gag={g} canEdit={canEdit} onAdd={() => void run(() => order.addGag(g.id))} />
               ))}
             </ul>
           )}
