@@ -272,6 +272,8 @@ export interface PresenceTabsTable {
   tabId: string;
   userId: string;
   gagId: string;
+  /** The live stream that holds the row ('poll' for a tab without one). */
+  connId: ColumnType<string, string | undefined, string>;
   /** "page", "compare" or "pass:N". */
   where: string;
   /** The panel (0–3) the person is working on in the editor, if any. */

@@ -60,7 +60,14 @@ export function byteOrdered(db: Kysely<any>) {
  */
 export async function lockRow(trx: Transaction<any>, table: 'passes' | 'volumes' | 'gags' | 'invitations' | 'series', id: string): Promise<void> {
   if (kindOf(trx) !== 'postgres') return;
-  await sql`select 1 from ${sql.table(table)} where id = ${id} for update`.execute(trx);
+  // NO KEY UPDATE: writers of the row queue, but inserts that only reference it (activity, comments) do not wait.
+  await sql`select 1 from ${sql.table(table)} where id = ${id} for no key update`.execute(trx);
+}
+
+/** Locks every pass of a gag, in id order: the order batches and stamps lock in (a pass, then its gag). */
+export async function lockPassesOf(trx: Transaction<any>, gagId: string): Promise<void> {
+  if (kindOf(trx) !== 'postgres') return;
+  await sql`select 1 from passes where gag_id = ${gagId} order by id for no key update`.execute(trx);
 }
 
 /**

@@ -15,6 +15,10 @@ export async function pgNotify(db: Kysely<any>, payload: string): Promise<void> 
 
 export type Listener = { close: () => Promise<void> };
 
+/** How often the listening connection proves it is alive, and how long an answer may take. */
+const PING_MS = 15_000;
+const PING_TIMEOUT_MS = 5_000;
+
 /**
  * Keeps one LISTEN connection open. `onUp` runs after every (re)connection:
  * notifications sent while it was down are lost, so subscribers must catch up.
@@ -25,6 +29,7 @@ export function listen(url: string, onPayload: (payload: string) => void, onUp: 
   let attempt = 0;
   let first = true;
   let timer: ReturnType<typeof setTimeout> | null = null;
+  let pinger: ReturnType<typeof setInterval> | null = null;
 
   const retry = () => {
     if (closed) return;
@@ -35,7 +40,8 @@ export function listen(url: string, onPayload: (payload: string) => void, onUp: 
 
   const connect = async () => {
     if (closed) return;
-    const c = new pg.Client({ connectionString: url });
+    // keepAlive: a connection a NAT or a failover silently dropped is noticed by TCP too.
+    const c = new pg.Client({ connectionString: url, keepAlive: true });
     c.on('notification', (n) => {
       if (n.channel === LIVE_CHANNEL && n.payload) onPayload(n.payload);
     });
@@ -52,6 +58,25 @@ export function listen(url: string, onPayload: (payload: string) => void, onUp: 
       attempt = 0;
       onUp(first);
       first = false;
+      // A half-open connection never ends by itself: ask it something now and then, and start over when it is silent.
+      if (pinger) clearInterval(pinger);
+      pinger = setInterval(() => {
+        if (client !== c) return;
+        // Reconnect at once (ending a dead socket may never finish) and let the old client go.
+        const drop = () => {
+          if (client === c) retry();
+          void c.end().catch(() => {});
+        };
+        const silent = setTimeout(drop, PING_TIMEOUT_MS);
+        c.query('select 1').then(
+          () => clearTimeout(silent),
+          () => {
+            clearTimeout(silent);
+            drop();
+          },
+        );
+      }, PING_MS);
+      pinger.unref?.();
     } catch (err) {
       console.error('[live] LISTEN connection failed:', (err as Error).message);
       c.end().catch(() => {});
@@ -64,6 +89,7 @@ export function listen(url: string, onPayload: (payload: string) => void, onUp: 
     close: async () => {
       closed = true;
       if (timer) clearTimeout(timer);
+      if (pinger) clearInterval(pinger);
       const c = client;
       client = null;
       await c?.end().catch(() => {});

@@ -4,27 +4,33 @@
 // false and data hooks poll as before.
 import { useContext, useEffect, useEffectEvent } from 'react';
 import useSWR, { type Key, type SWRConfiguration } from 'swr';
-import { LiveContext, type LiveContextValue, type LiveMessage } from '@/components/live/live-provider';
+import { LiveContext, type LiveContextValue, type LiveMessage, LivePresenceContext } from '@/components/live/live-provider';
 
 const OFFLINE: LiveContextValue = {
   connected: false,
   subscribe: () => () => {},
-  presence: null,
   tab: 'poll',
   where: null,
   gagId: null,
   setPanel: () => {},
 };
 
+const LIVE_SAFETY_POLL_MS = 60_000;
+
 export function useLive(): LiveContextValue {
   return useContext(LiveContext) ?? OFFLINE;
 }
 
+/** Who is here, as the page's stream says (null without a stream, or before it has). */
+export function useLivePresence() {
+  return useContext(LivePresenceContext);
+}
+
 /** Calls `fn` for every event of the page's stream (the latest `fn`, without resubscribing). */
 export function useLiveEvents(fn: (e: LiveMessage) => void) {
-  const live = useLive();
+  const { subscribe } = useLive();
   const onEvent = useEffectEvent(fn);
-  useEffect(() => live.subscribe((e) => onEvent(e)), [live]);
+  useEffect(() => subscribe((e) => onEvent(e)), [subscribe]);
 }
 
 /**
@@ -39,7 +45,8 @@ export function useLiveSWR<T>(
 ) {
   const { types, pollMs, ...swrOpts } = opts;
   const live = useLive();
-  const swr = useSWR<T>(key, fetcher, { ...swrOpts, refreshInterval: live.connected ? 0 : pollMs });
+  // While the stream is open, a slow safety net only: an event lost on the way is made good within a minute.
+  const swr = useSWR<T>(key, fetcher, { ...swrOpts, refreshInterval: live.connected ? LIVE_SAFETY_POLL_MS : pollMs });
   const mutate = swr.mutate;
   useLiveEvents((e) => {
     if (key === null) return;

@@ -2,7 +2,7 @@
 // SWR hooks for the review loop. Live data follows the page's stream (others'
 // comments, stamps and ticks appear as they land); without one it polls every 2 s.
 import useSWR from 'swr';
-import { useLive, useLiveSWR } from '@/hooks/use-live';
+import { useLive, useLivePresence, useLiveSWR } from '@/hooks/use-live';
 import type { CommentDto, ThreadDto } from '@/db/queries/comments';
 import type { PresenceDto } from '@/db/queries/presence';
 import type { ChecklistItemDto } from '@/db/queries/review';
@@ -60,12 +60,13 @@ export type Presence = PresenceDto;
  */
 export function usePresence(gagId: string | null, where: string): { data: Presence[] | undefined } {
   const live = useLive();
+  const presence = useLivePresence();
   const polled = useSWR<Presence[]>(
     gagId && !live.connected ? [`/api/gags/${gagId}/presence`, where, live.tab] : null,
     ([url]: [string]) => api<Presence[]>(url, { method: 'POST', json: { where, tab: live.tab } }),
     { refreshInterval: 5000, revalidateOnFocus: true },
   );
-  return { data: live.connected && live.presence ? live.presence : polled.data };
+  return { data: live.connected && presence ? presence : polled.data };
 }
 
 /** A page of older activity, before the entry with id `before`. */

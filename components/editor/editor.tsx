@@ -284,8 +284,9 @@ export default function Editor(props: EditorProps) {
             lightboxes={lightboxes}
             arranging={arranging}
             onChooseLightbox={(id) => {
+              // Through chooseTool, so the lasso selection and a chosen room are let go, as for any tool change.
+              if (canDraw) chooseTool('lightbox');
               arranging.setSelected(id);
-              if (canDraw) setTool('lightbox');
             }}
             pointPin={pointPin}
             setPointPin={setPointPin}

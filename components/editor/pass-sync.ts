@@ -65,6 +65,8 @@ export class PassSync {
       void this.kick();
     }
     this.schedulePolling();
+    // Catch up once now: the page was rendered a moment ago, and the stream's first hello may have come before we listened.
+    void this.poll();
     this.updateStatus();
   }
 
@@ -219,7 +221,12 @@ export class PassSync {
     } catch {
       return;
     }
-    if (delta.seq <= this.seq || this.sending || epoch !== this.sendEpoch) return;
+    if (delta.seq <= this.seq) return;
+    if (this.sending || epoch !== this.sendEpoch) {
+      // A send overlapped this read: it cannot be applied safely; read again when the send ends.
+      this.pollWanted = true;
+      return;
+    }
     const touched = applyDelta(this.doc, delta, this.unseenOps(delta.seq));
     this.seq = delta.seq;
     this.unsynced = this.unsynced.filter((u) => u.seq > delta.seq);

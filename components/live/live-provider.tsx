@@ -15,8 +15,6 @@ export type LiveContextValue = {
   /** True while the stream is open; polling is only the fallback. */
   connected: boolean;
   subscribe: (fn: (e: LiveMessage) => void) => () => void;
-  /** Who has this gag open, as the stream last said (null before it has). */
-  presence: PresenceDto[] | null;
   tab: string;
   where: string | null;
   gagId: string | null;
@@ -25,6 +23,8 @@ export type LiveContextValue = {
 };
 
 export const LiveContext = createContext<LiveContextValue | null>(null);
+/** Who has this gag open, as the stream last said (null before it has): its own context, so a heartbeat re-renders only who shows it. */
+export const LivePresenceContext = createContext<PresenceDto[] | null>(null);
 
 /** Back-off when the browser gave up on the stream (an error status, or no server). */
 const REOPEN_MS = [1000, 2000, 5000, 10_000, 30_000];
@@ -103,20 +103,20 @@ export function LiveProvider({ url, gagId, where, children }: { url: string; gag
     [gagId, where, tab],
   );
 
+  const subscribe = useCallback((fn: (e: LiveMessage) => void) => {
+    listeners.current.add(fn);
+    return () => {
+      listeners.current.delete(fn);
+    };
+  }, []);
+
   const value = useMemo<LiveContextValue>(
-    () => ({
-      connected,
-      presence,
-      tab,
-      where: where ?? null,
-      gagId: gagId ?? null,
-      setPanel,
-      subscribe: (fn) => {
-        listeners.current.add(fn);
-        return () => listeners.current.delete(fn);
-      },
-    }),
-    [connected, presence, tab, where, gagId, setPanel],
+    () => ({ connected, tab, where: where ?? null, gagId: gagId ?? null, setPanel, subscribe }),
+    [connected, tab, where, gagId, setPanel, subscribe],
   );
-  return <LiveContext.Provider value={value}>{children}</LiveContext.Provider>;
+  return (
+    <LiveContext.Provider value={value}>
+      <LivePresenceContext.Provider value={presence}>{children}</LivePresenceContext.Provider>
+    </LiveContext.Provider>
+  );
 }

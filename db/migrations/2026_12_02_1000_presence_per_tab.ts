@@ -11,6 +11,8 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('tab_id', 'text', (c) => c.notNull())
     .addColumn('user_id', 'text', (c) => c.notNull().references('users.id').onDelete('cascade'))
     .addColumn('gag_id', 'text', (c) => c.notNull().references('gags.id').onDelete('cascade'))
+    // The stream that holds the row; 'poll' for a tab without one.
+    .addColumn('conn_id', 'text', (c) => c.notNull().defaultTo('poll'))
     .addColumn('where', 'text', (c) => c.notNull())
     .addColumn('panel', 'integer')
     .addColumn('seen_at', 'text', (c) => c.notNull())

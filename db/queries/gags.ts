@@ -4,7 +4,7 @@ import type { Kysely, Selectable, Transaction } from 'kysely';
 import { BEAT_KINDS, type BeatKind, type GagStatus, checkManualMove } from '@/lib/gags/status';
 import { Refused } from '@/lib/refused';
 import type { BeatsTable, Database, GagsTable } from '../database';
-import { lockRow } from '../dialect';
+import { lockPassesOf, lockRow } from '../dialect';
 import { recordActivity } from './activity';
 
 export type BeatDto = Pick<Selectable<BeatsTable>, 'kind' | 'note' | 'updatedAt'>;
@@ -187,6 +187,9 @@ export async function deleteGag(db: Db, gagId: string): Promise<void> {
 export async function removeGag(db: Kysely<Database>, input: { gagId: string; seriesId: string; userId: string }): Promise<void> {
   const gag = await findGag(db, input.gagId);
   await db.transaction().execute(async (trx) => {
+    // The delete cascades to the passes: take them before the gag, in the order a batch or a stamp does.
+    await lockPassesOf(trx, input.gagId);
+    await lockRow(trx, 'gags', input.gagId);
     await deleteGag(trx, input.gagId);
     await recordActivity(trx, {
       seriesId: input.seriesId,

@@ -8,33 +8,39 @@ export const PRESENCE_WINDOW_MS = 20_000;
 
 export type PresenceDto = { userId: string; name: string; where: string; panel: number | null; seenAt: string };
 
+/**
+ * I am here. A stream passes its connection id and owns the row from then on; a
+ * heartbeat or a panel change without one updates the row but not its owner.
+ */
 export async function beat(
   db: Kysely<Database>,
-  p: { gagId: string; tabId: string; userId: string; where: string; panel?: number | null },
+  p: { gagId: string; tabId: string; userId: string; where: string; panel?: number | null; connId?: string },
   now = new Date(),
 ) {
-  const seenAt = now.toISOString();
-  const panel = p.panel ?? null;
+  // A heartbeat that does not say the panel keeps the one last said.
+  const row = { gagId: p.gagId, where: p.where, seenAt: now.toISOString(), ...(p.panel !== undefined ? { panel: p.panel } : {}) };
   await db
     .insertInto('presenceTabs')
-    .values({ tabId: p.tabId, userId: p.userId, gagId: p.gagId, where: p.where, panel, seenAt })
-    .onConflict((oc) => oc.columns(['tabId', 'userId']).doUpdateSet({ gagId: p.gagId, where: p.where, panel, seenAt }))
+    .values({ tabId: p.tabId, userId: p.userId, connId: p.connId ?? 'poll', panel: null, ...row })
+    .onConflict((oc) => oc.columns(['tabId', 'userId']).doUpdateSet(p.connId ? { ...row, connId: p.connId } : row))
     .execute();
 }
 
-/** Refreshes a tab's row without changing where it is; false when the row is gone. */
-export async function touch(db: Kysely<Database>, tabId: string, userId: string, now = new Date()): Promise<boolean> {
+/** Refreshes the row this connection owns; false when it is gone (or a newer connection took it). */
+export async function touch(db: Kysely<Database>, tabId: string, userId: string, connId: string, now = new Date()): Promise<boolean> {
   const r = await db
     .updateTable('presenceTabs')
     .set({ seenAt: now.toISOString() })
     .where('tabId', '=', tabId)
     .where('userId', '=', userId)
+    .where('connId', '=', connId)
     .executeTakeFirst();
   return Number(r.numUpdatedRows) > 0;
 }
 
-export async function leave(db: Kysely<Database>, tabId: string, userId: string) {
-  await db.deleteFrom('presenceTabs').where('tabId', '=', tabId).where('userId', '=', userId).execute();
+/** The tab went away: its row goes, unless a newer connection of the same tab has taken it over. */
+export async function leave(db: Kysely<Database>, tabId: string, userId: string, connId: string) {
+  await db.deleteFrom('presenceTabs').where('tabId', '=', tabId).where('userId', '=', userId).where('connId', '=', connId).execute();
 }
 
 export async function present(db: Kysely<Database>, gagId: string, now = new Date()): Promise<PresenceDto[]> {
@@ -47,5 +53,18 @@ export async function present(db: Kysely<Database>, gagId: string, now = new Dat
     .where('p.seenAt', '>=', since)
     .orderBy('u.name')
     .orderBy('p.where')
+    .execute();
+}
+
+/** Puts the tab's row back after it expired, unless a newer connection of the tab holds it. */
+export async function beatIfAbsent(
+  db: Kysely<Database>,
+  p: { gagId: string; tabId: string; userId: string; where: string; panel: number | null; connId: string },
+  now = new Date(),
+) {
+  await db
+    .insertInto('presenceTabs')
+    .values({ tabId: p.tabId, userId: p.userId, connId: p.connId, gagId: p.gagId, where: p.where, panel: p.panel, seenAt: now.toISOString() })
+    .onConflict((oc) => oc.columns(['tabId', 'userId']).doNothing())
     .execute();
 }

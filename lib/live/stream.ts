@@ -10,7 +10,8 @@
 import 'server-only';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
-import { beat, leave, present, touch } from '@/db/queries/presence';
+import { randomUUID } from 'node:crypto';
+import { beat, beatIfAbsent, leave, present, touch } from '@/db/queries/presence';
 import { type LiveEvent, publish, subscribe } from './bus';
 
 export function heartbeatMs(): number {
@@ -53,6 +54,9 @@ export function liveStream(o: StreamOptions): Response {
   let timer: ReturnType<typeof setInterval> | null = null;
   let controllerRef: ReadableStreamDefaultController<Uint8Array> | null = null;
   const presenceTopic = o.presence ? `gag:${o.presence.gagId}` : null;
+  /** This connection's mark on its presence row: a reconnect of the same tab takes the row over, and our close leaves it alone. */
+  const connId = randomUUID();
+  const mark = () => ({ ...o.presence!, userId: o.userId, connId });
 
   const send = (text: string) => {
     if (closed || !controllerRef) return;
@@ -77,7 +81,7 @@ export function liveStream(o: StreamOptions): Response {
       /* already closed by the client */
     }
     if (o.presence) {
-      await leave(o.db, o.presence.tabId, o.userId).catch(() => {});
+      await leave(o.db, o.presence.tabId, o.userId, connId).catch(() => {});
       await publish({ topic: presenceTopic!, type: 'presence' });
     }
   };
@@ -92,8 +96,10 @@ export function liveStream(o: StreamOptions): Response {
     try {
       if (!(await check())) return;
       send(': beat\n\n');
+      // The hello again (e.g. the pass's seq): an event lost on the way is made good within one beat.
+      for (const e of (await o.hello?.()) ?? []) send(frame(e));
       if (o.presence) {
-        if (!(await touch(o.db, o.presence.tabId, o.userId))) await beat(o.db, { ...o.presence, userId: o.userId });
+        if (!(await touch(o.db, o.presence.tabId, o.userId, connId))) await beatIfAbsent(o.db, mark());
         await sendPresence();
       }
     } catch (err) {
@@ -107,16 +113,21 @@ export function liveStream(o: StreamOptions): Response {
       o.req.signal?.addEventListener('abort', () => void close());
       // retry: how long the browser waits before it reconnects on its own.
       send('retry: 2000\n: open\n\n');
-      off = await subscribe([...o.topics, `user:${o.userId}`], (e) => {
+      const unsubscribe = await subscribe([...o.topics, `user:${o.userId}`], (e) => {
         if (e.topic === `user:${o.userId}`) void check();
         else if (e.type === 'presence' && e.topic === presenceTopic && e.data === undefined) void sendPresence().catch(() => {});
         else send(frame(e));
       });
+      // The client may have gone while we waited (a tab closed as the page loaded): leave nothing behind.
+      if (closed) return unsubscribe();
+      off = unsubscribe;
       if (o.presence) {
-        await beat(o.db, { ...o.presence, userId: o.userId });
+        await beat(o.db, mark());
+        if (closed) return void (await leave(o.db, o.presence.tabId, o.userId, connId).catch(() => {}));
         await publish({ topic: presenceTopic!, type: 'presence' });
       }
       for (const e of (await o.hello?.()) ?? []) send(frame(e));
+      if (closed) return;
       timer = setInterval(() => void tick(), heartbeatMs());
     },
     cancel() {

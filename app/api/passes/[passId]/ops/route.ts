@@ -27,17 +27,16 @@ export const POST = withSeriesRole<Params, typeof batchSchema>(
       const missing = wanted.find((id) => !known.has(id));
       if (missing) throw new Refused(422, `There is no upload ${missing} in this series to place as a lightbox.`);
     }
-    const { seq, replayed, stampCleared } = await applyBatch(db, {
+    const { seq, stampCleared } = await applyBatch(db, {
       passId: params.passId,
       batchId: batch.batchId,
       ops: batch.ops,
       userId: user.id,
       spec,
     });
-    if (!replayed) {
-      const gagId = (await passWithGag(db, params.passId))!.gagId;
-      await passChanged({ seriesId, gagId, passId: params.passId, seq, stampCleared });
-    }
+    // Announced for a replay too: its original's instance may have died between commit and announcement.
+    const gagId = (await passWithGag(db, params.passId))!.gagId;
+    await passChanged({ seriesId, gagId, passId: params.passId, seq, stampCleared });
     return Response.json({ seq });
   },
 );
