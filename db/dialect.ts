@@ -80,6 +80,12 @@ export async function lockKey(trx: Transaction<any>, key: string): Promise<void>
   await sql`select pg_advisory_xact_lock(hashtextextended(${key}, 0))`.execute(trx);
 }
 
+/** A unique constraint refused the row (SQLite's SQLITE_CONSTRAINT_UNIQUE, PostgreSQL's 23505). */
+export function isUniqueViolation(err: unknown): boolean {
+  const code = (err as { code?: string } | null)?.code;
+  return code === 'SQLITE_CONSTRAINT_UNIQUE' || code === 'SQLITE_CONSTRAINT_PRIMARYKEY' || code === '23505';
+}
+
 /** `select … for update` on PostgreSQL; SQLite's IMMEDIATE transaction already holds the write lock. */
 export function forUpdate<QB extends { forUpdate(): QB }>(db: Kysely<any> | Transaction<any>, qb: QB): QB {
   return kindOf(db) === 'postgres' ? qb.forUpdate() : qb;

@@ -172,7 +172,14 @@ export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPa
     const current = await trx.selectFrom('gags').select('status').where('id', '=', gagId).executeTakeFirst();
     if (!current) throw new Refused(404, 'Not found.');
     if (patch.status) {
-      const check = checkManualMove(current.status, patch.status);
+      const standing = await trx
+        .selectFrom('stamps')
+        .select('id')
+        .where('gagId', '=', gagId)
+        .where('decision', '=', 'ready')
+        .where('clearedAt', 'is', null)
+        .executeTakeFirst();
+      const check = checkManualMove(current.status, patch.status, { readyStampStands: !!standing });
       if (!check.ok) throw new Refused(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
     }
     await updateGag(trx, gagId, patch);

@@ -46,12 +46,22 @@ export function allowedManualMoves(from: GagStatus): readonly GagStatus[] {
 
 export type StatusCheck = { ok: true } | { ok: false; reason: string };
 
-export function checkManualMove(from: GagStatus, to: GagStatus): StatusCheck {
+/**
+ * Whether a person may move a gag by hand. "Ready to ink" always needs a stamp: back
+ * from "inked" only while the editor's "ready" stamp still stands (`readyStampStands`).
+ */
+export function checkManualMove(from: GagStatus, to: GagStatus, ctx: { readyStampStands?: boolean } = {}): StatusCheck {
   if (from === to) return { ok: true };
-  if (MANUAL_MOVES[from].includes(to)) return { ok: true };
-  if (to === 'ready_to_ink') {
-    return { ok: false, reason: '"Ready to ink" is set only by an editor\'s or owner\'s stamp on a pass.' };
+  if (to === 'ready_to_ink' && !(MANUAL_MOVES[from].includes(to) && ctx.readyStampStands)) {
+    return {
+      ok: false,
+      reason:
+        from === 'inked'
+          ? 'Back to "ready to ink" only while its stamp stands; this gag\'s was cleared. Ask an editor to stamp a pass.'
+          : '"Ready to ink" is set only by an editor\'s or owner\'s stamp on a pass.',
+    };
   }
+  if (MANUAL_MOVES[from].includes(to)) return { ok: true };
   return {
     ok: false,
     reason: `A gag cannot move from "${STATUS_LABELS[from]}" to "${STATUS_LABELS[to]}". From "${STATUS_LABELS[from]}" it can go to: ${MANUAL_MOVES[from].map((s) => `"${STATUS_LABELS[s]}"`).join(', ')}.`,

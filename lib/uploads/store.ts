@@ -3,6 +3,7 @@
 import 'server-only';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
+import { isUniqueViolation } from '@/db/dialect';
 import { type UploadDto, findUploadBySha, insertUpload } from '@/db/queries/uploads';
 import { putObject } from '@/lib/storage/s3';
 import { ACCEPTED, type Prepared } from './process';
@@ -20,16 +21,25 @@ export async function storeUpload(
   await putObject(keys.originalKey, prepared.original, prepared.mime);
   await putObject(keys.workingKey, prepared.working, prepared.mime);
   await putObject(keys.previewKey, prepared.preview, 'image/webp');
-  const upload = await insertUpload(db, {
-    seriesId,
-    sha256: prepared.sha256,
-    name: input.name.slice(0, 200),
-    mime: prepared.mime,
-    bytes: prepared.bytes,
-    width: prepared.width,
-    height: prepared.height,
-    ...keys,
-    createdBy: input.userId,
-  });
+  let upload: UploadDto;
+  try {
+    upload = await insertUpload(db, {
+      seriesId,
+      sha256: prepared.sha256,
+      name: input.name.slice(0, 200),
+      mime: prepared.mime,
+      bytes: prepared.bytes,
+      width: prepared.width,
+      height: prepared.height,
+      ...keys,
+      createdBy: input.userId,
+    });
+  } catch (err) {
+    // The same file sent twice at once: the other request stored it first (same keys, same bytes).
+    if (!isUniqueViolation(err)) throw err;
+    const stored = await findUploadBySha(db, seriesId, prepared.sha256);
+    if (!stored) throw err;
+    return { upload: stored, duplicate: true };
+  }
   return { upload, duplicate: false };
 }

@@ -122,3 +122,30 @@ describe('activity feed', () => {
     expect(kinds.size).toBeGreaterThan(1);
   });
 });
+
+describe('"ready to ink" comes only from a stamp', () => {
+  it('an inked gag whose stamp was cleared cannot be moved back to "ready to ink" by hand (422); while it stands, it can', async () => {
+    const gagId = 'demo-gag-10';
+    const passId = await gagWithPass(gagId);
+    expect(
+      (await callRoute(stampRoute.POST, { method: 'POST', as: 'editor', params: { passId }, body: { decision: 'ready', note: '' } })).status,
+    ).toBe(201);
+    const patch = (status: string) => callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { gagId }, body: { status } });
+    expect((await patch('inked')).status).toBe(200);
+    // Inked by mistake, with the stamp still standing: back is fine.
+    expect((await patch('ready_to_ink')).status).toBe(200);
+    expect((await patch('inked')).status).toBe(200);
+    // A later change to the approved pass clears its stamp…
+    await callRoute(opsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { passId },
+      body: { batchId: 'after-ink', ops: [{ op: 'add', stroke: line('late') }] },
+    });
+    // …and then no hand may set "ready to ink" again.
+    const refused = await patch('ready_to_ink');
+    expect(refused.status).toBe(422);
+    expect(refused.body.error).toMatch(/stamp/);
+    expect(await gagStatus(gagId)).toBe('inked');
+  });
+});

@@ -61,6 +61,16 @@ describe('uploads', () => {
     expect(rows).toHaveLength(1);
   });
 
+  it('the same file sent six times at once: one 201, five 200 "duplicate", stored once, never a 500', async () => {
+    const bytes = await png(43, 23);
+    const all = await Promise.all(Array.from({ length: 6 }, (_, i) => upload(bytes, `same-${i}.png`)));
+    expect(all.map((r) => r.status).sort()).toEqual([200, 200, 200, 200, 200, 201]);
+    expect(new Set(all.map((r) => r.body.id)).size).toBe(1);
+    expect(all.filter((r) => r.body.duplicate)).toHaveLength(5);
+    const rows = await db().selectFrom('uploads').select('id').where('sha256', '=', all[0]!.body.sha256).execute();
+    expect(rows).toHaveLength(1);
+  });
+
   it('turns the image upright from EXIF orientation 6 (width and height swapped) and strips GPS', async () => {
     const jpeg = await sharp({ create: { width: 60, height: 30, channels: 3, background: '#8c8983' } })
       .jpeg()

@@ -19,6 +19,13 @@ describe('gag status moves', () => {
     expect(checkManualMove('in_review', 'idea').ok).toBe(true);
   });
 
+  it('goes back from "inked" to "ready to ink" only while the stamp stands', () => {
+    expect(checkManualMove('inked', 'ready_to_ink', { readyStampStands: true }).ok).toBe(true);
+    const r = checkManualMove('inked', 'ready_to_ink');
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.reason).toMatch(/stamp/);
+  });
+
   it('steps the paper stages one at a time', () => {
     expect(checkManualMove('ready_to_ink', 'inked').ok).toBe(true);
     expect(checkManualMove('inked', 'scanned').ok).toBe(true);
