@@ -47,9 +47,17 @@ export async function gagNotes(db: Kysely<Database>, entries: EntryDto[]) {
   return out;
 }
 
-const csvCell = (v: unknown) => {
-  const s = v === null || v === undefined ? '' : String(v);
-  return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+/**
+ * One CSV cell. Text that a spreadsheet would run as a formula (starting with =, +, -, @,
+ * a tab or a carriage return) gets a leading apostrophe and quotes, as OWASP's
+ * "CSV Injection" guidance advises; numbers stay numbers.
+ */
+export const csvCell = (v: unknown) => {
+  if (typeof v === 'number') return String(v);
+  let s = v === null || v === undefined ? '' : String(v);
+  const formula = /^[=+\-@\t\r]/.test(s);
+  if (formula) s = `'${s}`;
+  return formula || /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 };
 
 export function runningOrderCsv(entries: EntryDto[], note: string): string {

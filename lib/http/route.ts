@@ -23,6 +23,9 @@ export const DEFAULT_MAX_BODY_BYTES = 64 * 1024;
 /** Reads and validates a JSON body: too large → 413; malformed or invalid → 422 with the zod issues. */
 export async function parseBody<S extends z.ZodType>(req: Request, schema: S, opts: { maxBytes?: number } = {}): Promise<z.infer<S>> {
   let raw: unknown;
+  // Only JSON: a form or text/plain body is what a cross-site form would send.
+  const type = (req.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
+  if (type !== 'application/json') throw new Refused(415, 'Send the body as application/json.');
   const maxBytes = opts.maxBytes ?? DEFAULT_MAX_BODY_BYTES;
   const text = await req.text();
   if (Buffer.byteLength(text) > maxBytes) {
@@ -54,11 +57,39 @@ type WithBody<C, S extends z.ZodType> = C & { body: z.infer<S> };
 export type UserCtx<P> = { req: Request; params: P; user: SessionUser; db: Kysely<Database> };
 export type SeriesCtx<P> = UserCtx<P> & { seriesId: string; role: Role };
 
+/**
+ * A change must come from this app's own pages: when the browser says where the
+ * request comes from (Origin), it must be this host (as the client reached it) or
+ * the configured public address. Reads, and clients that send no Origin, pass.
+ */
+export function sameSite(req: Request): boolean {
+  if (req.method === 'GET' || req.method === 'HEAD' || req.method === 'OPTIONS') return true;
+  const origin = req.headers.get('origin');
+  if (!origin) return true;
+  let from: string;
+  try {
+    from = new URL(origin).host;
+  } catch {
+    return false;
+  }
+  const hosts = [req.headers.get('x-forwarded-host'), req.headers.get('host'), new URL(req.url).host];
+  if (process.env.NEXTAUTH_URL) hosts.push(new URL(process.env.NEXTAUTH_URL).host);
+  return hosts.some((h) => h && h.split(',')[0]!.trim() === from);
+}
+
 async function run(fn: () => Promise<Response>): Promise<Response> {
   try {
     return await fn();
   } catch (err) {
     if (err instanceof Refused) return jsonError(err.status, err.message, err.issues);
+    // SQLite busy past its 5 s wait (another process holds the file): try again soon, nothing was written.
+    const code = (err as { code?: string } | null)?.code;
+    if (code === 'SQLITE_BUSY' || code === 'SQLITE_BUSY_SNAPSHOT') {
+      return Response.json(
+        { error: 'The database is busy; nothing was changed. Try again in a moment.' },
+        { status: 503, headers: { 'Retry-After': '1' } },
+      );
+    }
     console.error(err);
     return jsonError(500, 'Something went wrong on our side; nothing was changed.');
   }
@@ -75,6 +106,7 @@ export function withUser<P, S extends z.ZodType>(
   const handler = (typeof a === 'function' ? a : b!) as (ctx: UserCtx<P> & { body?: unknown }) => Promise<Response>;
   return (req: Request, context: RouteContext<P>) =>
     run(async () => {
+      if (!sameSite(req)) return jsonError(403, 'A change from another site is refused.');
       const user = await userFromRequest(req);
       if (!user) return jsonError(401, 'Sign in first.');
       const params = (await context?.params) ?? ({} as P);

@@ -33,8 +33,9 @@ export const commentCreateSchema = z
     passId: z.string().min(1).max(64).optional(),
     panel: z.number().int().min(0).max(3).optional(),
     beat: z.enum(BEAT_KINDS).optional(),
-    x: z.number().optional(),
-    y: z.number().optional(),
+    // A point on the page, in mm: finite and within a metre of it (the page is far smaller).
+    x: z.number().finite().min(-1000).max(1000).optional(),
+    y: z.number().finite().min(-1000).max(1000).optional(),
   })
   .strict()
   .superRefine((c, ctx) => {

@@ -6,7 +6,11 @@ import { MATTER_KINDS } from '@/lib/print/matter';
 const date = z
   .string()
   .regex(/^\d{4}-\d{2}-\d{2}$/, 'Dates are YYYY-MM-DD.')
-  .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), 'Not a real date.');
+  // Date.parse rolls 2027-02-30 over to 2 March; a real date reads back as itself.
+  .refine((d) => {
+    const t = Date.parse(`${d}T00:00:00Z`);
+    return !Number.isNaN(t) && new Date(t).toISOString().slice(0, 10) === d;
+  }, 'Not a real calendar date.');
 
 export const volumeSpecPatch = z
   .object({

@@ -108,3 +108,15 @@ describe('sign-in', () => {
     expect(await alert.textContent()).toMatch(/Wait 15 minutes/);
   });
 });
+
+describe('response headers', () => {
+  it('pages and API answers forbid framing and type sniffing and keep URLs to this site', async () => {
+    for (const path of ['/', '/signin', '/api/health']) {
+      const res = await fetch(`${baseUrl}${path}`);
+      expect(res.headers.get('x-content-type-options'), path).toBe('nosniff');
+      expect(res.headers.get('x-frame-options'), path).toBe('DENY');
+      expect(res.headers.get('content-security-policy'), path).toContain("frame-ancestors 'none'");
+      expect(res.headers.get('referrer-policy'), path).toBe('same-origin');
+    }
+  });
+});

@@ -154,3 +154,29 @@ describe('sign-up', () => {
     expect(r.status).toBe(422);
   });
 });
+
+describe('changes from other sites', () => {
+  const GAG_ID = 'demo-gag-09';
+  const patch = async (headers: Record<string, string>, body: string) => {
+    const { PATCH } = await import('@/app/api/gags/[gagId]/route');
+    const { sessionCookie } = await import('../support/call-route');
+    const h = new Headers({ cookie: (await sessionCookie('owner'))!, host: 'quadrille.test', ...headers });
+    const res = await PATCH(new Request('http://quadrille.test/api/gags/x', { method: 'PATCH', headers: h, body }), {
+      params: Promise.resolve({ gagId: GAG_ID }),
+    });
+    return { status: res.status, body: await res.json() };
+  };
+
+  it('refuses a change whose Origin is another site (403), and nothing changes', async () => {
+    const r = await patch({ origin: 'https://elsewhere.test', 'content-type': 'application/json' }, JSON.stringify({ premise: 'Forged' }));
+    expect(r.status).toBe(403);
+    const ok = await patch({ origin: 'http://quadrille.test', 'content-type': 'application/json' }, JSON.stringify({ premise: 'Kettle pours.' }));
+    expect(ok.status).toBe(200);
+    expect(ok.body.premise).toBe('Kettle pours.');
+  });
+
+  it('takes bodies only as application/json (415 for a form or plain text)', async () => {
+    expect((await patch({ 'content-type': 'text/plain' }, JSON.stringify({ premise: 'Plain' }))).status).toBe(415);
+    expect((await patch({ 'content-type': 'application/x-www-form-urlencoded' }, 'premise=Form')).status).toBe(415);
+  });
+});

@@ -25,7 +25,8 @@ export async function startFailoverProxy(targets: () => string[], port?: number)
             port: target.port,
             method: req.method,
             path: req.url,
-            headers: { ...req.headers, host: `${target.hostname}:${target.port}` },
+            // The Host the browser asked for goes through, as a load balancer passes it.
+            headers: req.headers,
           },
           (upRes) => {
             res.writeHead(upRes.statusCode ?? 502, upRes.headers);

@@ -39,3 +39,21 @@ describe('sign-up input', () => {
     expect(signUpSchema.safeParse({ name: 'Kettle', email: 'not-an-address', password: '0123456789' }).success).toBe(false);
   });
 });
+
+describe('dates and points', () => {
+  it('a deadline must be a real calendar date', async () => {
+    const { createVolumeSchema } = await import('@/lib/validation/volume');
+    expect(createVolumeSchema.safeParse({ title: 'Low Tide', deadline: '2027-03-13' }).success).toBe(true);
+    // 2027 is not a leap year (Gregorian calendar): no 29 February, let alone a 30th.
+    expect(createVolumeSchema.safeParse({ title: 'Low Tide', deadline: '2027-02-29' }).success).toBe(false);
+    expect(createVolumeSchema.safeParse({ title: 'Low Tide', deadline: '2027-02-30' }).success).toBe(false);
+    expect(createVolumeSchema.safeParse({ title: 'Low Tide', deadline: '2028-02-29' }).success).toBe(true);
+  });
+  it('a comment point must be a finite position near the page', async () => {
+    const { commentCreateSchema } = await import('@/lib/validation/review');
+    const at = (x: number) => commentCreateSchema.safeParse({ body: 'Here.', target: 'point', passId: 'p', panel: 0, x, y: 10 }).success;
+    expect(at(20)).toBe(true);
+    expect(at(1e308)).toBe(false);
+    expect(at(-1e308)).toBe(false);
+  });
+});

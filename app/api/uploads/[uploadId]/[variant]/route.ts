@@ -20,5 +20,10 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params 
   if (!keys || !key) return jsonError(404, 'Not found: the variants are original, working and preview.');
   const obj = await getObject(key);
   if (!obj) return jsonError(404, 'Not found.');
-  return new Response(Buffer.from(obj.body), { headers: { 'content-type': obj.contentType, 'cache-control': 'private, max-age=3600' } });
+  return new Response(Buffer.from(obj.body), {
+    headers: {
+      'content-type': obj.contentType, // no-cache: a member removed from the series must not keep reading it from the browser's cache.
+      'cache-control': 'private, no-cache',
+    },
+  });
 });
