@@ -55,9 +55,15 @@ export class PassSync {
   }
 
   start() {
-    // Work that was drawn but not acknowledged before a reload: show it, then send it.
-    const pending = this.outbox.pendingOps();
-    for (const op of pending) applyOp(this.doc, op);
+    // Work that was drawn but not acknowledged before a reload: show it, then send it. Strokes the
+    // server refused stay on screen too (kept on this device), and the problem is said.
+    for (const op of this.localOnly()) applyOp(this.doc, op);
+    const kept = this.outbox.kept();
+    if (kept.length)
+      this.status = {
+        ...this.status,
+        message: `${kept.length} stroke${kept.length === 1 ? '' : 's'} could not be saved (${kept[0]!.reason}); kept on this device.`,
+      };
     this.emitDoc({ panels: new Set([0, 1, 2, 3]), full: true, items: true });
     if (!this.readOnly) {
       this.outbox.seal();
@@ -175,9 +181,20 @@ export class PassSync {
         }
         const body = (await res.json().catch(() => ({}))) as { error?: string };
         if (res.status === 422 || res.status === 413) {
-          // The server will refuse this batch every time: drop it, say so, and show the truth.
+          // Refused every time. Several operations: send them one by one, so the valid ones land.
+          if (batch.ops.length > 1) {
+            this.outbox.split(batch.batchId);
+            continue;
+          }
+          const reason = body.error ?? String(res.status);
+          if (batch.ops[0]?.op === 'add') {
+            // A drawn stroke is never thrown away: it stays on this device, on screen, and the problem is said.
+            this.outbox.keep(batch.batchId, reason);
+            this.updateStatus({ message: `A stroke could not be saved (${reason}); it is kept on this device.` });
+            continue;
+          }
           this.outbox.ack(batch.batchId);
-          this.updateStatus({ message: `A change was refused: ${body.error ?? res.status}` });
+          this.updateStatus({ message: `A change was refused: ${reason}` });
           await this.resync();
           continue;
         }
@@ -206,7 +223,7 @@ export class PassSync {
   }
 
   private unseenOps(serverSeq: number): Op[] {
-    return [...this.unsynced.filter((u) => u.seq > serverSeq).flatMap((u) => u.ops), ...this.outbox.pendingOps()];
+    return [...this.unsynced.filter((u) => u.seq > serverSeq).flatMap((u) => u.ops), ...this.localOnly()];
   }
 
   async poll() {
@@ -242,7 +259,12 @@ export class PassSync {
     this.doc = docFrom(state.strokes, state.rooms, state.lightboxes);
     this.seq = state.seq;
     this.unsynced = [];
-    for (const op of this.outbox.pendingOps()) applyOp(this.doc, op);
+    for (const op of this.localOnly()) applyOp(this.doc, op);
     this.emitDoc({ panels: new Set([0, 1, 2, 3]), full: true, items: true });
+  }
+
+  /** What this device has that the server does not: kept (refused) strokes, then the outbox. */
+  private localOnly(): Op[] {
+    return [...this.outbox.kept().flatMap((k) => k.ops), ...this.outbox.pendingOps()];
   }
 }

@@ -70,6 +70,42 @@ export class Outbox {
     this.persist();
   }
 
+  /** Replaces a sealed batch, in place, by one batch per operation (new ids): to find which one the server refuses. */
+  split(batchId: string) {
+    const i = this.sealed.findIndex((b) => b.batchId === batchId);
+    if (i < 0) return;
+    this.sealed.splice(i, 1, ...this.sealed[i]!.ops.map((op) => ({ batchId: this.makeId(), ops: [op] })));
+    this.persist();
+  }
+
+  /**
+   * Sets a refused batch aside on this device instead of dropping it: a drawn stroke
+   * is never thrown away. Kept operations stay readable under `<key>:kept`.
+   */
+  keep(batchId: string, reason: string) {
+    const batch = this.sealed.find((b) => b.batchId === batchId);
+    if (!batch) return;
+    const keptKey = `${this.key}:kept`;
+    let kept: { reason: string; ops: Op[] }[] = [];
+    try {
+      kept = JSON.parse(this.store.getItem(keptKey) ?? '[]') as typeof kept;
+    } catch {
+      kept = [];
+    }
+    kept.push({ reason, ops: batch.ops });
+    this.store.setItem(keptKey, JSON.stringify(kept));
+    this.ack(batchId);
+  }
+
+  /** Operations set aside after a refusal, with the reasons. */
+  kept(): { reason: string; ops: Op[] }[] {
+    try {
+      return JSON.parse(this.store.getItem(`${this.key}:kept`) ?? '[]') as { reason: string; ops: Op[] }[];
+    } catch {
+      return [];
+    }
+  }
+
   /** Every operation not yet acknowledged, oldest first. */
   pendingOps(): Op[] {
     return [...this.sealed.flatMap((b) => b.ops), ...this.open];

@@ -134,6 +134,35 @@ describe('lightbox operations', () => {
     expect(await state(p.id)).toEqual(before);
   });
 
+  it('a scan deleted by someone else does not refuse a stroke drawn beside a nudge of it: the stroke lands, the nudge is skipped and said', async () => {
+    const u = await upload(await halves(260, 260), 'soon-gone.png');
+    const p = await newPass('demo-gag-10');
+    await send(p.id, 'gone-1', [{ op: 'lightbox', lightbox: box('g', u.id) }]);
+    // B deletes the scan, confirming although a pass still places it.
+    const del = await callRoute(uploadRoute.DELETE, { method: 'DELETE', as: 'owner', params: { uploadId: u.id }, url: '/?confirm=1' });
+    expect(del.status).toBe(204);
+    const stroke = {
+      id: 'beside',
+      panel: 1,
+      tool: 'pen',
+      grey: 100,
+      size: 0.5,
+      points: [
+        [90, 20, 0.5],
+        [100, 30, 0.5],
+      ],
+    };
+    const r = await send(p.id, 'gone-2', [
+      { op: 'add', stroke },
+      { op: 'lightbox', lightbox: box('g', u.id, { x: 85 }) },
+    ]);
+    expect(r.status).toBe(200);
+    expect(r.body.skipped).toEqual([{ op: 'lightbox', id: 'g', reason: expect.stringMatching(/no upload .* in this series/) }]);
+    const after = await state(p.id);
+    expect((after.strokes as { id: string }[]).map((s) => s.id)).toEqual(['beside']);
+    expect(after.lightboxes).toEqual([expect.objectContaining({ id: 'g', x: box('g', u.id).x })]);
+  });
+
   it('an editor or viewer cannot place one', async () => {
     const u = await upload(await halves(240, 240), 'look-only.png');
     const p = await newPass('demo-gag-10');
