@@ -1,6 +1,7 @@
 'use client';
 // A gag's passes and a pass's revisions, kept fresh by the page's live stream.
-import type { PassSummary, RevisionDto } from '@/db/queries/passes';
+import type { PassSummary } from '@/db/queries/passes';
+import type { RevisionDto } from '@/db/queries/revisions';
 import { useLiveSWR } from '@/hooks/use-live';
 import { api, fetcher } from '@/lib/http/client';
 

@@ -2,7 +2,7 @@
 import { History } from 'lucide-react';
 import { useRevisions } from '@/hooks/use-passes';
 import { useState } from 'react';
-import type { RevisionDto } from '@/db/queries/passes';
+import type { RevisionDto } from '@/db/queries/revisions';
 import { messageOf } from '@/lib/http/client';
 
 const REASONS: Record<RevisionDto['reason'], string> = {

@@ -8,15 +8,15 @@
 import { randomUUID } from 'node:crypto';
 import type { Kysely, Transaction } from 'kysely';
 import { type PageSpec, bleedBox } from '@/lib/print/geometry';
-import { decodePoints, encodePoints } from '@/lib/strokes/codec';
-import { pointsBounds } from '@/lib/strokes/hit';
-import { type Lightbox, type Op, type Room, type Stroke, translatePoints } from '@/lib/strokes/types';
-import type { Database, RevisionReason } from '../database';
+import type { Lightbox, Op, Room, Stroke } from '@/lib/strokes/types';
+import type { Database } from '../database';
 import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
-import { LIGHTBOXES, ROOMS, copyItems, itemsDelta, liveItems, removeItem, restoreItems, upsertItem } from './pass-items';
+import { LIGHTBOXES, ROOMS, copyItems, itemsDelta, liveItems, removeItem, upsertItem } from './pass-items';
 import { passWithGag } from './pass-info';
+import { addRevision } from './revisions';
 import { clearStampOnChange } from './stamps';
+import { rowToStroke, strokeRowValues } from './stroke-rows';
 import { Refused } from '@/lib/refused';
 
 type Db = Kysely<Database> | Transaction<Database>;
@@ -48,42 +48,6 @@ export type PassDelta = {
   lightboxes: Lightbox[];
   removedLightboxes: string[];
 };
-
-function rowToStroke(
-  row: { strokeId: string; panel: number; tool: Stroke['tool']; grey: number; size: number; points: Buffer | Uint8Array },
-  ox: number,
-  oy: number,
-): Stroke {
-  return {
-    id: row.strokeId,
-    panel: row.panel,
-    tool: row.tool,
-    grey: row.grey,
-    size: row.size,
-    points: translatePoints(decodePoints(row.points instanceof Uint8Array ? row.points : new Uint8Array(row.points)), ox, oy),
-  };
-}
-
-function strokeRowValues(passId: string, stroke: Stroke, seq: number, userId: string | null) {
-  const b = pointsBounds(stroke.points);
-  return {
-    passId,
-    strokeId: stroke.id,
-    panel: stroke.panel,
-    tool: stroke.tool,
-    grey: stroke.grey,
-    size: stroke.size,
-    points: Buffer.from(encodePoints(stroke.points)),
-    pointCount: stroke.points.length,
-    minX: b.x,
-    minY: b.y,
-    maxX: b.x + b.w,
-    maxY: b.y + b.h,
-    addedSeq: seq,
-    removedSeq: null,
-    addedBy: userId,
-  };
-}
 
 // ---------- reading ----------
 
@@ -201,35 +165,7 @@ export async function passDelta(db: Db, passId: string, since: number): Promise<
   };
 }
 
-/** The strokes as they stood at `seq`: rows live then, shifted by their moves up to then. */
-export async function strokesAt(db: Db, passId: string, seq: number) {
-  const rows = await db
-    .selectFrom('strokes')
-    .selectAll()
-    .where('passId', '=', passId)
-    .where('addedSeq', '<=', seq)
-    .where((eb) => eb.or([eb('removedSeq', 'is', null), eb('removedSeq', '>', seq)]))
-    .orderBy('addedSeq')
-    .orderBy('rowId')
-    .execute();
-  const moves = await db
-    .selectFrom('strokeMoves')
-    .select((eb) => ['rowId', eb.fn.sum<number>('dx').as('dx'), eb.fn.sum<number>('dy').as('dy')])
-    .where('passId', '=', passId)
-    .where('seq', '<=', seq)
-    .groupBy('rowId')
-    .execute();
-  const offsets = new Map(moves.map((m) => [m.rowId, { dx: Number(m.dx), dy: Number(m.dy) }]));
-  return rows.map((r) => ({ row: r, offset: offsets.get(r.rowId) ?? { dx: 0, dy: 0 } }));
-}
-
 // ---------- writing ----------
-
-async function addRevision(trx: Db, passId: string, seq: number, reason: RevisionReason, userId: string | null, restoredFrom: string | null = null) {
-  const id = randomUUID();
-  await trx.insertInto('revisions').values({ id, passId, seq, reason, restoredFrom, userId, createdAt: new Date().toISOString() }).execute();
-  return id;
-}
 
 export async function createPass(
   db: Kysely<Database>,
@@ -405,107 +341,6 @@ export async function applyBatch(
       })
       .execute();
     return { ...result, replayed: false, stampCleared };
-  });
-}
-
-export type RevisionDto = { id: string; seq: number; reason: RevisionReason; restoredFrom: string | null; createdAt: string; by: string | null };
-
-export async function listRevisions(db: Db, passId: string): Promise<RevisionDto[]> {
-  return db
-    .selectFrom('revisions as r')
-    .leftJoin('users as u', 'u.id', 'r.userId')
-    .select(['r.id', 'r.seq', 'r.reason', 'r.restoredFrom', 'r.createdAt', 'u.name as by'])
-    .where('r.passId', '=', passId)
-    .orderBy('r.seq', 'desc')
-    .orderBy('r.createdAt', 'desc')
-    .execute();
-}
-
-/**
- * Makes the pass look as it did at a revision, by writing a new batch: rows
- * that differ are tombstoned (removed_seq) and re-added from the revision.
- * The state just before is kept as a revision, so restoring it undoes this.
- */
-export async function restoreRevision(
-  db: Kysely<Database>,
-  input: { passId: string; revisionId: string; userId: string },
-): Promise<{ seq: number; revisionId: string } | null> {
-  return db.transaction().execute(async (trx) => {
-    const rev = await trx
-      .selectFrom('revisions')
-      .selectAll()
-      .where('id', '=', input.revisionId)
-      .where('passId', '=', input.passId)
-      .executeTakeFirst();
-    if (!rev) return null;
-    await lockRow(trx, 'passes', input.passId);
-    const pass = await trx.selectFrom('passes').select(['seq']).where('id', '=', input.passId).executeTakeFirstOrThrow();
-    const seq = pass.seq + 1;
-    const hasCurrent = await trx
-      .selectFrom('revisions')
-      .select('id')
-      .where('passId', '=', input.passId)
-      .where('seq', '=', pass.seq)
-      .executeTakeFirst();
-    if (!hasCurrent) await addRevision(trx, input.passId, pass.seq, 'before-restore', input.userId);
-
-    const target = await strokesAt(trx, input.passId, rev.seq);
-    const live = await trx.selectFrom('strokes').selectAll().where('passId', '=', input.passId).where('removedSeq', 'is', null).execute();
-    const liveById = new Map(live.map((r) => [r.strokeId, r]));
-    const targetIds = new Set(target.map((t) => t.row.strokeId));
-
-    for (const row of live) {
-      if (!targetIds.has(row.strokeId)) await trx.updateTable('strokes').set({ removedSeq: seq }).where('rowId', '=', row.rowId).execute();
-    }
-    for (const { row, offset } of target) {
-      const now = liveById.get(row.strokeId);
-      if (now && now.rowId === row.rowId) {
-        const dx = offset.dx - now.ox;
-        const dy = offset.dy - now.oy;
-        if (Math.abs(dx) > 1e-9 || Math.abs(dy) > 1e-9) {
-          await trx.insertInto('strokeMoves').values({ rowId: row.rowId, passId: input.passId, seq, dx, dy }).execute();
-          await trx.updateTable('strokes').set({ ox: offset.dx, oy: offset.dy }).where('rowId', '=', row.rowId).execute();
-        }
-        continue;
-      }
-      if (now) await trx.updateTable('strokes').set({ removedSeq: seq }).where('rowId', '=', now.rowId).execute();
-      const stroke = rowToStroke(row, offset.dx, offset.dy);
-      await trx
-        .insertInto('strokes')
-        .values(strokeRowValues(input.passId, stroke, seq, input.userId))
-        .execute();
-    }
-
-    await restoreItems(trx, ROOMS, input.passId, rev.seq, seq);
-    await restoreItems(trx, LIGHTBOXES, input.passId, rev.seq, seq);
-
-    const now = new Date().toISOString();
-    await trx.updateTable('passes').set({ seq, updatedAt: now }).where('id', '=', input.passId).execute();
-    await clearStampOnChange(trx, input.passId, seq, input.userId);
-    const revisionId = await addRevision(trx, input.passId, seq, 'restore', input.userId, rev.id);
-    const info = (await passWithGag(trx, input.passId))!;
-    await recordActivity(trx, {
-      seriesId: info.seriesId,
-      gagId: info.gagId,
-      passId: input.passId,
-      userId: input.userId,
-      kind: 'pass.restored',
-      summary: `restored pass ${info.number} of “${info.title}” to revision #${rev.seq}`,
-    });
-    const result = { seq };
-    await trx
-      .insertInto('passBatches')
-      .values({
-        passId: input.passId,
-        batchId: `restore-${revisionId}`,
-        seq,
-        userId: input.userId,
-        opCount: 0,
-        result: JSON.stringify(result),
-        createdAt: now,
-      })
-      .execute();
-    return { seq, revisionId };
   });
 }
 

@@ -5,7 +5,7 @@ import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as restoreRoute from '@/app/api/passes/[passId]/revisions/[revisionId]/restore/route';
 import * as stampRoute from '@/app/api/passes/[passId]/stamp/route';
 import * as activityRoute from '@/app/api/series/[seriesId]/activity/route';
-import { listRevisions } from '@/db/queries/passes';
+import { listRevisions } from '@/db/queries/revisions';
 import { callRoute } from '../support/call-route';
 import { startMailFake } from '../support/mail-fake';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';

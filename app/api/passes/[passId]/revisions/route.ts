@@ -1,4 +1,4 @@
-import { listRevisions } from '@/db/queries/passes';
+import { listRevisions } from '@/db/queries/revisions';
 import { withSeriesRole } from '@/lib/http/route';
 import { byPassId } from '@/lib/http/series-of';
 

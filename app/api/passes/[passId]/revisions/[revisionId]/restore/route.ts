@@ -1,4 +1,4 @@
-import { restoreRevision } from '@/db/queries/passes';
+import { restoreRevision } from '@/db/queries/revisions';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
 import { byPassId } from '@/lib/http/series-of';
 import { passWithGag } from '@/db/queries/pass-info';
