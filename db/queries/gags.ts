@@ -6,6 +6,7 @@ import { Refused } from '@/lib/refused';
 import type { BeatsTable, Database, GagsTable } from '../database';
 import { lockPassesOf, lockRow } from '../dialect';
 import { recordActivity } from './activity';
+import { clearReadyStamps, readyStampStands } from './stamps';
 
 export type BeatDto = Pick<Selectable<BeatsTable>, 'kind' | 'note' | 'updatedAt'>;
 /** A gag as the app shows it: its row (but who started it), its beats, and its newest pass. */
@@ -143,13 +144,7 @@ export async function updateGag(
   const now = new Date().toISOString();
   if (patch.status && ['idea', 'thumbnailing', 'in_review'].includes(patch.status)) {
     // Pulled back to drafting by hand: a standing "ready to ink" stamp no longer holds.
-    await trx
-      .updateTable('stamps')
-      .set({ clearedAt: now })
-      .where('gagId', '=', gagId)
-      .where('decision', '=', 'ready')
-      .where('clearedAt', 'is', null)
-      .execute();
+    await clearReadyStamps(trx, gagId, now);
   }
   const { beats, ...fields } = patch;
   for (const beat of beats ?? []) {
@@ -172,14 +167,7 @@ export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPa
     const current = await trx.selectFrom('gags').select('status').where('id', '=', gagId).executeTakeFirst();
     if (!current) throw new Refused(404, 'Not found.');
     if (patch.status) {
-      const standing = await trx
-        .selectFrom('stamps')
-        .select('id')
-        .where('gagId', '=', gagId)
-        .where('decision', '=', 'ready')
-        .where('clearedAt', 'is', null)
-        .executeTakeFirst();
-      const check = checkManualMove(current.status, patch.status, { readyStampStands: !!standing });
+      const check = checkManualMove(current.status, patch.status, { readyStampStands: await readyStampStands(trx, gagId) });
       if (!check.ok) throw new Refused(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
     }
     await updateGag(trx, gagId, patch);

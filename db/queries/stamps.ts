@@ -26,6 +26,29 @@ export type StampDto = {
 
 const STAMPABLE = new Set(['idea', 'thumbnailing', 'in_review', 'ready_to_ink']);
 
+/** A gag's "ready to ink" stamp that still stands, if any. */
+export async function readyStampStands(db: Db, gagId: string): Promise<boolean> {
+  const row = await db
+    .selectFrom('stamps')
+    .select('id')
+    .where('gagId', '=', gagId)
+    .where('decision', '=', 'ready')
+    .where('clearedAt', 'is', null)
+    .executeTakeFirst();
+  return !!row;
+}
+
+/** Lets every standing "ready to ink" stamp of a gag go (a newer stamp, or a move back to drafting). */
+export async function clearReadyStamps(db: Db, gagId: string, now: string): Promise<void> {
+  await db
+    .updateTable('stamps')
+    .set({ clearedAt: now })
+    .where('gagId', '=', gagId)
+    .where('decision', '=', 'ready')
+    .where('clearedAt', 'is', null)
+    .execute();
+}
+
 export async function stampPass(
   db: Kysely<Database>,
   input: { passId: string; userId: string; decision: StampDecision; note: string },
@@ -46,13 +69,7 @@ export async function stampPass(
     }
     const now = new Date().toISOString();
     // A new stamp supersedes any "ready" stamp still standing on this gag.
-    await trx
-      .updateTable('stamps')
-      .set({ clearedAt: now })
-      .where('gagId', '=', pass.gagId)
-      .where('decision', '=', 'ready')
-      .where('clearedAt', 'is', null)
-      .execute();
+    await clearReadyStamps(trx, pass.gagId, now);
     const stampId = randomUUID();
     await trx
       .insertInto('stamps')

@@ -7,7 +7,7 @@ import sharp from 'sharp';
 import type { Database } from '@/db/database';
 import { applyBatch, findPass } from '@/db/queries/passes';
 import { pageSpecOf } from '@/db/queries/series';
-import { DEMO_SERIES_ID } from './demo';
+import { DEMO_SERIES_ID } from './demo-data';
 
 export const DEMO_SCAN_PASS = 'demo-gag-09-pass-1';
 const PX = 1771; // 150 mm at 300 ppi

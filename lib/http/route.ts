@@ -95,6 +95,18 @@ async function run(fn: () => Promise<Response>): Promise<Response> {
   }
 }
 
+/** Routes open to anyone (sign-up): the same site check, body validation and error answers, no session. */
+export function withAnyone<S extends z.ZodType>(
+  spec: BodySpec<S>,
+  handler: (ctx: { req: Request; body: z.infer<S>; db: Kysely<Database> }) => Promise<Response>,
+) {
+  return (req: Request) =>
+    run(async () => {
+      if (!sameSite(req)) return jsonError(403, 'A change from another site is refused.');
+      return handler({ req, body: await parseBody(req, spec.body, spec), db: await getDb() });
+    });
+}
+
 /** Signed-in routes that are not about one series; with a body spec, the body arrives validated. */
 export function withUser<P = Record<string, never>>(handler: (ctx: UserCtx<P>) => Promise<Response>): RouteHandler<P>;
 export function withUser<P, S extends z.ZodType>(spec: BodySpec<S>, handler: (ctx: WithBody<UserCtx<P>, S>) => Promise<Response>): RouteHandler<P>;

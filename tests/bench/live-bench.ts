@@ -5,6 +5,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { encode } from 'next-auth/jwt';
+import { readSse } from '../support/sse';
 import { type Deployment, type Instance, ensureBuild, seed, startDeployment, startInstance } from '../support/instances';
 
 const DIST = '.next-test';
@@ -111,34 +112,19 @@ function openStream(base: string, passId: string, cookieHeader: string) {
       signal: abort.signal,
     });
     if (!res.ok || !res.body) throw new Error(`stream: HTTP ${res.status}`);
-    const reader = res.body.getReader();
-    const dec = new TextDecoder();
-    let buf = '';
-    for (;;) {
-      const { value, done } = await reader.read();
-      if (done) return;
-      const at = performance.now();
-      buf += dec.decode(value, { stream: true });
-      const blocks = buf.split(/\r?\n\r?\n/);
-      buf = blocks.pop()!;
-      for (const block of blocks) {
-        const data = block
-          .split(/\r?\n/)
-          .filter((l) => l.startsWith('data:'))
-          .map((l) => l.slice(5).trimStart())
-          .join('\n');
-        if (!data) continue;
-        const e = JSON.parse(data) as { topic: string; type: string; seq?: number };
-        if (e.topic !== `pass:${passId}` || e.type !== 'seq' || e.seq === undefined) continue;
+    await readSse(res.body, {
+      event: (data, at) => {
+        const e = data as { topic: string; type: string; seq?: number };
+        if (e.topic !== `pass:${passId}` || e.type !== 'seq' || e.seq === undefined) return;
         if (!gotHello) {
           gotHello = true;
           hello!(e.seq);
-          continue;
+          return;
         }
         if (!arrived.has(e.seq)) arrived.set(e.seq, at);
         waiters.get(e.seq)?.();
-      }
-    }
+      },
+    });
   })().catch((err) => {
     if (!abort.signal.aborted) throw err;
   });

@@ -15,7 +15,7 @@ import { applyBatch, createPass, passDelta, passState } from '@/db/queries/passe
 import { stampPass } from '@/db/queries/stamps';
 import { insertUser } from '@/db/queries/users';
 import { addEntry, createVolume, listEntries, moveEntry } from '@/db/queries/volumes';
-import { DEMO_SERIES_ID } from '@/db/seed/demo';
+import { DEMO_SERIES_ID } from '@/db/seed/demo-data';
 import { claimAttempt, MAX_FAILURES } from '@/lib/auth/throttle';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import type { Op, Stroke } from '@/lib/strokes/types';

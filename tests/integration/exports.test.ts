@@ -7,7 +7,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import * as csvRoute from '@/app/api/volumes/[volumeId]/export/running-order.csv/route';
 import * as reviewRoute from '@/app/api/volumes/[volumeId]/export/review.pdf/route';
 import * as templatesRoute from '@/app/api/volumes/[volumeId]/export/templates.pdf/route';
-import { DEMO_VOLUME_ID } from '@/db/seed/demo';
+import { DEMO_VOLUME_ID } from '@/db/seed/demo-data';
 import { pdfBoxes } from '@/lib/print/book';
 import { callRouteRaw } from '../support/call-route';
 import { freshDb } from '../support/test-db';

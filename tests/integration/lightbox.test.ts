@@ -19,7 +19,7 @@ import * as uploadRoute from '@/app/api/uploads/[uploadId]/route';
 import * as reviewRoute from '@/app/api/volumes/[volumeId]/export/review.pdf/route';
 import * as findingsRoute from '@/app/api/passes/[passId]/findings/route';
 import { findVolume, listEntries } from '@/db/queries/volumes';
-import { DEMO_VOLUME_ID } from '@/db/seed/demo';
+import { DEMO_VOLUME_ID } from '@/db/seed/demo-data';
 import { panelRects } from '@/lib/print/geometry';
 import type { Lightbox } from '@/lib/strokes/types';
 import { callRoute, callRouteRaw } from '../support/call-route';

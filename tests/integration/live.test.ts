@@ -16,6 +16,7 @@ import { createPass } from '@/db/queries/passes';
 import { present } from '@/db/queries/presence';
 import type { LiveEvent } from '@/lib/live/bus';
 import { callRoute, sessionCookie } from '../support/call-route';
+import { readSse } from '../support/sse';
 import { DEMO_SERIES_ID, type Persona, freshDb, testDbKind } from '../support/test-db';
 import pg from 'pg';
 
@@ -43,21 +44,10 @@ async function open(handler: Handler, params: Record<string, string>, as: Person
   const events: LiveEvent[] = [];
   let raw = '';
   let ended = false;
-  const reader = res.body!.getReader();
-  const done = (async () => {
-    const dec = new TextDecoder();
-    for (;;) {
-      const { value, done: d } = await reader.read().catch(() => ({ value: undefined, done: true }));
-      if (d) break;
-      raw += dec.decode(value);
-      events.length = 0;
-      for (const block of raw.split('\n\n')) {
-        const data = block.split('\n').find((l) => l.startsWith('data: '));
-        if (data) events.push(JSON.parse(data.slice(6)) as LiveEvent);
-      }
-    }
+  const body = res.body!;
+  const done = readSse(body, { text: (t) => (raw += t), event: (e) => events.push(e as LiveEvent) }).then(() => {
     ended = true;
-  })();
+  });
   /** The first event matching `pred`, among those from index `from` on. */
   const waitFor = async (pred: (e: LiveEvent) => boolean, ms = 5000, from = 0) => {
     const until = Date.now() + ms;
@@ -80,8 +70,8 @@ async function open(handler: Handler, params: Record<string, string>, as: Person
       return ended;
     },
     close: async () => {
+      // The tab goes away: the server sees the request aborted and ends the stream.
       abort.abort();
-      await reader.cancel().catch(() => {});
       await done;
     },
   };

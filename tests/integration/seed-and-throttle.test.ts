@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { migrateToLatest } from '@/db/client';
-import { DEMO_GAGS, DEMO_USERS, seedDemo } from '@/db/seed/demo';
+import { seedDemo } from '@/db/seed/demo';
+import { DEMO_GAGS, DEMO_USERS } from '@/db/seed/demo-data';
 import { MAX_FAILURES, WINDOW_MS, isThrottled, noteFailure, noteSuccess } from '@/lib/auth/throttle';
 import { verifyPassword } from '@/lib/auth/password';
 import { GAG_STATUSES } from '@/lib/gags/status';

@@ -6,7 +6,7 @@ import * as entriesRoute from '@/app/api/volumes/[volumeId]/entries/route';
 import * as flatplanRoute from '@/app/api/volumes/[volumeId]/flatplan/route';
 import * as planRoute from '@/app/api/volumes/[volumeId]/plan/route';
 import * as volumeRoute from '@/app/api/volumes/[volumeId]/route';
-import { DEMO_VOLUME_ID } from '@/db/seed/demo';
+import { DEMO_VOLUME_ID } from '@/db/seed/demo-data';
 import { callRoute } from '../support/call-route';
 import { DEMO_SERIES_ID, freshDb } from '../support/test-db';
 

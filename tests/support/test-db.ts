@@ -9,7 +9,8 @@ import { inject } from 'vitest';
 import { type Kysely, sql } from 'kysely';
 import { getDb } from '@/db/client';
 import type { Database } from '@/db/database';
-import { DEMO_SERIES_ID, OTHER_SERIES_ID, seedDemo } from '@/db/seed/demo';
+import { seedDemo } from '@/db/seed/demo';
+import { DEMO_SERIES_ID, OTHER_SERIES_ID } from '@/db/seed/demo-data';
 import { createDatabase } from './pg-cluster';
 
 /** The database engine this test file runs on. */
