@@ -10,6 +10,7 @@ import { authorizeSeries } from '@/lib/auth/guard';
 import type { Action, Role } from '@/lib/auth/permissions';
 import { type SessionUser, userFromRequest } from '@/lib/auth/session';
 import { Refused } from '@/lib/refused';
+import { readTextCapped } from './body';
 
 export { Refused };
 
@@ -20,17 +21,13 @@ export function jsonError(status: number, message: string, issues?: unknown): Re
 /** A JSON body larger than this is refused unless the route allows more. */
 export const DEFAULT_MAX_BODY_BYTES = 64 * 1024;
 
-/** Reads and validates a JSON body: too large → 413; malformed or invalid → 422 with the zod issues. */
+/** Reads and validates a JSON body: too large → 413 as soon as it passes the limit; malformed or invalid → 422 with the zod issues. */
 export async function parseBody<S extends z.ZodType>(req: Request, schema: S, opts: { maxBytes?: number } = {}): Promise<z.infer<S>> {
   let raw: unknown;
   // Only JSON: a form or text/plain body is what a cross-site form would send.
   const type = (req.headers.get('content-type') ?? '').split(';')[0]!.trim().toLowerCase();
   if (type !== 'application/json') throw new Refused(415, 'Send the body as application/json.');
-  const maxBytes = opts.maxBytes ?? DEFAULT_MAX_BODY_BYTES;
-  const text = await req.text();
-  if (Buffer.byteLength(text) > maxBytes) {
-    throw new Refused(413, `The body is over ${maxBytes.toLocaleString('en')} bytes; send it in smaller parts.`);
-  }
+  const text = await readTextCapped(req, opts.maxBytes ?? DEFAULT_MAX_BODY_BYTES);
   try {
     raw = JSON.parse(text);
   } catch {

@@ -2,7 +2,9 @@
 // recognised by its bytes, upright from its EXIF orientation, metadata stripped
 // (location included), a working copy (longest side ≤ 4096 px) and a preview.
 import { createHash } from 'node:crypto';
-import { fileTypeFromBuffer } from 'file-type';
+import { createReadStream } from 'node:fs';
+import { stat } from 'node:fs/promises';
+import { fileTypeFromBuffer, fileTypeFromFile } from 'file-type';
 import sharp from 'sharp';
 import { Refused } from '@/lib/refused';
 
@@ -24,9 +26,18 @@ export type Prepared = {
   preview: Buffer;
 };
 
-export async function prepareUpload(input: Buffer): Promise<Prepared> {
-  if (input.byteLength > MAX_UPLOAD_BYTES) throw new Refused(413, `The file is over 25 MB (${(input.byteLength / 1048576).toFixed(1)} MB).`);
-  const type = await fileTypeFromBuffer(input);
+async function sha256Of(input: Buffer | string): Promise<string> {
+  const hash = createHash('sha256');
+  if (typeof input !== 'string') return hash.update(input).digest('hex');
+  for await (const chunk of createReadStream(input)) hash.update(chunk as Buffer);
+  return hash.digest('hex');
+}
+
+/** Prepares an upload given as bytes or as the path of a received file (read from disk, never whole into memory by us). */
+export async function prepareUpload(input: Buffer | string): Promise<Prepared> {
+  const size = typeof input === 'string' ? (await stat(input)).size : input.byteLength;
+  if (size > MAX_UPLOAD_BYTES) throw new Refused(413, `The file is over 25 MB (${(size / 1048576).toFixed(1)} MB).`);
+  const type = typeof input === 'string' ? await fileTypeFromFile(input) : await fileTypeFromBuffer(input);
   if (!type || !(type.mime in ACCEPTED)) {
     throw new Refused(415, `Only PNG, JPEG and WebP images can be used${type ? ` (this file is ${type.mime})` : ''}.`);
   }
@@ -55,9 +66,9 @@ export async function prepareUpload(input: Buffer): Promise<Prepared> {
       .webp({ quality: 80 })
       .toBuffer();
     return {
-      sha256: createHash('sha256').update(input).digest('hex'),
+      sha256: await sha256Of(input),
       mime,
-      bytes: input.byteLength,
+      bytes: size,
       width: original.info.width,
       height: original.info.height,
       original: original.data,
