@@ -11,3 +11,13 @@ export const streamQuery = z.object({
   where: presenceWhere.optional(),
   panel: panelParam.optional(),
 });
+
+/** A presence beat without a stream, or a move to another panel: `{ where, tab?, panel? }`. */
+export const presenceBeatSchema = z
+  .object({
+    where: presenceWhere,
+    // The tab's id, as given to its live stream; tabs without a stream share one row per person.
+    tab: tabId.default('poll'),
+    panel: z.number().int().min(0).max(3).nullable().optional(),
+  })
+  .strict();
