@@ -2,7 +2,7 @@
 const nextConfig = {
   // better-sqlite3 is a native addon; it must stay a plain Node require on the server.
   // kysely and pg too: one copy per process, shared by every route and the instrumentation hook.
-  serverExternalPackages: ['better-sqlite3', 'kysely', 'pg', 'smtp-server', 'mailparser', 'nodemailer', 's3rver', 'sharp'],
+  serverExternalPackages: ['better-sqlite3', 'kysely', 'pg', 'smtp-server', 'mailparser', 'nodemailer', 's3rver', 'sharp', 'piscina'],
   poweredByHeader: false,
   // Every answer: no framing by other sites, no type sniffing, no full URLs leaked to other sites.
   async headers() {

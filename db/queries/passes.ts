@@ -8,7 +8,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Kysely, Transaction } from 'kysely';
 import { type PageSpec, bleedBox } from '@/lib/print/geometry';
-import type { Lightbox, Op, Room, Stroke } from '@/lib/strokes/types';
+import { type Lightbox, MAX_PASS_POINTS, MAX_PASS_STROKES, type Op, type Room, type Stroke } from '@/lib/strokes/types';
 import type { Database } from '../database';
 import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
@@ -286,6 +286,22 @@ async function applyOp(trx: Transaction<Database>, passId: string, seq: number, 
   }
 }
 
+/** A batch that would take the pass past its size limit is refused whole (nothing of it is kept). */
+async function refuseOverSize(trx: Transaction<Database>, passId: string) {
+  const size = await trx
+    .selectFrom('strokes')
+    .select((eb) => [eb.fn.countAll<number>().as('strokes'), eb.fn.coalesce(eb.fn.sum<number>('pointCount'), eb.lit(0)).as('points')])
+    .where('passId', '=', passId)
+    .where('removedSeq', 'is', null)
+    .executeTakeFirstOrThrow();
+  if (Number(size.strokes) > MAX_PASS_STROKES || Number(size.points) > MAX_PASS_POINTS) {
+    throw new Refused(
+      422,
+      `A pass holds at most ${MAX_PASS_STROKES.toLocaleString('en')} strokes and ${MAX_PASS_POINTS.toLocaleString('en')} points; this one is full. Start a new pass, or erase some strokes first.`,
+    );
+  }
+}
+
 /**
  * Applies one batch in one transaction and answers `{ seq }`. A batch id seen
  * before answers what it answered then and changes nothing.
@@ -311,6 +327,7 @@ export async function applyBatch(
     const now = input.now ?? new Date();
     const seq = pass.seq + 1;
     for (const op of input.ops) await applyOp(trx, input.passId, seq, op, input.userId, input.spec);
+    if (input.ops.some((op) => op.op === 'add')) await refuseOverSize(trx, input.passId);
 
     // Revisions: the state before a pause, and a steady one every N batches.
     const lastRev = await trx

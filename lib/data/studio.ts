@@ -4,10 +4,9 @@ import 'server-only';
 import { notFound, redirect } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { findGag, listGags } from '@/db/queries/gags';
-import { findPassByNumber, listPasses, liveStrokesOfPasses, passState } from '@/db/queries/passes';
-import { ROOMS, liveItemsOfPasses } from '@/db/queries/pass-items';
+import { findPassByNumber, listPasses, passState } from '@/db/queries/passes';
 import { findSeries, listSeriesForUser, pageSpecForGag, pageSpecOf } from '@/db/queries/series';
-import { passToSvg } from '@/lib/strokes/svg';
+import { runHeavy } from '@/lib/workers/pool';
 import { findVolume, listEntries, unplacedGags } from '@/db/queries/volumes';
 import { authorizeSeries } from '@/lib/auth/guard';
 import { type SessionUser, currentUser } from '@/lib/auth/session';
@@ -68,24 +67,9 @@ export async function loadPassEditor(seriesId: string, gagId: string, passNo: nu
   };
 }
 
-/** Every pass of a gag as a small SVG page (rendered here, on the server). */
+/** Every pass of a gag as a small SVG page (drawn on the server, in a worker thread). */
 export async function loadPassThumbnails(seriesId: string, gagId: string) {
-  const db = await getDb();
-  const spec = await pageSpecForGag(db, seriesId, gagId);
-  const passes = await listPasses(db, gagId);
-  // Two queries for all the passes, however many there are.
-  const ids = passes.map((p) => p.id);
-  const strokes = await liveStrokesOfPasses(db, ids);
-  const rooms = await liveItemsOfPasses(db, ROOMS, ids);
-  const out = passes.map((p) => ({
-    id: p.id,
-    number: p.number,
-    seq: p.seq,
-    strokeCount: p.strokeCount,
-    updatedAt: p.updatedAt,
-    svg: passToSvg(spec, strokes.get(p.id) ?? [], rooms.get(p.id) ?? [], { idPrefix: `pass${p.number}`, title: `Pass ${p.number}` }),
-  }));
-  return { spec, passes: out };
+  return runHeavy('gagPassSvgs', { seriesId, gagId });
 }
 
 export async function loadVolume(seriesId: string, volumeId: string) {

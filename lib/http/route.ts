@@ -14,8 +14,8 @@ import { readTextCapped } from './body';
 
 export { Refused };
 
-export function jsonError(status: number, message: string, issues?: unknown): Response {
-  return Response.json(issues === undefined ? { error: message } : { error: message, issues }, { status });
+export function jsonError(status: number, message: string, issues?: unknown, headers?: Record<string, string>): Response {
+  return Response.json(issues === undefined ? { error: message } : { error: message, issues }, { status, headers });
 }
 
 /** A JSON body larger than this is refused unless the route allows more. */
@@ -78,7 +78,7 @@ async function run(fn: () => Promise<Response>): Promise<Response> {
   try {
     return await fn();
   } catch (err) {
-    if (err instanceof Refused) return jsonError(err.status, err.message, err.issues);
+    if (err instanceof Refused) return jsonError(err.status, err.message, err.issues, err.headers);
     // SQLite busy past its 5 s wait (another process holds the file): try again soon, nothing was written.
     const code = (err as { code?: string } | null)?.code;
     if (code === 'SQLITE_BUSY' || code === 'SQLITE_BUSY_SNAPSHOT') {

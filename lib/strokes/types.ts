@@ -56,6 +56,13 @@ export type Op =
 
 export const MAX_POINTS_PER_STROKE = 10_000;
 export const MAX_BATCH_BYTES = 1_000_000;
+/**
+ * The most a pass may hold (its live strokes and their points): far beyond any
+ * thumbnail (the demo's passes have a few hundred strokes), and small enough
+ * that its SVG, findings and PDF page stay a matter of seconds.
+ */
+export const MAX_PASS_STROKES = 50_000;
+export const MAX_PASS_POINTS = 3_000_000;
 
 /** Tone marker levels offered in the editor (percent black). */
 export const TONE_GREYS = [20, 40, 60, 80] as const;

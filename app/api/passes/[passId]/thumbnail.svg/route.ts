@@ -1,21 +1,25 @@
 // A pass as an SVG page, for the board's cards (the same geometry as the editor).
-import { passState } from '@/db/queries/passes';
+// Drawn in a worker thread and kept by seq: a big pass costs its drawing once.
+import { findPass } from '@/db/queries/passes';
 import { pageSpecForPass } from '@/db/queries/series';
 import { withSeriesRole } from '@/lib/http/route';
-import { passToSvg } from '@/lib/strokes/svg';
 import { byPassId } from '@/lib/http/series-of';
+import { remembered, runHeavy } from '@/lib/workers/pool';
 
 type Params = { passId: string };
 const seriesOf = byPassId;
 
+type Drawn = { seq: number; svg: string } | null;
+const drawn = remembered<Drawn>({ maxBytes: 64 * 1024 * 1024, sizeOf: (d) => (d ? d.svg.length * 2 : 0) });
+
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params, seriesId }) => {
-  const state = await passState(db, params.passId);
-  if (!state) return new Response(null, { status: 404 });
-  const svg = passToSvg(await pageSpecForPass(db, seriesId, params.passId), state.strokes, state.rooms, {
-    bleed: false,
-    title: `Pass ${state.number}`,
-  });
-  return new Response(svg, {
+  const pass = await findPass(db, params.passId);
+  if (!pass) return new Response(null, { status: 404 });
+  const spec = await pageSpecForPass(db, seriesId, params.passId);
+  const key = `${params.passId}:${pass.seq}:${JSON.stringify(spec)}`;
+  const result = await drawn.get(key, () => runHeavy('thumbnail', { passId: params.passId, seriesId }));
+  if (!result) return new Response(null, { status: 404 });
+  return new Response(result.svg, {
     headers: { 'content-type': 'image/svg+xml; charset=utf-8', 'cache-control': 'private, max-age=0, must-revalidate' },
   });
 });

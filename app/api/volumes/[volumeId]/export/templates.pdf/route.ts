@@ -1,8 +1,10 @@
 // Drawing templates at 100, 150 or 200 % on A4 or A3.
-import { PAPERS, type Paper, templateFits, templatesPdf } from '@/lib/export/pdf';
-import { gagNotes, volumePages } from '@/lib/export/volume-export';
+// Built in a worker thread, like the review dummy.
+import { findVolume } from '@/db/queries/volumes';
+import { PAPERS, type Paper, templateFits } from '@/lib/export/pdf';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
 import { byVolumeId } from '@/lib/http/series-of';
+import { runHeavy } from '@/lib/workers/pool';
 
 type Params = { volumeId: string };
 const seriesOf = byVolumeId;
@@ -13,14 +15,14 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, pa
   const paper = (url.searchParams.get('paper') ?? 'A4') as Paper;
   if (![100, 150, 200].includes(scalePct)) return jsonError(422, '"scale" is 100, 150 or 200 (percent).');
   if (!(paper in PAPERS)) return jsonError(422, '"paper" is A4 or A3.');
-  const { volume, entries } = await volumePages(db, params.volumeId);
+  const volume = (await findVolume(db, params.volumeId))!;
   if (!templateFits(volume.spec, scalePct / 100, paper)) {
     return jsonError(
       422,
       `At ${scalePct}% the page (${volume.spec.trimW} × ${volume.spec.trimH} mm plus bleed) does not fit on ${paper}: choose a smaller scale or a larger paper.`,
     );
   }
-  const bytes = await templatesPdf(volume.spec, volume.title, await gagNotes(db, entries), scalePct / 100, paper);
+  const bytes = await runHeavy('templatesPdf', { volumeId: params.volumeId, scale: scalePct / 100, paper });
   return new Response(Buffer.from(bytes), {
     headers: {
       'content-type': 'application/pdf',

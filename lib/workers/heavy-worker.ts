@@ -1,0 +1,70 @@
+// The work that takes seconds on a big pass or a long volume, run in a worker
+// thread (lib/workers/pool.ts) so the server's request thread stays free: a
+// pass's SVG, its readability findings, and the volume PDFs. Each task reads
+// what it needs through its own database connection (the process environment
+// is shared with the worker) and answers plain data.
+import { move } from 'piscina';
+import { getDb } from '@/db/client';
+import { findGag } from '@/db/queries/gags';
+import { listPasses, liveStrokesOfPasses, passState } from '@/db/queries/passes';
+import { ROOMS, liveItemsOfPasses } from '@/db/queries/pass-items';
+import { inkThresholdOf } from '@/db/queries/review';
+import { pageSpecForGag, pageSpecForPass } from '@/db/queries/series';
+import { reviewPdf as buildReviewPdf, type Paper, templatesPdf as buildTemplatesPdf } from '@/lib/export/pdf';
+import { gagNotes, scanImages, volumePages } from '@/lib/export/volume-export';
+import { computeFindings } from '@/lib/review/findings';
+import { passToSvg } from '@/lib/strokes/svg';
+
+/** Hands the bytes to the request thread without copying them. */
+const sent = (bytes: Uint8Array) => move(bytes) as unknown as Uint8Array;
+
+export async function thumbnail(args: { passId: string; seriesId: string }) {
+  const db = await getDb();
+  const state = await passState(db, args.passId);
+  if (!state) return null;
+  const spec = await pageSpecForPass(db, args.seriesId, args.passId);
+  return { seq: state.seq, svg: passToSvg(spec, state.strokes, state.rooms, { bleed: false, title: `Pass ${state.number}` }) };
+}
+
+export async function findings(args: { passId: string; seriesId: string }) {
+  const db = await getDb();
+  const state = await passState(db, args.passId);
+  const gag = state && (await findGag(db, state.gagId));
+  if (!state || !gag) return null;
+  const spec = await pageSpecForPass(db, args.seriesId, args.passId);
+  const threshold = await inkThresholdOf(db, args.seriesId);
+  return { seq: state.seq, findings: computeFindings(spec, state.strokes, state.rooms, gag.beats, threshold) };
+}
+
+/** Every pass of a gag as a small SVG page, for the gag page's pass cards and the compare view. */
+export async function gagPassSvgs(args: { seriesId: string; gagId: string }) {
+  const db = await getDb();
+  const spec = await pageSpecForGag(db, args.seriesId, args.gagId);
+  const passes = await listPasses(db, args.gagId);
+  // Two queries for all the passes, however many there are.
+  const ids = passes.map((p) => p.id);
+  const strokes = await liveStrokesOfPasses(db, ids);
+  const rooms = await liveItemsOfPasses(db, ROOMS, ids);
+  const out = passes.map((p) => ({
+    id: p.id,
+    number: p.number,
+    seq: p.seq,
+    strokeCount: p.strokeCount,
+    updatedAt: p.updatedAt,
+    svg: passToSvg(spec, strokes.get(p.id) ?? [], rooms.get(p.id) ?? [], { idPrefix: `pass${p.number}`, title: `Pass ${p.number}` }),
+  }));
+  return { spec, passes: out };
+}
+
+export async function reviewPdf(args: { volumeId: string; lightbox: boolean }) {
+  const db = await getDb();
+  const { volume, pages } = await volumePages(db, args.volumeId, { lightbox: args.lightbox });
+  const bytes = await buildReviewPdf(volume.spec, volume.title, pages, { scans: args.lightbox ? await scanImages(db, pages) : undefined });
+  return sent(bytes);
+}
+
+export async function templatesPdf(args: { volumeId: string; scale: number; paper: Paper }) {
+  const db = await getDb();
+  const { volume, entries } = await volumePages(db, args.volumeId);
+  return sent(await buildTemplatesPdf(volume.spec, volume.title, await gagNotes(db, entries), args.scale, args.paper));
+}

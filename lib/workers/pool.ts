@@ -1,0 +1,102 @@
+// One pool of worker threads per process (piscina) for the CPU-heavy work in
+// lib/workers/heavy-worker.ts, so a 50,000-stroke thumbnail or a 120-page PDF
+// never holds up the requests behind it. Results that depend only on a pass's
+// seq are kept (see `remembered`), so the same picture is computed once.
+import 'server-only';
+import { availableParallelism } from 'node:os';
+import path from 'node:path';
+import { SHARE_ENV } from 'node:worker_threads';
+import { Piscina } from 'piscina';
+import { Refused } from '@/lib/refused';
+import type * as Heavy from './heavy-worker';
+
+type Tasks = Omit<typeof Heavy, 'default'>;
+type TaskName = keyof Tasks;
+
+/** Jobs waiting beyond this many are refused with 503 rather than queued without end. */
+export const MAX_QUEUED_JOBS = 64;
+
+function threads(): number {
+  const set = Number(process.env.HEAVY_WORKERS);
+  return Number.isInteger(set) && set > 0 ? set : Math.max(1, Math.min(4, availableParallelism()));
+}
+
+const holder = globalThis as unknown as { __quadrilleHeavyPool?: Piscina };
+
+function pool(): Piscina {
+  holder.__quadrilleHeavyPool ??= new Piscina({
+    // The worker is TypeScript, loaded through tsx (a runtime dependency, as for the migrations);
+    // react-server makes 'server-only' imports resolve as they do in the app's server build.
+    filename: path.join(process.cwd(), 'lib/workers/heavy-worker.mjs'),
+    execArgv: ['--conditions=react-server'],
+    env: SHARE_ENV,
+    minThreads: 0,
+    maxThreads: threads(),
+    idleTimeout: 60_000,
+    maxQueue: MAX_QUEUED_JOBS,
+  });
+  return holder.__quadrilleHeavyPool;
+}
+
+/** Runs one task in a worker thread; 503 with Retry-After when too many wait already. */
+export async function runHeavy<N extends TaskName>(name: N, args: Parameters<Tasks[N]>[0]): Promise<Awaited<ReturnType<Tasks[N]>>> {
+  try {
+    return await pool().run(args, { name });
+  } catch (err) {
+    if (err instanceof Error && /queue is at limit/i.test(err.message)) {
+      throw new Refused(503, 'The server is busy with other large jobs; try again in a few seconds.', undefined, { 'Retry-After': '5' });
+    }
+    throw err;
+  }
+}
+
+/** For tests and shutdown. */
+export async function closeHeavyPool(): Promise<void> {
+  const p = holder.__quadrilleHeavyPool;
+  holder.__quadrilleHeavyPool = undefined;
+  await p?.close({ force: true });
+}
+
+type Entry = { value: unknown; bytes: number };
+
+/**
+ * A small memory of results by key (a pass id with its seq, and whatever else
+ * the result depends on), bounded in total size, with concurrent asks for the
+ * same key sharing one computation.
+ */
+export function remembered<T>(opts: { maxBytes: number; sizeOf: (value: T) => number }) {
+  const kept = new Map<string, Entry>();
+  const running = new Map<string, Promise<T>>();
+  let total = 0;
+  return {
+    async get(key: string, compute: () => Promise<T>): Promise<T> {
+      const hit = kept.get(key);
+      if (hit) {
+        kept.delete(key);
+        kept.set(key, hit); // most recently used last
+        return hit.value as T;
+      }
+      const inFlight = running.get(key);
+      if (inFlight) return inFlight;
+      const p = compute().finally(() => running.delete(key));
+      running.set(key, p);
+      const value = await p;
+      const bytes = opts.sizeOf(value);
+      if (bytes <= opts.maxBytes) {
+        kept.set(key, { value, bytes });
+        total += bytes;
+        for (const [k, e] of kept) {
+          if (total <= opts.maxBytes) break;
+          kept.delete(k);
+          total -= e.bytes;
+        }
+      }
+      return value;
+    },
+  };
+}
+
+/** How many tasks the pool has finished in this process (for tests: was a result computed or remembered?). */
+export function heavyTasksCompleted(): number {
+  return holder.__quadrilleHeavyPool?.completed ?? 0;
+}
