@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from 'next';
 import localFont from 'next/font/local';
+import { connection } from 'next/server';
 import './globals.css';
 
 // Faces ship in fonts/ (copied from @fontsource packages) so the build never
@@ -31,7 +32,9 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page is rendered per request: its scripts carry that request's CSP nonce (proxy.ts).
+  await connection();
   return (
     <html lang="en" className={`${ui.variable} ${display.variable}`}>
       <body>{children}</body>
