@@ -1,16 +1,14 @@
 // Gag and beat input, shared by the forms (zodResolver) and the route handlers.
 import { z } from 'zod';
 import { BEAT_KINDS, GAG_STATUSES } from '@/lib/gags/status';
+import { longText, oneLine } from './text';
 
-export const gagTitle = z.string().trim().min(1, 'Give the gag a title.').max(120, 'Keep the title under 120 characters.');
+export const gagTitle = oneLine('The title').min(1, 'Give the gag a title.').max(120, 'Keep the title under 120 characters.');
 
-export const gagPremise = z
-  .string()
-  .trim()
-  .max(280, 'The premise is one line: keep it under 280 characters.')
-  .refine((s) => !/[\r\n]/.test(s), 'The premise is one line: no line breaks.');
+export const gagPremise = oneLine('The premise').max(280, 'The premise is one line: keep it under 280 characters.');
 
-export const beatNote = z.string().max(2000, 'Keep a beat note under 2,000 characters.');
+// Not trimmed: beat notes autosave while someone types.
+export const beatNote = longText('A beat note', { trim: false }).max(2000, 'Keep a beat note under 2,000 characters.');
 
 export const createGagSchema = z.object({
   title: gagTitle,

@@ -3,6 +3,7 @@
 import { z } from 'zod';
 import { type PageSpec, bleedBox, panelRects, specProblems } from '@/lib/print/geometry';
 import { MAX_POINTS_PER_STROKE, type Op, ROOM_SHAPES, ROTATIONS, TOOLS } from '@/lib/strokes/types';
+import { oneLine } from './text';
 
 export const clientId = z.string().regex(/^[A-Za-z0-9_-]{1,64}$/, 'Ids are 1–64 characters: letters, digits, "_" or "-".');
 
@@ -35,7 +36,7 @@ export const roomSchema = z.object({
 
 export const lightboxSchema = z.object({
   id: clientId,
-  uploadId: z.string().min(1, 'Which upload? "uploadId" is missing.').max(64),
+  uploadId: oneLine('The upload id').min(1, 'Which upload? "uploadId" is missing.').max(64),
   panel: panel.nullable(),
   x: mm.min(-2000).max(2000),
   y: mm.min(-2000).max(2000),

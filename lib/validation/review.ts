@@ -2,35 +2,38 @@
 import { z } from 'zod';
 import { BEAT_KINDS } from '@/lib/gags/status';
 import { COMMENT_TARGETS, STAMP_DECISIONS } from '@/lib/review/words';
+import { longText, oneLine } from './text';
+
+const id = (what: string) => oneLine(what).min(1).max(64);
 
 export const stampSchema = z
   .object({
     decision: z.enum(STAMP_DECISIONS, { error: 'The decision is "ready" or "again".' }),
-    note: z.string().trim().max(1000, 'Keep the note under 1,000 characters.').default(''),
+    note: longText('The note').max(1000, 'Keep the note under 1,000 characters.').default(''),
   })
   .strict();
 
 export const checklistPutSchema = z
   .object({
     /** Items ticked on this pass; anything not listed is unticked. */
-    ticked: z.array(z.string().min(1).max(64)).max(100),
+    ticked: z.array(id('A checklist item id')).max(100),
   })
   .strict();
 
 export const checklistItemsSchema = z
   .object({
     items: z
-      .array(z.object({ id: z.string().min(1).max(64).optional(), text: z.string().trim().min(1, 'An item needs words.').max(200) }))
+      .array(z.object({ id: id('A checklist item id').optional(), text: oneLine('A checklist item').min(1, 'An item needs words.').max(200) }))
       .max(40, 'At most 40 items.'),
   })
   .strict();
 
 export const commentCreateSchema = z
   .object({
-    body: z.string().trim().min(1, 'Write something first.').max(4000, 'Keep a comment under 4,000 characters.'),
-    parentId: z.string().min(1).max(64).optional(),
+    body: longText('The comment').min(1, 'Write something first.').max(4000, 'Keep a comment under 4,000 characters.'),
+    parentId: id('The thread id').optional(),
     target: z.enum(COMMENT_TARGETS).default('gag'),
-    passId: z.string().min(1).max(64).optional(),
+    passId: id('The pass id').optional(),
     panel: z.number().int().min(0).max(3).optional(),
     beat: z.enum(BEAT_KINDS).optional(),
     // A point on the page, in mm: finite and within a metre of it (the page is far smaller).
@@ -51,7 +54,7 @@ export const commentCreateSchema = z
 
 export const commentPatchSchema = z
   .object({
-    body: z.string().trim().min(1).max(4000).optional(),
+    body: longText('The comment').min(1, 'Write something first.').max(4000, 'Keep a comment under 4,000 characters.').optional(),
     resolved: z.boolean().optional(),
   })
   .strict()

@@ -2,6 +2,9 @@ import { z } from 'zod';
 import { STAGES } from '@/lib/planning/plan';
 import { specProblems } from '@/lib/print/geometry';
 import { MATTER_KINDS } from '@/lib/print/matter';
+import { oneLine } from './text';
+
+const entryId = (what: string) => oneLine(what).min(1).max(64);
 
 const date = z
   .string()
@@ -28,7 +31,7 @@ export const volumeSpecPatch = z
 
 export const createVolumeSchema = z
   .object({
-    title: z.string().trim().min(1, 'Give the volume a title.').max(120),
+    title: oneLine('The title').min(1, 'Give the volume a title.').max(120),
     deadline: date,
     hoursPerWeek: z.number().min(0.5).max(100).optional(),
     spec: volumeSpecPatch.optional(),
@@ -37,7 +40,7 @@ export const createVolumeSchema = z
 
 export const updateVolumeSchema = z
   .object({
-    title: z.string().trim().min(1).max(120).optional(),
+    title: oneLine('The title').min(1, 'Give the volume a title.').max(120).optional(),
     deadline: date.optional(),
     hoursPerWeek: z.number().min(0.5).max(100).optional(),
     spec: volumeSpecPatch.optional(),
@@ -50,10 +53,10 @@ export const updateVolumeSchema = z
   .strict()
   .refine((v) => Object.values(v).some((x) => x !== undefined), 'Send at least one field.');
 
-export const addEntrySchema = z.union([z.object({ gagId: z.string().min(1).max(64) }).strict(), z.object({ kind: z.enum(MATTER_KINDS) }).strict()]);
+export const addEntrySchema = z.union([z.object({ gagId: entryId('The gag id') }).strict(), z.object({ kind: z.enum(MATTER_KINDS) }).strict()]);
 
 export const moveEntrySchema = z
-  .object({ before: z.string().min(1).max(64).optional(), after: z.string().min(1).max(64).optional() })
+  .object({ before: entryId('The entry id').optional(), after: entryId('The entry id').optional() })
   .strict()
   .refine((v) => (v.before ? 1 : 0) + (v.after ? 1 : 0) === 1, 'Give exactly one of "before" or "after".');
 
