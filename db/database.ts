@@ -73,6 +73,9 @@ export interface PassesTable {
   createdBy: string | null;
   createdAt: Timestamp;
   updatedAt: Timestamp;
+  /** Live strokes and their points (db/queries/pass-size.ts), for the size limit. */
+  liveStrokes: Generated<number>;
+  livePoints: Generated<number>;
 }
 
 /** One version of a stroke; a stroke id may have several rows over time, one live at most. */

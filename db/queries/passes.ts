@@ -8,12 +8,13 @@
 import { randomUUID } from 'node:crypto';
 import type { Kysely, Transaction } from 'kysely';
 import { type PageSpec, bleedBox } from '@/lib/print/geometry';
-import { type Lightbox, MAX_PASS_POINTS, MAX_PASS_STROKES, type Op, type Room, type Stroke } from '@/lib/strokes/types';
+import type { Lightbox, Op, Room, Stroke } from '@/lib/strokes/types';
 import type { Database } from '../database';
 import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 import { LIGHTBOXES, ROOMS, copyItems, itemsDelta, liveItems, removeItem, upsertItem } from './pass-items';
 import { passWithGag } from './pass-info';
+import { type SizeChange, recountPass, sizeAfter } from './pass-size';
 import { addRevision } from './revisions';
 import { clearStampOnChange } from './stamps';
 import { rowToStroke, strokeRowValues } from './stroke-rows';
@@ -205,6 +206,7 @@ export async function createPass(
         .insertInto('strokes')
         .values(strokeRowValues(id, s, 1, input.userId))
         .execute();
+    await recountPass(trx, id);
     await copyItems(trx, ROOMS, sourceRooms, id, 1);
     await copyItems(trx, LIGHTBOXES, sourceLightboxes, id, 1);
     await addRevision(trx, id, seq, input.copyFrom !== undefined ? 'copied' : 'created', input.userId);
@@ -231,7 +233,7 @@ async function liveStrokeRow(trx: Db, passId: string, strokeId: string) {
     .executeTakeFirst();
 }
 
-async function applyOp(trx: Transaction<Database>, passId: string, seq: number, op: Op, userId: string, spec: PageSpec) {
+async function applyOp(trx: Transaction<Database>, passId: string, seq: number, op: Op, userId: string, spec: PageSpec, change: SizeChange) {
   switch (op.op) {
     case 'add': {
       const seen =
@@ -242,6 +244,8 @@ async function applyOp(trx: Transaction<Database>, passId: string, seq: number, 
         .insertInto('strokes')
         .values(strokeRowValues(passId, op.stroke, seq, userId))
         .execute();
+      change.strokes += 1;
+      change.points += op.stroke.points.length;
       return;
     }
     case 'remove': {
@@ -250,13 +254,18 @@ async function applyOp(trx: Transaction<Database>, passId: string, seq: number, 
         .values({ passId, strokeId: op.strokeId, seq })
         .onConflict((oc) => oc.doNothing())
         .execute();
-      await trx
+      const removed = await trx
         .updateTable('strokes')
         .set({ removedSeq: seq })
         .where('passId', '=', passId)
         .where('strokeId', '=', op.strokeId)
         .where('removedSeq', 'is', null)
+        .returning('pointCount')
         .execute();
+      for (const r of removed) {
+        change.strokes -= 1;
+        change.points -= r.pointCount;
+      }
       return;
     }
     case 'move': {
@@ -286,22 +295,6 @@ async function applyOp(trx: Transaction<Database>, passId: string, seq: number, 
   }
 }
 
-/** A batch that would take the pass past its size limit is refused whole (nothing of it is kept). */
-async function refuseOverSize(trx: Transaction<Database>, passId: string) {
-  const size = await trx
-    .selectFrom('strokes')
-    .select((eb) => [eb.fn.countAll<number>().as('strokes'), eb.fn.coalesce(eb.fn.sum<number>('pointCount'), eb.lit(0)).as('points')])
-    .where('passId', '=', passId)
-    .where('removedSeq', 'is', null)
-    .executeTakeFirstOrThrow();
-  if (Number(size.strokes) > MAX_PASS_STROKES || Number(size.points) > MAX_PASS_POINTS) {
-    throw new Refused(
-      422,
-      `A pass holds at most ${MAX_PASS_STROKES.toLocaleString('en')} strokes and ${MAX_PASS_POINTS.toLocaleString('en')} points; this one is full. Start a new pass, or erase some strokes first.`,
-    );
-  }
-}
-
 /**
  * Applies one batch in one transaction and answers `{ seq }`. A batch id seen
  * before answers what it answered then and changes nothing.
@@ -323,11 +316,20 @@ export async function applyBatch(
       .executeTakeFirst();
     if (seen) return { ...(JSON.parse(seen.result) as { seq: number }), replayed: true, stampCleared: false };
 
-    const pass = await trx.selectFrom('passes').select(['seq', 'updatedAt']).where('id', '=', input.passId).executeTakeFirstOrThrow();
+    const pass = await trx
+      .selectFrom('passes')
+      .select(['seq', 'updatedAt', 'liveStrokes', 'livePoints'])
+      .where('id', '=', input.passId)
+      .executeTakeFirstOrThrow();
     const now = input.now ?? new Date();
     const seq = pass.seq + 1;
-    for (const op of input.ops) await applyOp(trx, input.passId, seq, op, input.userId, input.spec);
-    if (input.ops.some((op) => op.op === 'add')) await refuseOverSize(trx, input.passId);
+    const change: SizeChange = { strokes: 0, points: 0 };
+    for (const op of input.ops) await applyOp(trx, input.passId, seq, op, input.userId, input.spec, change);
+    const size = sizeAfter(
+      pass,
+      change,
+      input.ops.some((op) => op.op === 'add'),
+    );
 
     // Revisions: the state before a pause, and a steady one every N batches.
     const lastRev = await trx
@@ -344,7 +346,11 @@ export async function applyBatch(
 
     const stampCleared = await clearStampOnChange(trx, input.passId, seq, input.userId);
     const result = { seq };
-    await trx.updateTable('passes').set({ seq, updatedAt: now.toISOString() }).where('id', '=', input.passId).execute();
+    await trx
+      .updateTable('passes')
+      .set({ seq, updatedAt: now.toISOString(), liveStrokes: size.strokes, livePoints: size.points })
+      .where('id', '=', input.passId)
+      .execute();
     await trx
       .insertInto('passBatches')
       .values({

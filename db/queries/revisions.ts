@@ -8,6 +8,7 @@ import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 import { LIGHTBOXES, ROOMS, restoreItems } from './pass-items';
 import { passWithGag } from './pass-info';
+import { recountPass } from './pass-size';
 import { clearStampOnChange } from './stamps';
 import { rowToStroke, strokeRowValues, strokesAt } from './stroke-rows';
 
@@ -94,6 +95,7 @@ export async function restoreRevision(
         .execute();
     }
 
+    await recountPass(trx, input.passId);
     await restoreItems(trx, ROOMS, input.passId, rev.seq, seq);
     await restoreItems(trx, LIGHTBOXES, input.passId, rev.seq, seq);
 

@@ -5,6 +5,7 @@ import { BEAT_KINDS } from '@/lib/gags/status';
 import { hashPassword } from '@/lib/auth/password';
 import type { Database } from '../database';
 import { ROOMS, copyItems } from '../queries/pass-items';
+import { recountPass } from '../queries/pass-size';
 import { strokeRowValues } from '../queries/stroke-rows';
 import { demoSketch } from './demo-sketches';
 import {
@@ -98,6 +99,7 @@ export async function seedDemo(db: Kysely<Database>): Promise<void> {
             .insertInto('strokes')
             .values(strokeRowValues(passId, st, 1, 'demo-user-owner'))
             .execute();
+        await recountPass(trx, passId);
         await copyItems(trx, ROOMS, rooms, passId, 1);
         await trx
           .insertInto('revisions')

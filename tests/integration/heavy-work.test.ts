@@ -5,6 +5,7 @@ import * as passesRoute from '@/app/api/gags/[gagId]/passes/route';
 import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as findingsRoute from '@/app/api/passes/[passId]/findings/route';
 import * as thumbRoute from '@/app/api/passes/[passId]/thumbnail.svg/route';
+import { recountPass } from '@/db/queries/pass-size';
 import { strokeRowValues } from '@/db/queries/stroke-rows';
 import { MAX_PASS_POINTS, MAX_POINTS_PER_STROKE, type Point, type Stroke } from '@/lib/strokes/types';
 import { heavyTasksCompleted } from '@/lib/workers/pool';
@@ -24,7 +25,7 @@ function stroke(id: string, n = 20, panel = 0): Stroke {
 async function newPass(gagId: string) {
   const r = await callRoute(passesRoute.POST, { method: 'POST', as: 'cocreator', params: { gagId }, body: {} });
   expect(r.status).toBe(201);
-  return r.body as { id: string };
+  return r.body as { id: string; number: number };
 }
 
 const send = (passId: string, batchId: string, ops: unknown[]) =>
@@ -79,6 +80,7 @@ describe('the size limit of a pass', () => {
         .values(rows.slice(i, i + 50))
         .execute();
     await db.updateTable('passes').set({ seq: 1 }).where('id', '=', p.id).execute();
+    await recountPass(db, p.id);
 
     const counts = await countRows(db, ['strokes', 'passBatches', 'strokeTombstones']);
     const r = await send(p.id, 'over-1', [
@@ -95,5 +97,42 @@ describe('the size limit of a pass', () => {
       { op: 'add', stroke: stroke('fits-now', 2) },
     ]);
     expect(ok.status).toBe(200);
+  });
+
+  it('the size kept on the pass row agrees with its rows after adds, removals, replays, copies and restores', async () => {
+    const p = await newPass('demo-gag-06');
+    const sizeOf = async (passId: string) => {
+      const kept = await db.selectFrom('passes').select(['liveStrokes', 'livePoints']).where('id', '=', passId).executeTakeFirstOrThrow();
+      const rows = await db.selectFrom('strokes').select('pointCount').where('passId', '=', passId).where('removedSeq', 'is', null).execute();
+      expect({ strokes: kept.liveStrokes, points: kept.livePoints }).toEqual({
+        strokes: rows.length,
+        points: rows.reduce((n, r) => n + r.pointCount, 0),
+      });
+      return rows.length;
+    };
+    await send(p.id, 'z-1', [
+      { op: 'add', stroke: stroke('z1', 12) },
+      { op: 'add', stroke: stroke('z2', 30) },
+      { op: 'add', stroke: stroke('z3', 7) },
+    ]);
+    await send(p.id, 'z-1', [{ op: 'add', stroke: stroke('z4', 5) }]); // a replayed batch id changes nothing
+    await send(p.id, 'z-2', [
+      { op: 'remove', strokeId: 'z2' },
+      { op: 'remove', strokeId: 'z2' },
+      { op: 'remove', strokeId: 'never-there' },
+    ]);
+    await send(p.id, 'z-3', [{ op: 'add', stroke: stroke('z2', 30) }]); // a removed id stays removed
+    expect(await sizeOf(p.id)).toBe(2);
+    const copy = await callRoute(passesRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { gagId: 'demo-gag-06' },
+      body: { copyFrom: p.number },
+    });
+    expect(await sizeOf(copy.body.id)).toBe(2);
+    const revs = await db.selectFrom('revisions').select(['id', 'seq']).where('passId', '=', p.id).orderBy('seq').execute();
+    const { restoreRevision } = await import('@/db/queries/revisions');
+    await restoreRevision(db, { passId: p.id, revisionId: revs[0]!.id, userId: 'demo-user-owner' });
+    expect(await sizeOf(p.id)).toBe(0);
   });
 });
