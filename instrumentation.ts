@@ -32,4 +32,7 @@ export async function register() {
       );
     }
   }
+  // Start one worker thread now, so the first big thumbnail or PDF does not wait for it to load.
+  const { warmHeavyPool } = await import('./lib/workers/pool');
+  warmHeavyPool();
 }

@@ -8,4 +8,4 @@ registerEsm();
 const loaded = await import('./heavy-worker.ts');
 // Loaded as CommonJS (the project is not "type": "module"), its exports sit on `default`.
 const tasks = loaded.thumbnail ? loaded : loaded.default;
-export const { thumbnail, findings, gagPassSvgs, reviewPdf, templatesPdf } = tasks;
+export const { ready, thumbnail, findings, gagPassSvgs, reviewPdf, templatesPdf } = tasks;

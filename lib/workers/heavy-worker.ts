@@ -18,6 +18,11 @@ import { passToSvg } from '@/lib/strokes/svg';
 /** Hands the bytes to the request thread without copying them. */
 const sent = (bytes: Uint8Array) => move(bytes) as unknown as Uint8Array;
 
+/** Nothing: loading this module is the work (see warmHeavyPool). */
+export async function ready() {
+  return true;
+}
+
 export async function thumbnail(args: { passId: string; seriesId: string }) {
   const db = await getDb();
   const state = await passState(db, args.passId);

@@ -10,7 +10,7 @@ import { Piscina } from 'piscina';
 import { Refused } from '@/lib/refused';
 import type * as Heavy from './heavy-worker';
 
-type Tasks = Omit<typeof Heavy, 'default'>;
+type Tasks = Omit<typeof Heavy, 'default' | 'ready'>;
 type TaskName = keyof Tasks;
 
 /** Jobs waiting beyond this many are refused with 503 rather than queued without end. */
@@ -36,6 +36,13 @@ function pool(): Piscina {
     maxQueue: MAX_QUEUED_JOBS,
   });
   return holder.__quadrilleHeavyPool;
+}
+
+/** Starts the pool with one thread loaded (at server start). */
+export function warmHeavyPool(): void {
+  pool()
+    .run({}, { name: 'ready' })
+    .catch(() => undefined);
 }
 
 /** Runs one task in a worker thread; 503 with Retry-After when too many wait already. */
