@@ -63,6 +63,23 @@ export interface SignInFailuresTable {
   at: ColumnType<number, number, never>;
 }
 
+/** One sign-in: the session cookie names its row, and a request is signed in only while the row is there. */
+export interface SessionsTable {
+  id: string;
+  userId: string;
+  createdAt: Timestamp;
+  /** The session ends at this time (30 days after sign-in) even if nobody signs out. */
+  expiresAt: Timestamp;
+}
+
+/** A password check from one client address (see lib/auth/client-address.ts), counted before the hash. */
+export interface SignInClientAttemptsTable {
+  id: Generated<number>;
+  client: string;
+  /** Milliseconds since the epoch. */
+  at: ColumnType<number, number, never>;
+}
+
 export interface PassesTable {
   id: string;
   gagId: string;
@@ -259,6 +276,8 @@ export interface InvitationsTable {
   acceptedAt: Timestamp | null;
   acceptedBy: string | null;
   revokedAt: Timestamp | null;
+  /** 0: only the account with `email` may accept; 1: anyone with the link (the owner chose it). */
+  anyoneWithLink: ColumnType<number, number | undefined, number>;
 }
 
 export interface MailLogTable {
@@ -331,6 +350,8 @@ export interface Database {
   gags: GagsTable;
   beats: BeatsTable;
   signInFailures: SignInFailuresTable;
+  signInClientAttempts: SignInClientAttemptsTable;
+  sessions: SessionsTable;
   passes: PassesTable;
   strokes: StrokesTable;
   strokeMoves: StrokeMovesTable;

@@ -5,7 +5,7 @@ import type { MemberDto } from '@/db/queries/members';
 import type { Role } from '@/lib/auth/permissions';
 import { api, fetcher } from '@/lib/http/client';
 
-export type InvitationDto = { id: string; email: string; role: Role; expiresAt: string; invitedBy: string };
+export type InvitationDto = { id: string; email: string; role: Role; anyoneWithLink: boolean; expiresAt: string; invitedBy: string };
 
 export function useMembers(seriesId: string | null) {
   return useSWR<MemberDto[]>(seriesId ? `/api/series/${seriesId}/members` : null, fetcher);
@@ -28,10 +28,16 @@ export function useMe() {
 /** What an owner does on the members page. */
 export function memberActions(seriesId: string) {
   return {
-    invite: (input: { email: string; role: Role }) => api(`/api/series/${seriesId}/invitations`, { method: 'POST', json: input }),
+    invite: (input: { email: string; role: Role; anyoneWithLink?: boolean }) =>
+      api(`/api/series/${seriesId}/invitations`, { method: 'POST', json: input }),
     changeRole: (userId: string, role: Role) => api(`/api/series/${seriesId}/members/${userId}`, { method: 'PATCH', json: { role } }),
     remove: (userId: string) => api(`/api/series/${seriesId}/members/${userId}`, { method: 'DELETE' }),
   };
+}
+
+/** A new password (the current one too); every other session of mine ends. */
+export function changePassword(input: { currentPassword: string; newPassword: string }) {
+  return api<{ passwordChanged: true; otherSessionsEnded: number }>('/api/me', { method: 'PATCH', json: input });
 }
 
 export function acceptInvitation(token: string) {

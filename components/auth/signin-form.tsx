@@ -12,6 +12,7 @@ import { type SignInInput, signInSchema } from '@/lib/validation/account';
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail address and password do not match an account. Check both and try again.',
   TooManyAttempts: 'Too many failed sign-ins for this e-mail address. Wait 15 minutes, then try again.',
+  TooManyFromClient: 'Too many failed sign-ins from your network. Wait 15 minutes, then try again.',
   SessionRequired: 'Sign in to see that page.',
 };
 
@@ -30,7 +31,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl?: string
     setError(null);
     const res = await signIn('credentials', { ...values, redirect: false });
     if (!res || res.error || !res.ok) {
-      const code = res?.status === 429 ? 'TooManyAttempts' : (res?.error ?? 'CredentialsSignin');
+      const code = res?.error ?? (res?.status === 429 ? 'TooManyAttempts' : 'CredentialsSignin');
       setError(MESSAGES[code] ?? MESSAGES.CredentialsSignin!);
       return;
     }

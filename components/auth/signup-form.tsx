@@ -8,7 +8,7 @@ import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { api, messageOf } from '@/lib/http/client';
-import { type SignUpInput, signUpSchema } from '@/lib/validation/account';
+import { PASSWORD_MIN, type SignUpInput, signUpSchema } from '@/lib/validation/account';
 
 export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
   const router = useRouter();
@@ -48,7 +48,12 @@ export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
       <Field id="email" label="E-mail" error={formState.errors.email?.message}>
         <input id="email" type="email" autoComplete="email" className="field" {...register('email')} />
       </Field>
-      <Field id="password" label="Password" hint="At least 10 characters." error={formState.errors.password?.message}>
+      <Field
+        id="password"
+        label="Password"
+        hint={`At least ${PASSWORD_MIN} characters; a few unrelated words work well.`}
+        error={formState.errors.password?.message}
+      >
         <input id="password" type="password" autoComplete="new-password" className="field" {...register('password')} />
       </Field>
       <Button type="submit" disabled={formState.isSubmitting} className="w-full">

@@ -19,6 +19,9 @@ export function StudioHeader({ user }: { user: SessionUser | null }) {
             <span className="text-graphite-soft">
               Signed in as <strong className="text-graphite">{user.name}</strong>
             </span>
+            <Link href="/account" className="rounded px-2 py-1 font-bold text-ink hover:underline">
+              My account
+            </Link>
             <Link href="/signout" className="rounded px-2 py-1 font-bold text-ink hover:underline">
               Sign out
             </Link>

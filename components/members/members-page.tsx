@@ -18,7 +18,10 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
   const me = useMe();
   const actions = memberActions(seriesId);
   const [message, setMessage] = useState<string | null>(null);
-  const form = useForm<z.input<typeof inviteSchema>>({ resolver: zodResolver(inviteSchema), defaultValues: { email: '', role: 'viewer' } });
+  const form = useForm<z.input<typeof inviteSchema>>({
+    resolver: zodResolver(inviteSchema),
+    defaultValues: { email: '', role: 'viewer', anyoneWithLink: false },
+  });
 
   const act = async (fn: () => Promise<unknown>, ok: string) => {
     setMessage(null);
@@ -35,7 +38,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
   const invite = form.handleSubmit((v) =>
     act(async () => {
       await actions.invite(v);
-      form.reset({ email: '', role: v.role });
+      form.reset({ email: '', role: v.role, anyoneWithLink: false });
     }, `Invitation sent to ${v.email}.`),
   );
 
@@ -130,6 +133,15 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
             <Button type="submit" disabled={form.formState.isSubmitting}>
               Send invitation
             </Button>
+            <label className="flex basis-full items-start gap-2 text-sm">
+              <input type="checkbox" className="mt-1" aria-describedby="open-link-hint" {...form.register('anyoneWithLink')} />
+              <span>
+                Anyone who has the link may join, not only the person with this e-mail address
+                <span id="open-link-hint" className="block text-xs text-graphite-faint">
+                  Leave it unticked unless you will share the link yourself: a forwarded e-mail then lets someone else in.
+                </span>
+              </span>
+            </label>
           </form>
           <p className="text-sm text-graphite-soft" id="role-hint">
             {ROLE_HINT}
@@ -139,7 +151,8 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
             <ul className="space-y-1 text-sm">
               {invitations.data!.map((i) => (
                 <li key={i.id}>
-                  {i.email} as {ROLE_LABELS[i.role]} — invited by {i.invitedBy}, until{' '}
+                  {i.email}
+                  {i.anyoneWithLink ? ' (open link: anyone who has it)' : ''} as {ROLE_LABELS[i.role]} — invited by {i.invitedBy}, until{' '}
                   <span suppressHydrationWarning>{new Date(i.expiresAt).toLocaleDateString()}</span>
                 </li>
               ))}

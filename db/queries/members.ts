@@ -1,11 +1,13 @@
 // Members and invitations. An invitation link carries a random token; only its
-// SHA-256 is stored. It works once and for 7 days.
+// SHA-256 is stored. It works once and for 7 days, and only for the account with
+// the address it was sent to, unless the owner made it a link anyone may use.
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import type { Kysely, Transaction } from 'kysely';
 import type { Role } from '@/lib/auth/permissions';
 import type { Database } from '../database';
 import { forUpdate, lockRow } from '../dialect';
 import { recordActivity } from './activity';
+import { endAllSessions } from './sessions';
 import { Refused } from '@/lib/refused';
 
 export const INVITATION_DAYS = 7;
@@ -28,18 +30,19 @@ export async function listInvitations(db: Kysely<Database>, seriesId: string, no
   return db
     .selectFrom('invitations as i')
     .innerJoin('users as u', 'u.id', 'i.invitedBy')
-    .select(['i.id', 'i.email', 'i.role', 'i.createdAt', 'i.expiresAt', 'u.name as invitedBy'])
+    .select(['i.id', 'i.email', 'i.role', 'i.anyoneWithLink', 'i.createdAt', 'i.expiresAt', 'u.name as invitedBy'])
     .where('i.seriesId', '=', seriesId)
     .where('i.acceptedAt', 'is', null)
     .where('i.revokedAt', 'is', null)
     .where('i.expiresAt', '>', now.toISOString())
     .orderBy('i.createdAt', 'desc')
-    .execute();
+    .execute()
+    .then((rows) => rows.map((r) => ({ ...r, anyoneWithLink: r.anyoneWithLink === 1 })));
 }
 
 export async function createInvitation(
   db: Kysely<Database>,
-  input: { seriesId: string; email: string; role: Role; invitedBy: string },
+  input: { seriesId: string; email: string; role: Role; invitedBy: string; anyoneWithLink?: boolean },
   now = new Date(),
 ): Promise<{ id: string; token: string; expiresAt: Date }> {
   const already = await db
@@ -67,6 +70,7 @@ export async function createInvitation(
       acceptedAt: null,
       acceptedBy: null,
       revokedAt: null,
+      anyoneWithLink: input.anyoneWithLink ? 1 : 0,
     })
     .execute();
   return { id, token, expiresAt };
@@ -87,10 +91,33 @@ export async function invitationByToken(db: Kysely<Database>, token: string) {
       'i.expiresAt',
       'i.acceptedAt',
       'i.revokedAt',
+      'i.anyoneWithLink',
       'u.name as invitedBy',
     ])
     .where('i.tokenHash', '=', hashToken(token))
     .executeTakeFirst();
+}
+
+/**
+ * An address as an invitation shows it to someone it may not be for: enough to recognise one's own, not to learn
+ * someone else's — the first letter of the name (two if it is long), the domain's first letter and its ending:
+ * `nell@studio.example` → `n•••@s•••.example`.
+ */
+export function maskEmail(address: string): string {
+  const at = address.lastIndexOf('@');
+  if (at < 1) return '•••';
+  const local = address.slice(0, at).toLowerCase();
+  const domain = address.slice(at + 1).toLowerCase();
+  const dot = domain.lastIndexOf('.');
+  const shownLocal = local.slice(0, local.length > 6 ? 2 : 1);
+  const shownDomain = dot > 0 ? `${domain[0]}•••${domain.slice(dot)}` : '•••';
+  return `${shownLocal}•••@${shownDomain}`;
+}
+
+/** Whether this account may accept: the address matches (case-insensitively), or the owner made an open link. */
+export function invitationRefusal(inv: { email: string; anyoneWithLink: number }, accountEmail: string): string | null {
+  if (inv.anyoneWithLink === 1 || inv.email.toLowerCase() === accountEmail.toLowerCase()) return null;
+  return `This invitation was sent to ${maskEmail(inv.email)}, and you are signed in as ${accountEmail}. Sign in with the address it was sent to, or ask the owner for a new invitation.`;
 }
 
 export async function acceptInvitation(db: Kysely<Database>, token: string, userId: string, now = new Date()) {
@@ -100,6 +127,9 @@ export async function acceptInvitation(db: Kysely<Database>, token: string, user
     if (!inv || inv.revokedAt) throw new Refused(404, 'This invitation does not exist.');
     if (inv.acceptedAt) throw new Refused(410, 'This invitation has already been used.');
     if (Date.parse(inv.expiresAt) <= now.getTime()) throw new Refused(410, 'This invitation has expired. Ask the owner for a new one.');
+    const u = await trx.selectFrom('users').select(['name', 'email']).where('id', '=', userId).executeTakeFirstOrThrow();
+    const refusal = invitationRefusal(inv, u.email);
+    if (refusal) throw new Refused(403, refusal);
     const existing = await trx
       .selectFrom('memberships')
       .select('role')
@@ -109,7 +139,6 @@ export async function acceptInvitation(db: Kysely<Database>, token: string, user
     if (existing) throw new Refused(409, 'You are already a member of this series.');
     await trx.insertInto('memberships').values({ seriesId: inv.seriesId, userId, role: inv.role, createdAt: now.toISOString() }).execute();
     await trx.updateTable('invitations').set({ acceptedAt: now.toISOString(), acceptedBy: userId }).where('id', '=', inv.id).execute();
-    const u = await trx.selectFrom('users').select('name').where('id', '=', userId).executeTakeFirstOrThrow();
     await recordActivity(trx, { seriesId: inv.seriesId, userId, kind: 'member.joined', summary: `${u.name} joined as ${inv.role}` });
     return { seriesId: inv.seriesId, role: inv.role };
   });
@@ -156,4 +185,7 @@ async function removeMemberLocked(db: Transaction<Database>, seriesId: string, u
     throw new Refused(409, 'The last owner cannot be removed.');
   }
   await db.deleteFrom('memberships').where('seriesId', '=', seriesId).where('userId', '=', userId).execute();
+  // Removed from their last series: nothing left to see, and their sessions end (issue 13, sessions end on the server).
+  const left = await db.selectFrom('memberships').select('seriesId').where('userId', '=', userId).limit(1).executeTakeFirst();
+  if (!left) await endAllSessions(db, userId);
 }

@@ -1,8 +1,10 @@
-// Who is signed in: read from next-auth's session cookie (an encrypted JWT),
-// then checked against the users table so a deleted account is signed out.
-import { getToken } from 'next-auth/jwt';
+// Who is signed in: read from next-auth's session cookie (an encrypted JWT carrying the user id and the session
+// id), then checked against the sessions table joined to users, in one query per request: a session that was
+// ended (signed out, password changed, removed from the last series) or an account that was deleted is signed out.
+// A cookie from before sessions were recorded names no session and is signed out too.
+import { type JWT, getToken } from 'next-auth/jwt';
 import { getDb } from '@/db/client';
-import { findUserById } from '@/db/queries/users';
+import { findSessionUser } from '@/db/queries/sessions';
 import { authSecret } from './secret';
 
 export type SessionUser = { id: string; email: string; name: string };
@@ -25,23 +27,36 @@ function cookiesFromHeader(header: string | null): Record<string, string> {
   return out;
 }
 
-async function userFromCookies(cookies: CookieSource | Record<string, string>, headers: Headers): Promise<SessionUser | null> {
+async function tokenFrom(cookies: CookieSource | Record<string, string>, headers: Headers): Promise<JWT | null> {
   const secret = authSecret();
   if (!secret) return null;
-  const token = await getToken({
+  return getToken({
     req: { cookies, headers } as unknown as Parameters<typeof getToken>[0]['req'],
     secret,
   });
-  if (!token?.sub) return null;
-  const user = await findUserById(await getDb(), token.sub);
+}
+
+async function userFromCookies(cookies: CookieSource | Record<string, string>, headers: Headers): Promise<SessionUser | null> {
+  const token = await tokenFrom(cookies, headers);
+  if (!token?.sub || typeof token.sid !== 'string') return null;
+  const user = await findSessionUser(await getDb(), token.sid, token.sub);
   return user ?? null;
+}
+
+function requestCookies(req: Request): CookieSource | Record<string, string> {
+  const maybe = (req as { cookies?: CookieSource }).cookies;
+  return maybe && typeof maybe.getAll === 'function' ? maybe : cookiesFromHeader(req.headers.get('cookie'));
 }
 
 /** For route handlers: the request carries the cookie. */
 export async function userFromRequest(req: Request): Promise<SessionUser | null> {
-  const maybe = (req as { cookies?: CookieSource }).cookies;
-  const cookies = maybe && typeof maybe.getAll === 'function' ? maybe : cookiesFromHeader(req.headers.get('cookie'));
-  return userFromCookies(cookies, req.headers);
+  return userFromCookies(requestCookies(req), req.headers);
+}
+
+/** The session a request's cookie names (read from the cookie alone: check the user with userFromRequest first). */
+export async function sessionIdOf(req: Request): Promise<string | null> {
+  const token = await tokenFrom(requestCookies(req), req.headers);
+  return typeof token?.sid === 'string' ? token.sid : null;
 }
 
 /** For server components and server actions. */

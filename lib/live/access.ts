@@ -1,14 +1,26 @@
-// Whether a person may still read what an open stream shows: still a member of
-// the series, and the thing watched still belongs to it.
+// Whether a person may still read what an open stream shows: still signed in with
+// the session that opened it, still a member of the series, and the thing watched
+// still belongs to it.
 import 'server-only';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
 import { authorizeSeries } from '@/lib/auth/guard';
+import { userFromRequest } from '@/lib/auth/session';
 import { Refused } from '@/lib/http/route';
 import { streamQuery } from '@/lib/validation/live';
 
-export function stillReadable(userId: string, seriesId: string, db: Kysely<Database>, seriesOf: (db: Kysely<Database>) => Promise<string | null>) {
-  return async () => (await seriesOf(db)) === seriesId && (await authorizeSeries(userId, seriesId, 'read')).ok;
+export function stillReadable(
+  userId: string,
+  seriesId: string,
+  db: Kysely<Database>,
+  seriesOf: (db: Kysely<Database>) => Promise<string | null>,
+  /** The stream's request: its session must still be live (signed out elsewhere, a password change). */
+  req?: Request,
+) {
+  return async () =>
+    (!req || (await userFromRequest(req))?.id === userId) &&
+    (await seriesOf(db)) === seriesId &&
+    (await authorizeSeries(userId, seriesId, 'read')).ok;
 }
 
 /** `?tab=&where=&panel=` of a stream request; 422 when malformed. */

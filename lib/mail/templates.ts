@@ -18,12 +18,22 @@ ${paragraphs.map((p) => `<p style="line-height:1.5">${esc(p)}</p>`).join('\n')}
 
 const SETTINGS_FOOTER = 'You can turn these e-mails off under Notifications on your series page.';
 
-export function invitationMail(p: { seriesTitle: string; inviter: string; role: Role; link: string; expiresAt: Date }): Mail {
+/** `forAddress`: the only account that may accept (null for a link anyone may use). */
+export function invitationMail(p: {
+  seriesTitle: string;
+  inviter: string;
+  role: Role;
+  link: string;
+  expiresAt: Date;
+  forAddress?: string | null;
+}): Mail {
   const until = p.expiresAt.toISOString().slice(0, 10);
   const subject = `${p.inviter} invites you to “${p.seriesTitle}” on Quadrille`;
   const lines = [
     `${p.inviter} invites you to join the series “${p.seriesTitle}” as ${ROLE_LABELS[p.role].toLowerCase()}.`,
-    `The link works once and until ${until}. You will be asked to sign in or create an account.`,
+    p.forAddress
+      ? `The link works once and until ${until}, for the account with this address (${p.forAddress}): sign in with it, or create an account with it.`
+      : `The link works once and until ${until}. You will be asked to sign in or create an account.`,
   ];
   return {
     subject,

@@ -4,14 +4,11 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { encode } from 'next-auth/jwt';
 import { readSse } from '../support/sse';
 import { type Deployment, type Instance, ensureBuild, seed, startDeployment, startInstance } from '../support/instances';
 
 const DIST = '.next-test';
 const GAG = 'demo-gag-12';
-// startInstance gives every instance this secret, so one cookie works on all of them.
-const SECRET = 'multi-instance-test-secret-shared-by-all';
 const STROKES = 200;
 const POLL_MS = 1000;
 const WRITERS = 8;
@@ -52,9 +49,28 @@ export function percentile(xs: number[], p: number): number {
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-async function cookie(): Promise<string> {
-  const token = await encode({ token: { sub: 'demo-user-cocreator', email: 'cocreator@quadrille.test', name: 'Tam Quill' }, secret: SECRET });
-  return `next-auth.session-token=${token}`;
+/**
+ * Signs the demo co-creator in through next-auth's own endpoints, as a browser does. Sessions are recorded in the
+ * database, so a cookie works on every instance of one deployment (they share it) and on no other.
+ */
+async function cookie(base: string): Promise<string> {
+  const csrf = await fetch(`${base}/api/auth/csrf`);
+  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+  const res = await fetch(`${base}/api/auth/callback/credentials`, {
+    method: 'POST',
+    redirect: 'manual',
+    headers: {
+      'content-type': 'application/x-www-form-urlencoded',
+      cookie: csrf.headers
+        .getSetCookie()
+        .map((c) => c.split(';')[0])
+        .join('; '),
+    },
+    body: new URLSearchParams({ csrfToken, email: 'cocreator@quadrille.test', password: 'kettle-crab-demo', json: 'true' }).toString(),
+  });
+  const session = res.headers.getSetCookie().find((c) => c.startsWith('next-auth.session-token='));
+  if (!session) throw new Error(`Signing in to ${base} failed: HTTP ${res.status} ${await res.text()}`);
+  return session.split(';')[0]!;
 }
 
 type Api = {
@@ -286,8 +302,6 @@ async function throughput(targets: string[], c: Api, tag: string): Promise<Throu
 
 export async function liveFigures(): Promise<LiveFigures> {
   ensureBuild(DIST);
-  const cookieHeader = await cookie();
-  const c = api(cookieHeader);
 
   let deployment: Deployment | undefined;
   let lat: Awaited<ReturnType<typeof latency>>;
@@ -295,6 +309,8 @@ export async function liveFigures(): Promise<LiveFigures> {
   try {
     deployment = await startDeployment({ distDir: DIST, count: 2 });
     const [a, b] = deployment.instances as [Instance, Instance];
+    const cookieHeader = await cookie(a.url);
+    const c = api(cookieHeader);
     lat = await latency(a, b, c, cookieHeader);
     pg = await throughput([a.url, b.url], c, 'pg');
   } finally {
@@ -308,7 +324,7 @@ export async function liveFigures(): Promise<LiveFigures> {
     const url = `file:${path.join(dir, 'bench.sqlite')}`;
     seed(url);
     single = await startInstance({ name: 'sqlite', distDir: DIST, databaseUrl: url, env: { S3_FAKE: 'off' } });
-    sqlite = await throughput([single.url], c, 'sqlite');
+    sqlite = await throughput([single.url], api(await cookie(single.url)), 'sqlite');
   } finally {
     single?.kill('SIGKILL');
     fs.rmSync(dir, { recursive: true, force: true });

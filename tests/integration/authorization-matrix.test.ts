@@ -137,11 +137,12 @@ async function newMember(): Promise<string> {
   return id;
 }
 
-/** An invitation to a series none of the personas belongs to. */
+/** An invitation to a series none of the personas belongs to, as a link anyone may use (addressed ones: auth.test.ts). */
 async function newInvitationToken(): Promise<string> {
   const ownerId = await newMember();
   const { id } = await createSeries(db, { id: randomUUID(), title: 'Elsewhere', ownerId });
-  return (await createInvitation(db, { seriesId: id, email: `${randomUUID()}@pier.test`, role: 'viewer', invitedBy: ownerId })).token;
+  const input = { seriesId: id, email: `${randomUUID()}@pier.test`, role: 'viewer' as const, invitedBy: ownerId, anyoneWithLink: true };
+  return (await createInvitation(db, input)).token;
 }
 
 /** A volume with two gag pages. */

@@ -16,7 +16,7 @@ import { stampPass } from '@/db/queries/stamps';
 import { insertUser } from '@/db/queries/users';
 import { addEntry, createVolume, listEntries, moveEntry } from '@/db/queries/volumes';
 import { DEMO_SERIES_ID } from '@/db/seed/demo-data';
-import { claimAttempt, MAX_FAILURES } from '@/lib/auth/throttle';
+import { MAX_CLIENT_ATTEMPTS, MAX_FAILURES, claimAttempt, claimSignIn } from '@/lib/auth/throttle';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import type { Op, Stroke } from '@/lib/strokes/types';
 import { freshDb, testDbKind } from '../support/test-db';
@@ -186,6 +186,8 @@ describe('invitations', () => {
       email: 'race@quadrille.test',
       role: 'viewer',
       invitedBy: 'demo-user-owner',
+      // Six different accounts: a link anyone may use (an addressed one refuses five of them before the race).
+      anyoneWithLink: true,
     });
     await warm([a, b]);
     const tries = await Promise.allSettled(users.map((u, i) => acceptInvitation(i % 2 ? a : b, token, u)));
@@ -211,5 +213,34 @@ describe('sign-in throttle', () => {
     // The count is shared: every instance now refuses.
     for (const db of dbs) expect(await claimAttempt(db, 'Burst@Quadrille.test', now + 1)).toBe(false);
     expect(await claimAttempt(a, 'someone-else@quadrille.test', now)).toBe(true);
+  });
+
+  it(`lets at most ${MAX_CLIENT_ATTEMPTS} attempts per client through, over many unknown addresses, however many arrive at once`, async () => {
+    const dbs = [a, b, ...extra];
+    await warm(dbs);
+    const now = Date.now();
+    // 60 attempts from one client over 12 addresses nobody has (5 each: the address limit never bites).
+    const claims = await Promise.all(
+      Array.from({ length: 60 }, (_, i) => claimSignIn(dbs[i % dbs.length]!, { email: `ghost-${i % 12}@pier.test`, client: '192.0.2.10' }, now)),
+    );
+    expect(claims.filter((c) => c.ok)).toHaveLength(MAX_CLIENT_ATTEMPTS);
+    expect(claims.filter((c) => !c.ok && c.refusedBy === 'client')).toHaveLength(60 - MAX_CLIENT_ATTEMPTS);
+    const rows = await a.selectFrom('signInClientAttempts').select('id').where('client', '=', '192.0.2.10').execute();
+    expect(rows).toHaveLength(MAX_CLIENT_ATTEMPTS);
+    // A refused claim counts nowhere: the addresses hold exactly the granted attempts.
+    const failures = await a.selectFrom('signInFailures').select('id').where('email', 'like', 'ghost-%').execute();
+    expect(failures).toHaveLength(MAX_CLIENT_ATTEMPTS);
+    expect((await claimSignIn(b, { email: 'ghost-0@pier.test', client: '192.0.2.11' }, now)).ok).toBe(true);
+  });
+
+  it('both limits at once: one address from one client stops at the address limit, and the client keeps the rest', async () => {
+    const dbs = [a, b, ...extra];
+    const now = Date.now();
+    const claims = await Promise.all(
+      Array.from({ length: 24 }, (_, i) => claimSignIn(dbs[i % dbs.length]!, { email: 'target@quadrille.test', client: '192.0.2.20' }, now)),
+    );
+    expect(claims.filter((c) => c.ok)).toHaveLength(MAX_FAILURES);
+    expect(claims.filter((c) => !c.ok && c.refusedBy === 'address')).toHaveLength(24 - MAX_FAILURES);
+    expect(await a.selectFrom('signInClientAttempts').select('id').where('client', '=', '192.0.2.20').execute()).toHaveLength(MAX_FAILURES);
   });
 });

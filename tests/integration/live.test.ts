@@ -14,10 +14,11 @@ import type { Database } from '@/db/database';
 import { createGag } from '@/db/queries/gags';
 import { createPass } from '@/db/queries/passes';
 import { present } from '@/db/queries/presence';
+import { endSession } from '@/db/queries/sessions';
 import type { LiveEvent } from '@/lib/live/bus';
 import { callRoute, sessionCookie } from '../support/call-route';
 import { readSse } from '../support/sse';
-import { DEMO_SERIES_ID, type Persona, freshDb, testDbKind } from '../support/test-db';
+import { DEMO_SERIES_ID, type Persona, freshDb, personaSession, testDbKind } from '../support/test-db';
 import pg from 'pg';
 
 type Handler = (req: Request, ctx: { params: Promise<any> }) => Promise<Response>;
@@ -201,6 +202,19 @@ describe('the series stream', () => {
     const e = await s.waitFor((x) => x.type === 'gags' && (x.ids ?? []).includes(r.body.id));
     expect(e.topic).toBe(`series:${DEMO_SERIES_ID}`);
     await s.close();
+  });
+});
+
+describe('a session ended while its stream is open', () => {
+  it('stops within one heartbeat (signed out elsewhere, or the password changed)', async () => {
+    const { passId } = await newPass();
+    const s = await open(passEventsRoute.GET, { passId }, 'cocreator');
+    await s.waitFor((e) => e.type === 'seq');
+    await endSession(db, await personaSession('cocreator'));
+    const t0 = Date.now();
+    expect(await s.waitEnd(HEARTBEAT * 4)).toBe(true);
+    expect(Date.now() - t0).toBeLessThanOrEqual(HEARTBEAT * 2 + 200);
+    expect(s.events.some((e) => e.type === 'gone')).toBe(true);
   });
 });
 

@@ -1,16 +1,21 @@
 // Calls a route handler the way Next does: a Request, a params promise, and
-// next-auth's real session cookie (an encrypted JWT made with the app's secret).
+// next-auth's real session cookie (an encrypted JWT made with the app's secret,
+// naming a session recorded in the database as a sign-in records it).
 import { encode } from 'next-auth/jwt';
 import { authSecret } from '@/lib/auth/secret';
-import { PERSONAS, type Persona } from './test-db';
+import { PERSONAS, type Persona, personaSession } from './test-db';
 
 type Handler = (req: Request, ctx: { params: Promise<any> }) => Promise<Response> | Response;
 
 export async function sessionCookie(persona: Persona): Promise<string | undefined> {
   if (persona === 'anonymous') return undefined;
   const u = PERSONAS[persona];
-  const token = await encode({ token: { sub: u.id, email: u.email, name: u.name }, secret: authSecret()! });
-  return `next-auth.session-token=${token}`;
+  return cookieFor({ sub: u.id, email: u.email, name: u.name, sid: await personaSession(persona) });
+}
+
+/** A session cookie for any token (e.g. a session a test started itself). */
+export async function cookieFor(token: { sub: string; email: string; name: string; sid: string }): Promise<string> {
+  return `next-auth.session-token=${await encode({ token, secret: authSecret()! })}`;
 }
 
 export async function callRoute(

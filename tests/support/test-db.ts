@@ -9,6 +9,7 @@ import { inject } from 'vitest';
 import { type Kysely, sql } from 'kysely';
 import { getDb } from '@/db/client';
 import type { Database } from '@/db/database';
+import { startSession } from '@/db/queries/sessions';
 import { seedDemo } from '@/db/seed/demo';
 import { DEMO_SERIES_ID, OTHER_SERIES_ID } from '@/db/seed/demo-data';
 import { createDatabase } from './pg-cluster';
@@ -42,8 +43,31 @@ const snakeCase = (name: string) => name.replace(/[A-Z]/g, (c) => `_${c.toLowerC
 export async function freshDb(opts: { seed?: boolean } = {}) {
   process.env.DATABASE_URL = await freshDatabaseUrl();
   const db = await getDb();
-  if (opts.seed !== false) await seedDemo(db);
+  if (opts.seed !== false) {
+    await seedDemo(db);
+    // Each persona is signed in once, before the test starts: a request made as them changes no table.
+    for (const persona of Object.keys(PERSONAS) as (keyof typeof PERSONAS)[]) await personaSession(persona);
+  }
   return db;
+}
+
+const sessions = new Map<string, string>();
+
+/**
+ * The persona's session in this file's database, as a sign-in would have made it (sessions are checked on every
+ * request); a new one if a test ended it (a password change, removal from the last series) or moved the clock past it.
+ */
+export async function personaSession(persona: keyof typeof PERSONAS): Promise<string> {
+  const db = await getDb();
+  const key = `${process.env.DATABASE_URL} ${persona}`;
+  const known = sessions.get(key);
+  const live = known
+    ? await db.selectFrom('sessions').select('id').where('id', '=', known).where('expiresAt', '>', new Date().toISOString()).executeTakeFirst()
+    : undefined;
+  if (live) return live.id;
+  const id = await startSession(db, PERSONAS[persona].id);
+  sessions.set(key, id);
+  return id;
 }
 
 export const PERSONAS = {

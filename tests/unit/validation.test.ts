@@ -33,10 +33,10 @@ describe('gag input', () => {
 });
 
 describe('sign-up input', () => {
-  it('lower-cases the e-mail and asks for 10 characters', () => {
-    expect(signUpSchema.parse({ name: 'Kettle', email: ' Kettle@Pier.TEST ', password: '0123456789' }).email).toBe('kettle@pier.test');
+  it('lower-cases the e-mail and asks for 12 characters', () => {
+    expect(signUpSchema.parse({ name: 'Kettle', email: ' Kettle@Pier.TEST ', password: '0123456789ab' }).email).toBe('kettle@pier.test');
     expect(signUpSchema.safeParse({ name: 'Kettle', email: 'kettle@pier.test', password: 'short' }).success).toBe(false);
-    expect(signUpSchema.safeParse({ name: 'Kettle', email: 'not-an-address', password: '0123456789' }).success).toBe(false);
+    expect(signUpSchema.safeParse({ name: 'Kettle', email: 'not-an-address', password: '0123456789ab' }).success).toBe(false);
   });
 });
 

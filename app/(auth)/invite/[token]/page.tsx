@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { AcceptInvitation } from '@/components/members/accept-invitation';
 import { getDb } from '@/db/client';
-import { invitationByToken } from '@/db/queries/members';
+import { invitationByToken, invitationRefusal, maskEmail } from '@/db/queries/members';
 import { ROLE_LABELS } from '@/lib/auth/permissions';
 import { currentUser } from '@/lib/auth/session';
 
@@ -13,14 +13,15 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
   const { token } = await params;
   const inv = await invitationByToken(await getDb(), token);
   if (!inv || inv.revokedAt) notFound();
+  const user = await currentUser();
+  const wrongAccount = user ? invitationRefusal(inv, user.email) : null;
   const problem = inv.acceptedAt
     ? 'This invitation has already been used.'
     : // A server component renders once per request: "now" is that request's time.
       // eslint-disable-next-line react-hooks/purity -- the check belongs to this request, not to a re-render
       Date.parse(inv.expiresAt) <= Date.now()
       ? 'This invitation has expired. Ask the owner for a new one.'
-      : null;
-  const user = await currentUser();
+      : wrongAccount;
   return (
     <AcceptInvitation
       token={token}
@@ -28,7 +29,10 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
       seriesTitle={inv.seriesTitle}
       role={ROLE_LABELS[inv.role].toLowerCase()}
       invitedBy={inv.invitedBy}
+      // Shown partly masked: whoever holds the link learns whom it is for, not the whole address.
+      sentTo={inv.anyoneWithLink === 1 ? null : maskEmail(inv.email)}
       problem={problem}
+      wrongAccount={!!wrongAccount && problem === wrongAccount}
     />
   );
 }

@@ -1,13 +1,16 @@
 // next-auth's own endpoints (/api/auth/csrf, /api/auth/callback/credentials, …),
-// with one addition: an e-mail address with 10 failed sign-ins in 15 minutes
-// gets 429 before its password is even checked.
+// with one addition: an e-mail address with 10 failed sign-ins in 15 minutes, or a
+// client with 30 failed password checks in 15 minutes, gets 429 before any password
+// is checked. (The counts that hold in parallel are taken in authorize, lib/auth/options.ts.)
 import NextAuth from 'next-auth';
 import { NextRequest } from 'next/server';
 import { getDb } from '@/db/client';
-import { authOptions } from '@/lib/auth/options';
-import { WINDOW_MS, isThrottled } from '@/lib/auth/throttle';
+import { clientAddress } from '@/lib/auth/client-address';
+import { SIGN_IN_REFUSALS, authOptions } from '@/lib/auth/options';
+import { WINDOW_MS, isClientThrottled, isThrottled } from '@/lib/auth/throttle';
 import { readTextCapped } from '@/lib/http/body';
 import { Refused } from '@/lib/refused';
+import { email as emailSchema } from '@/lib/validation/account';
 
 const handler = NextAuth(authOptions);
 
@@ -16,16 +19,21 @@ type Ctx = { params: Promise<{ nextauth: string[] }> };
 /** next-auth's forms (sign-in, sign-out, csrf) are a few hundred bytes; nothing larger is read. */
 const MAX_AUTH_BODY_BYTES = 8 * 1024;
 
+/** The e-mail address a sign-in names, normalised as the throttle keys it; null when there is none or it is not one. */
 function emailOf(type: string, text: string): string | null {
+  let raw: unknown;
   try {
-    if (type.includes('application/json')) {
-      const body = JSON.parse(text) as { email?: unknown };
-      return typeof body.email === 'string' ? body.email : null;
-    }
-    return new URLSearchParams(text).get('email');
+    raw = type.includes('application/json') ? (JSON.parse(text) as { email?: unknown }).email : new URLSearchParams(text).get('email');
   } catch {
     return null;
   }
+  const parsed = emailSchema.safeParse(raw);
+  return parsed.success ? parsed.data : null;
+}
+
+function tooMany(req: NextRequest, code: string, error: string): Response {
+  const url = new URL(`/signin?error=${code}`, req.nextUrl.origin).toString();
+  return Response.json({ url, error }, { status: 429, headers: { 'Retry-After': String(WINDOW_MS / 1000) } });
 }
 
 export async function GET(req: NextRequest, ctx: Ctx) {
@@ -43,15 +51,13 @@ export async function POST(incoming: NextRequest, ctx: Ctx) {
   // next-auth reads the body itself: hand it the bytes already read, and nothing more.
   const req = new NextRequest(incoming.url, { method: 'POST', headers: incoming.headers, body: text });
   if (req.nextUrl.pathname.endsWith('/callback/credentials')) {
-    const email = emailOf(req.headers.get('content-type') ?? '', text)
-      ?.trim()
-      .toLowerCase();
-    if (email && (await isThrottled(await getDb(), email))) {
-      const url = new URL('/signin?error=TooManyAttempts', req.nextUrl.origin).toString();
-      return Response.json(
-        { url, error: 'Too many failed sign-ins for this e-mail address. Wait 15 minutes and try again.' },
-        { status: 429, headers: { 'Retry-After': String(WINDOW_MS / 1000) } },
-      );
+    const db = await getDb();
+    if (await isClientThrottled(db, clientAddress(req.headers))) {
+      return tooMany(req, SIGN_IN_REFUSALS.client, 'Too many failed sign-ins from your network. Wait 15 minutes and try again.');
+    }
+    const email = emailOf(req.headers.get('content-type') ?? '', text);
+    if (email && (await isThrottled(db, email))) {
+      return tooMany(req, SIGN_IN_REFUSALS.address, 'Too many failed sign-ins for this e-mail address. Wait 15 minutes and try again.');
     }
   }
   return handler(req, ctx);

@@ -18,7 +18,7 @@ export const GET = withSeriesRole<Params>('read', byGagId, async ({ req, db, par
     userId: user.id,
     topics: [`gag:${params.gagId}`],
     hello: async () => [{ topic: `gag:${params.gagId}`, type: 'hello' }],
-    allowed: stillReadable(user.id, seriesId, db, (d) => seriesOfGag(d, params.gagId)),
+    allowed: stillReadable(user.id, seriesId, db, (d) => seriesOfGag(d, params.gagId), req),
     presence: q.tab ? { gagId: params.gagId, tabId: q.tab, where: q.where ?? 'page', panel: null } : undefined,
   });
 });

@@ -20,7 +20,7 @@ export const GET = withSeriesRole<Params>('read', byPassId, async ({ req, db, pa
     userId: user.id,
     topics: [`pass:${pass.id}`, `gag:${pass.gagId}`],
     hello: async () => [{ topic: `pass:${pass.id}`, type: 'seq', seq: (await passWithGag(db, pass.id))?.seq ?? pass.seq }],
-    allowed: stillReadable(user.id, seriesId, db, (d) => seriesOfPass(d, pass.id)),
+    allowed: stillReadable(user.id, seriesId, db, (d) => seriesOfPass(d, pass.id), req),
     presence: q.tab ? { gagId: pass.gagId, tabId: q.tab, where: `pass:${pass.number}`, panel: q.panel ?? null } : undefined,
   });
 });

@@ -13,10 +13,19 @@ const seriesOf = bySeriesId;
 /** Pending invitations (owners). */
 export const GET = withSeriesRole<Params>('manage', seriesOf, async ({ db, seriesId }) => Response.json(await listInvitations(db, seriesId)));
 
-/** `{ email, role }` → 201; the invitation goes out by e-mail with a one-time link valid 7 days. */
+/**
+ * `{ email, role, anyoneWithLink? }` → 201; the invitation goes out by e-mail with a one-time link valid 7 days, which
+ * only the account with that address may accept — unless `anyoneWithLink` is true.
+ */
 export const POST = withSeriesRole<Params, typeof inviteSchema>('manage', seriesOf, { body: inviteSchema }, async ({ db, seriesId, user, body }) => {
   const input = body;
-  const inv = await createInvitation(db, { seriesId, email: input.email, role: input.role, invitedBy: user.id });
+  const inv = await createInvitation(db, {
+    seriesId,
+    email: input.email,
+    role: input.role,
+    invitedBy: user.id,
+    anyoneWithLink: input.anyoneWithLink,
+  });
   const series = await findSeries(db, seriesId);
   const sent = await sendMail(
     db,
@@ -28,10 +37,18 @@ export const POST = withSeriesRole<Params, typeof inviteSchema>('manage', series
       role: input.role,
       link: `${appUrl()}/invite/${inv.token}`,
       expiresAt: inv.expiresAt,
+      forAddress: input.anyoneWithLink ? null : input.email,
     }),
   );
   return Response.json(
-    { id: inv.id, email: input.email, role: input.role, expiresAt: inv.expiresAt.toISOString(), mailed: sent.ok },
+    {
+      id: inv.id,
+      email: input.email,
+      role: input.role,
+      anyoneWithLink: input.anyoneWithLink,
+      expiresAt: inv.expiresAt.toISOString(),
+      mailed: sent.ok,
+    },
     { status: 201 },
   );
 });
