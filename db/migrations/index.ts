@@ -10,8 +10,8 @@ import * as m1200 from './2026_12_01_1200_create_volumes';
 import * as m1300 from './2026_12_01_1300_create_uploads';
 import * as m20900 from './2026_12_02_0900_create_lightboxes';
 import * as m21000 from './2026_12_02_1000_presence_per_tab';
-import * as m30900 from './2026_12_03_0900_sessions_and_sign_in_limits';
 import * as m31000 from './2026_12_03_1000_pass_size';
+import * as m31100 from './2026_12_03_1100_sessions_and_sign_in_limits';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_0900_create_users_and_series': m0900,
@@ -23,8 +23,8 @@ export const migrations: Record<string, Migration> = {
   '2026_12_01_1300_create_uploads': m1300,
   '2026_12_02_0900_create_lightboxes': m20900,
   '2026_12_02_1000_presence_per_tab': m21000,
-  '2026_12_03_0900_sessions_and_sign_in_limits': m30900,
   '2026_12_03_1000_pass_size': m31000,
+  '2026_12_03_1100_sessions_and_sign_in_limits': m31100,
 };
 
 export const migrationProvider: MigrationProvider = {
