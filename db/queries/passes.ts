@@ -105,6 +105,18 @@ export async function liveStrokesOfPasses(db: Db, passIds: string[]): Promise<Ma
   return out;
 }
 
+/** The live strokes of a pass as stored (points still encoded), in drawing order: for the packed wire format. */
+export async function liveStrokeRows(db: Db, passId: string) {
+  return db
+    .selectFrom('strokes')
+    .select(['strokeId', 'panel', 'tool', 'grey', 'size', 'points', 'ox', 'oy'])
+    .where('passId', '=', passId)
+    .where('removedSeq', 'is', null)
+    .orderBy('addedSeq')
+    .orderBy('rowId')
+    .execute();
+}
+
 export async function liveRooms(db: Db, passId: string): Promise<Room[]> {
   return liveItems(db, ROOMS, passId);
 }

@@ -1,11 +1,19 @@
-import { passDelta, passState } from '@/db/queries/passes';
+import { findPass, liveLightboxes, liveRooms, liveStrokeRows, passDelta, passState } from '@/db/queries/passes';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
 import { byPassId } from '@/lib/http/series-of';
+import { END, PASS_MEDIA_TYPE, encodeHeader, encodeStrokes } from '@/lib/strokes/wire';
 
 type Params = { passId: string };
 const seriesOf = byPassId;
 
-/** The whole pass, or with `?since=seq` only what changed after that sequence number. */
+/** Strokes per chunk of the packed answer: the editor draws each chunk as it arrives. */
+const STROKES_PER_CHUNK = 500;
+
+/**
+ * The whole pass, or with `?since=seq` only what changed after that sequence
+ * number. JSON by default; the whole pass packed (lib/strokes/wire.ts) when the
+ * request accepts `application/vnd.quadrille.pass`, as the editor does.
+ */
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, params }) => {
   const since = new URL(req.url).searchParams.get('since');
   if (since !== null) {
@@ -13,5 +21,37 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, pa
     if (!Number.isInteger(n) || n < 0) return jsonError(422, '"since" must be a sequence number (0 or more).');
     return Response.json(await passDelta(db, params.passId, n));
   }
-  return Response.json(await passState(db, params.passId));
+  if (!(req.headers.get('accept') ?? '').includes(PASS_MEDIA_TYPE))
+    return Response.json(await passState(db, params.passId), { headers: { vary: 'Accept' } });
+
+  const pass = await findPass(db, params.passId);
+  if (!pass) return jsonError(404, 'Not found.');
+  const rows = await liveStrokeRows(db, params.passId);
+  const header = encodeHeader({
+    id: pass.id,
+    gagId: pass.gagId,
+    number: pass.number,
+    seq: pass.seq,
+    strokeCount: rows.length,
+    rooms: await liveRooms(db, params.passId),
+    lightboxes: await liveLightboxes(db, params.passId),
+  });
+  let next = 0;
+  const body = new ReadableStream<Uint8Array>({
+    start(controller) {
+      controller.enqueue(header);
+    },
+    // One chunk per pull, so a slow reader holds back the encoding rather than piling it up.
+    pull(controller) {
+      if (next >= rows.length) {
+        controller.enqueue(END);
+        controller.close();
+        return;
+      }
+      const run = rows.slice(next, next + STROKES_PER_CHUNK).map((r) => ({ ...r, points: r.points as Uint8Array }));
+      next += STROKES_PER_CHUNK;
+      controller.enqueue(encodeStrokes(run));
+    },
+  });
+  return new Response(body, { headers: { 'content-type': PASS_MEDIA_TYPE, vary: 'Accept', 'cache-control': 'private, no-store' } });
 });
