@@ -65,7 +65,9 @@ export const batchSchema = z.object({
   ops: z.array(opSchema).min(1, 'A batch holds at least one operation.').max(5000),
 });
 
-export const createPassSchema = z.object({ copyFrom: z.number().int().positive().optional() }).strict();
+export const createPassSchema = z
+  .object({ copyFrom: z.number().int().positive().max(1_000_000, 'There is no such pass to copy.').optional() })
+  .strict();
 
 export const pageSpecSchema = z
   .object({
