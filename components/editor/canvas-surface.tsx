@@ -15,6 +15,8 @@ export function CanvasSurface(p: {
   view: View;
   spec: PageSpec;
   counts: { strokes: number; rooms: number; lightboxes: number; lightboxImages: number };
+  /** Every stroke of the pass has arrived and is drawn. */
+  loaded: boolean;
   onDropFiles: (files: FileList, panel: number | null) => void;
   children: React.ReactNode;
 }) {
@@ -29,6 +31,8 @@ export function CanvasSurface(p: {
       aria-label={v.label}
       data-testid="sketch-canvas"
       data-stroke-count={v.counts.strokes}
+      data-loaded={v.loaded ? 'true' : 'false'}
+      aria-busy={!v.loaded}
       data-room-count={v.counts.rooms}
       data-lightbox-count={v.counts.lightboxes}
       data-lightbox-images={v.counts.lightboxImages}

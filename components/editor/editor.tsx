@@ -59,7 +59,7 @@ export default function Editor(props: EditorProps) {
   const [pointPin, setPointPin] = useState<PointPin | null>(null);
   const [highlight, setHighlight] = useState(true);
 
-  const session = usePassSession({ passId: props.passId, initial: props.initial, canDraw, spec, pxPerMm: () => 3 });
+  const session = usePassSession({ passId: props.passId, canDraw, spec, pxPerMm: () => 3 });
   const v = useView({ wrapRef, bleed, onSettled: session.rescale });
   const selection = useSelection({ session, panels });
   const arranging = useLightboxArranging({ seriesId: props.seriesId, session, bleed, panels });
@@ -233,6 +233,7 @@ export default function Editor(props: EditorProps) {
               tool={tool}
               view={v.view}
               spec={spec}
+              loaded={session.loaded}
               counts={{
                 strokes: session.strokeCount,
                 rooms: session.rooms.length,

@@ -6,11 +6,15 @@ import { nanoid } from 'nanoid';
 import { Outbox } from '@/lib/strokes/outbox';
 import { type PassDoc, applyDelta, applyOp, docFrom } from '@/lib/strokes/pass-model';
 import type { Lightbox, Op, Room, Stroke } from '@/lib/strokes/types';
+import { PASS_MEDIA_TYPE, PassReader } from '@/lib/strokes/wire';
 
 export type SyncState = 'saved' | 'saving' | 'offline' | 'refused';
 export type SyncStatus = { state: SyncState; waiting: number; message: string | null };
-/** `items`: balloon rooms or lightboxes changed (they are not in the panel bitmaps). */
-export type DocChange = { panels: Set<number>; full: boolean; items: boolean };
+/**
+ * `items`: balloon rooms or lightboxes changed (they are not in the panel bitmaps).
+ * `added`: strokes that only need drawing on top of what the panels show (the pass arriving).
+ */
+export type DocChange = { panels: Set<number>; full: boolean; items: boolean; added?: Stroke[] };
 
 type ServerState = { seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
 type ServerDelta = ServerState & { removedStrokes: string[]; removedRooms: string[]; removedLightboxes: string[] };
@@ -43,14 +47,20 @@ export class PassSync {
   private stopped = false;
   private readonly onOnline = () => void this.kick();
 
+  /** The pass has been read from the server (at construction, or by the first load). */
+  loaded: boolean;
+  private loading = false;
+
+  /** With `initial` null, `start` reads the pass from the server (packed), drawing it as it arrives. */
   constructor(
     private passId: string,
-    initial: ServerState,
+    initial: ServerState | null,
     storage: Storage,
     private readOnly = false,
   ) {
-    this.doc = docFrom(initial.strokes, initial.rooms, initial.lightboxes);
-    this.seq = initial.seq;
+    this.doc = docFrom(initial?.strokes ?? [], initial?.rooms ?? [], initial?.lightboxes ?? []);
+    this.seq = initial?.seq ?? 0;
+    this.loaded = initial !== null;
     this.outbox = new Outbox(storage, `quadrille.outbox.${passId}`, () => nanoid());
   }
 
@@ -71,8 +81,10 @@ export class PassSync {
       void this.kick();
     }
     this.schedulePolling();
-    // Catch up once now: the page was rendered a moment ago, and the stream's first hello may have come before we listened.
-    void this.poll();
+    // Read the pass now; or, given with the page, catch up once: the page was rendered a moment ago,
+    // and the stream's first hello may have come before we listened.
+    if (!this.loaded) void this.resync({ progressive: true });
+    else void this.poll();
     this.updateStatus();
   }
 
@@ -227,6 +239,11 @@ export class PassSync {
   }
 
   async poll() {
+    // Until the pass is read there is nothing to catch up from; while it is being read, read again after.
+    if (this.loading || !this.loaded) {
+      if (this.loading) this.pollWanted = true;
+      return;
+    }
     // While a batch is in flight we cannot tell whether a delta includes it; wait.
     if (this.stopped || this.sending) return;
     const epoch = this.sendEpoch;
@@ -251,16 +268,48 @@ export class PassSync {
     if (touched.size || items) this.emitDoc({ panels: touched, full: false, items });
   }
 
-  /** Reloads the whole pass (after a refusal or a restore) and re-applies local work. */
-  async resync() {
-    const res = await fetch(`/api/passes/${this.passId}`, { cache: 'no-store' }).catch(() => null);
-    if (!res?.ok) return;
-    const state = (await res.json()) as ServerState;
-    this.doc = docFrom(state.strokes, state.rooms, state.lightboxes);
-    this.seq = state.seq;
-    this.unsynced = [];
-    for (const op of this.localOnly()) applyOp(this.doc, op);
-    this.emitDoc({ panels: new Set([0, 1, 2, 3]), full: true, items: true });
+  /**
+   * Reads the whole pass, packed (lib/strokes/wire.ts), and re-applies local work: at the start, and
+   * after a refusal or a restore. `progressive` draws strokes as they arrive (the first read).
+   * A read that fails keeps what is shown; the polls try again.
+   */
+  async resync(opts: { progressive?: boolean } = {}): Promise<boolean> {
+    if (this.loading) return false;
+    this.loading = true;
+    try {
+      const res = await fetch(`/api/passes/${this.passId}`, { cache: 'no-store', headers: { accept: PASS_MEDIA_TYPE } });
+      if (!res.ok || !res.body) return false;
+      const reader = new PassReader();
+      const strokes: Stroke[] = [];
+      const body = res.body.getReader();
+      for (;;) {
+        const { done, value } = await body.read();
+        if (done) break;
+        const got = reader.push(value);
+        strokes.push(...got);
+        if (opts.progressive && got.length && !this.stopped) this.emitDoc({ panels: new Set(), full: false, items: false, added: got });
+      }
+      const header = reader.finish();
+      if (this.stopped) return false;
+      this.doc = docFrom(strokes, header.rooms, header.lightboxes);
+      this.seq = header.seq;
+      this.unsynced = [];
+      const local = this.localOnly();
+      for (const op of local) applyOp(this.doc, op);
+      this.loaded = true;
+      // Drawn as they came, the panels are already right unless local work changes them.
+      const redraw = !opts.progressive || local.length > 0;
+      this.emitDoc({ panels: redraw ? new Set([0, 1, 2, 3]) : new Set(), full: redraw, items: true });
+      return true;
+    } catch {
+      return false;
+    } finally {
+      this.loading = false;
+      if (this.pollWanted && !this.stopped && this.loaded) {
+        this.pollWanted = false;
+        void this.poll();
+      }
+    }
   }
 
   /** What this device has that the server does not: kept (refused) strokes, then the outbox. */

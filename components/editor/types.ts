@@ -1,7 +1,7 @@
-// What the page gives the editor (a small DTO loaded on the server).
+// What the page gives the editor (a small DTO loaded on the server): the pass's
+// identity and spec; its strokes are read by the editor itself (packed).
 import type { BeatKind } from '@/lib/gags/status';
 import type { PageSpec } from '@/lib/print/geometry';
-import type { Lightbox, Room, Stroke } from '@/lib/strokes/types';
 
 export type EditorProps = {
   passId: string;
@@ -15,5 +15,4 @@ export type EditorProps = {
   canRestore: boolean;
   spec: PageSpec;
   beats: { kind: BeatKind; note: string }[];
-  initial: { seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
 };

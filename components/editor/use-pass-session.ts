@@ -13,18 +13,21 @@ import { PanelRasters } from './panel-rasters';
 import { PassSync, type SyncStatus } from './pass-sync';
 import { UndoStack, type UndoEntry } from './undo';
 
-export type PassInitial = { seq: number; strokes: Stroke[]; rooms: Room[]; lightboxes: Lightbox[] };
-
-export function usePassSession(opts: { passId: string; initial: PassInitial; canDraw: boolean; spec: PageSpec; pxPerMm: () => number }) {
+/**
+ * The pass's life in the editor. Its strokes are read after the page loads (packed, drawn panel by
+ * panel as they arrive); `loaded` says when all of them are in.
+ */
+export function usePassSession(opts: { passId: string; canDraw: boolean; spec: PageSpec; pxPerMm: () => number }) {
   const syncRef = useRef<PassSync | null>(null);
   // Plain canvases with no life of their own, so made once while rendering (the editor runs in the browser only).
   const [rasters] = useState(() => new PanelRasters(opts.spec));
   const strokesLayerRef = useRef<Konva.Layer>(null);
   const undoStack = useRef(new UndoStack());
-  const [rooms, setRooms] = useState<Room[]>(opts.initial.rooms);
-  const [lightboxes, setLightboxes] = useState<Lightbox[]>(opts.initial.lightboxes);
-  const [strokeCount, setStrokeCount] = useState(opts.initial.strokes.length);
-  const [seqSeen, setSeqSeen] = useState(opts.initial.seq);
+  const [rooms, setRooms] = useState<Room[]>([]);
+  const [lightboxes, setLightboxes] = useState<Lightbox[]>([]);
+  const [strokeCount, setStrokeCount] = useState(0);
+  const [seqSeen, setSeqSeen] = useState(0);
+  const [loaded, setLoaded] = useState(false);
   const [status, setStatus] = useState<SyncStatus>({ state: 'saved', waiting: 0, message: null });
   const [undoState, setUndoState] = useState({ canUndo: false, canRedo: false });
 
@@ -34,10 +37,21 @@ export function usePassSession(opts: { passId: string; initial: PassInitial; can
   // another pass): it takes the first props only, on purpose.
   const first = useRef(opts);
   useEffect(() => {
-    const { passId, initial, canDraw, pxPerMm } = first.current;
-    const sync = new PassSync(passId, initial, window.localStorage, !canDraw);
+    const { passId, canDraw, pxPerMm } = first.current;
+    const sync = new PassSync(passId, null, window.localStorage, !canDraw);
     syncRef.current = sync;
+    // Strokes of the pass drawn as they arrive, before they join the document at the end of the read.
+    let arrived = 0;
     const offDoc = sync.onDoc((change) => {
+      if (change.added) {
+        for (const s of change.added) rasters.drawStroke(s);
+        strokesLayerRef.current?.batchDraw();
+        arrived += change.added.length;
+        setStrokeCount(sync.doc.strokes.size + arrived);
+        return;
+      }
+      arrived = 0;
+      setLoaded(sync.loaded);
       if (change.full) rasters.redrawAll(sync.doc.strokes.values());
       else for (const p of change.panels) rasters.redrawPanel(p, strokesOfPanel(sync.doc, p));
       strokesLayerRef.current?.batchDraw();
@@ -149,6 +163,7 @@ export function usePassSession(opts: { passId: string; initial: PassInitial; can
     setRooms,
     lightboxes,
     strokeCount,
+    loaded,
     seqSeen,
     status,
     undoState,

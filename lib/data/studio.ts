@@ -4,7 +4,7 @@ import 'server-only';
 import { notFound, redirect } from 'next/navigation';
 import { getDb } from '@/db/client';
 import { findGag, listGags } from '@/db/queries/gags';
-import { findPassByNumber, listPasses, passState } from '@/db/queries/passes';
+import { findPassByNumber, listPasses } from '@/db/queries/passes';
 import { findSeries, listSeriesForUser, pageSpecForGag, pageSpecOf } from '@/db/queries/series';
 import { runHeavy } from '@/lib/workers/pool';
 import { findVolume, listEntries, unplacedGags } from '@/db/queries/volumes';
@@ -53,14 +53,13 @@ export async function loadPassEditor(seriesId: string, gagId: string, passNo: nu
   const base = await loadGag(seriesId, gagId);
   const db = await getDb();
   if (!Number.isInteger(passNo) || passNo < 1) notFound();
+  // The pass's identity only: the editor reads its strokes itself, packed, after the page loads.
   const pass = await findPassByNumber(db, gagId, passNo);
   if (!pass) notFound();
-  const state = await passState(db, pass.id);
-  if (!state) notFound();
   const passes = await listPasses(db, gagId);
   return {
     ...base,
-    pass: state,
+    pass: { id: pass.id, number: pass.number },
     spec: await pageSpecForGag(db, seriesId, gagId),
     passNumbers: passes.map((p) => p.number),
     passList: passes.map((p) => ({ id: p.id, number: p.number })),

@@ -98,6 +98,7 @@ export class PassReader {
   private at = 0;
 
   push(chunk: Uint8Array): Stroke[] {
+    if (chunk.length === 0) return [];
     if (this.done) throw new Error('The pass data goes on after its end.');
     const rest = this.buf.subarray(this.at);
     const next = new Uint8Array(rest.length + chunk.length);

@@ -50,7 +50,7 @@ describe('sketch editor', () => {
     await page.getByRole('button', { name: 'New pass' }).click();
     await page.waitForURL(/\/passes\/1$/);
     passUrl = page.url();
-    await page.getByTestId('sketch-canvas').waitFor();
+    await page.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
     await page.locator('[data-sync-state="saved"]').waitFor();
     passId = await page.evaluate(async () => {
       const gagId = location.pathname.split('/')[4];
@@ -68,7 +68,7 @@ describe('sketch editor', () => {
     await page.locator('[data-sync-state="saved"]').waitFor();
     expect((await serverStrokes(page)).length).toBe(3);
     await page.reload();
-    await page.getByTestId('sketch-canvas').waitFor();
+    await page.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
     await expect.poll(() => strokeCount(page)).toBe(3);
   });
 
@@ -168,8 +168,8 @@ describe('two people in one pass', () => {
   it('both end with the union of their strokes, without reloading', async () => {
     await page.goto(passUrl);
     await page2.goto(passUrl);
-    await page.getByTestId('sketch-canvas').waitFor();
-    await page2.getByTestId('sketch-canvas').waitFor();
+    await page.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
+    await page2.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
     const start = await strokeCount(page);
     await expect.poll(() => strokeCount(page2)).toBe(start);
     await page.keyboard.press('1');

@@ -78,8 +78,8 @@ describe('two instances on one PostgreSQL', () => {
   it('opens the same pass in two browsers, one per instance, and each sees the other is there', async () => {
     await pageA.goto(`${lb.url}${GAG_PATH}/passes/${passNumber}`);
     await pageB.goto(`${deployment.instances[1]!.url}${GAG_PATH}/passes/${passNumber}`);
-    await pageA.getByTestId('sketch-canvas').waitFor();
-    await pageB.getByTestId('sketch-canvas').waitFor();
+    await pageA.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
+    await pageB.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
     await expect.poll(() => pageB.getByTestId('presence').textContent(), { timeout: 10_000 }).toContain(`Tam Quill (in pass ${passNumber}`);
     await expect.poll(() => pageA.getByTestId('presence').textContent(), { timeout: 10_000 }).toContain(`Nell Harrow (in pass ${passNumber}`);
   });

@@ -28,7 +28,7 @@ describe('lightbox', () => {
     await page.goto(GAG);
     await page.getByRole('button', { name: 'New pass' }).click();
     await page.waitForURL(/\/passes\/\d+$/);
-    await page.getByTestId('sketch-canvas').waitFor();
+    await page.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
     passId = await page.evaluate(async () => {
       const gagId = location.pathname.split('/')[4];
       const passes = await (await fetch(`/api/gags/${gagId}/passes`)).json();
@@ -88,7 +88,7 @@ describe('lightbox', () => {
     expect(saved.lightboxes).toEqual([expect.objectContaining({ panel: 1, opacity: 0.4, visible: true, rotation: 0 })]);
 
     await page.reload();
-    await page.getByTestId('sketch-canvas').waitFor();
+    await page.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
     await expect.poll(() => canvasAttr(page, 'data-stroke-count')).toBe(1);
     await expect.poll(() => canvasAttr(page, 'data-lightbox-images'), { timeout: 10_000 }).toBe(1);
     expect(await page.getByLabel('Opacity of pier-thumbs-scan.jpg').inputValue()).toBe('40');

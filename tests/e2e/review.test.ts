@@ -81,7 +81,7 @@ describe('review loop', () => {
     await signIn(page2, baseUrl, 'cocreator@quadrille.test');
     await page2.goto(`${GAG}/passes/2`);
     const canvas = page2.getByTestId('sketch-canvas');
-    await canvas.waitFor();
+    await page2.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
     const b = (await canvas.boundingBox())!;
     await page2.mouse.move(b.x + b.width * 0.3, b.y + b.height * 0.7);
     await page2.mouse.down();

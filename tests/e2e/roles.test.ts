@@ -51,7 +51,7 @@ describe.each([
   it(`the sketch editor ${canEdit ? 'offers the drawing tools' : 'opens read-only'}`, async () => {
     await page.goto(`${GAG}/passes/1`);
     const canvas = page.getByTestId('sketch-canvas');
-    await canvas.waitFor();
+    await page.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
     expect(Number(await canvas.getAttribute('data-stroke-count'))).toBeGreaterThan(10);
     expect(await page.getByRole('button', { name: 'Pen (1)' }).count()).toBe(canEdit ? 1 : 0);
     expect(await page.getByRole('button', { name: 'Pan the view (6)' }).count()).toBe(1);

@@ -83,7 +83,7 @@ beforeAll(async () => {
   );
   passId = made.id;
   await page.goto(`${baseUrl}/series/demo-kettle-crab/gags/demo-gag-10/passes/${made.number}`);
-  await page.getByTestId('sketch-canvas').waitFor();
+  await page.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
 });
 
 afterAll(async () => {

@@ -49,7 +49,6 @@ export default async function PassEditorPage({ params }: { params: Promise<{ ser
         canRestore={canDraw}
         spec={spec}
         beats={gag.beats.map((b) => ({ kind: b.kind, note: b.note }))}
-        initial={{ seq: pass.seq, strokes: pass.strokes, rooms: pass.rooms, lightboxes: pass.lightboxes }}
       />
     </div>
   );
