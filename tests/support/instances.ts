@@ -28,8 +28,27 @@ export async function waitForHealth(url: string, server: ChildProcess, log: () =
 }
 
 /** Builds the production app into `distDir` unless a build is there already. */
+/** The newest change to anything the build is made of. */
+function newestSource(): number {
+  let newest = 0;
+  const walk = (dir: string) => {
+    for (const e of fs.readdirSync(dir, { withFileTypes: true })) {
+      const p = path.join(dir, e.name);
+      if (e.isDirectory()) walk(p);
+      else newest = Math.max(newest, fs.statSync(p).mtimeMs);
+    }
+  };
+  for (const d of ['app', 'components', 'hooks', 'lib', 'db', 'public']) if (fs.existsSync(path.join(ROOT, d))) walk(path.join(ROOT, d));
+  for (const f of ['next.config.mjs', 'proxy.ts', 'instrumentation.ts', 'package-lock.json']) {
+    if (fs.existsSync(path.join(ROOT, f))) newest = Math.max(newest, fs.statSync(path.join(ROOT, f)).mtimeMs);
+  }
+  return newest;
+}
+
+/** Builds the app into `distDir` unless a build newer than every source file is there already. */
 export function ensureBuild(distDir: string, opts: { force?: boolean } = {}) {
-  if (!opts.force && fs.existsSync(path.join(ROOT, distDir, 'BUILD_ID'))) return;
+  const id = path.join(ROOT, distDir, 'BUILD_ID');
+  if (!opts.force && fs.existsSync(id) && fs.statSync(id).mtimeMs > newestSource()) return;
   execFileSync(process.execPath, [NEXT_BIN, 'build'], {
     cwd: ROOT,
     env: { ...process.env, NEXT_TELEMETRY_DISABLED: '1', NEXT_DIST_DIR: distDir, NODE_ENV: 'production' },

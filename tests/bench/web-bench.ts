@@ -1,0 +1,173 @@
+// Figures of the built app for `npm run bench` (issue 14): opening the editor
+// on a 5,000-stroke pass against its floor measured in the same page, and the
+// bytes of that pass on the wire, packed and as JSON.
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import autocannon from 'autocannon';
+import { build } from 'esbuild';
+import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
+import { PASS_MEDIA_TYPE } from '@/lib/strokes/wire';
+import { openBrowser, signIn } from '../e2e/browser';
+import { type Instance, ROOT, ensureBuild, seed, startInstance } from '../support/instances';
+import { benchStrokes } from './strokes-fixture';
+
+const DIST = '.next-test';
+const GAG = 'demo-gag-04';
+const N = 5000;
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+
+export type WebFigures = {
+  openMs: number;
+  floorMs: number;
+  strokesShown: number;
+  packedBytes: number;
+  jsonBytes: number;
+  /** Compressed bytes of JavaScript a first visit to each page loads, as Chromium received them. */
+  firstLoadJs: Record<string, number>;
+  /** Requests a second with 20 connections, each route in turn, in one run. */
+  api: { health: number; pass: number; gags: number };
+};
+
+/** Requests a second a route sustains with 20 connections for a few seconds. */
+async function reqPerSec(url: string, cookie: string, seconds = 4): Promise<number> {
+  const result = await autocannon({ url, connections: 20, duration: seconds, headers: { cookie } });
+  if (result.non2xx > 0 || result.errors > 0) throw new Error(`${url}: ${result.non2xx} non-2xx, ${result.errors} errors`);
+  return result.requests.average;
+}
+
+const FIRST_LOAD_PAGES = { board: '/series/demo-kettle-crab', gag: '/series/demo-kettle-crab/gags/demo-gag-01', series: '/series' };
+
+async function floorScript(): Promise<string> {
+  const out = await build({
+    entryPoints: [path.join(ROOT, 'tests/bench/editor-floor.ts')],
+    bundle: true,
+    write: false,
+    format: 'iife',
+    globalName: 'quadrilleFloor',
+    platform: 'browser',
+    target: 'es2022',
+    tsconfig: path.join(ROOT, 'tsconfig.json'),
+    logLevel: 'error',
+  });
+  return out.outputFiles[0]!.text;
+}
+
+export async function webFigures(): Promise<WebFigures> {
+  ensureBuild(DIST);
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-web-bench-'));
+  const url = `file:${path.join(dir, 'web.sqlite')}`;
+  seed(url);
+  let app: Instance | undefined;
+  const browser = await openBrowser();
+  try {
+    app = await startInstance({ name: 'web', distDir: DIST, databaseUrl: url, env: { S3_FAKE: 'off' } });
+    const page = await browser.context.newPage();
+    // The moment the editor says every stroke is drawn, on the page's own clock (ms since navigation).
+    await page.addInitScript(() => {
+      new MutationObserver(() => {
+        const el = document.querySelector('[data-testid="sketch-canvas"][data-loaded="true"]');
+        if (el && !(window as { __loadedAt?: number }).__loadedAt) (window as { __loadedAt?: number }).__loadedAt = performance.now();
+      }).observe(document, { subtree: true, childList: true, attributes: true, attributeFilter: ['data-loaded'] });
+    });
+    await signIn(page, app.url, 'cocreator@quadrille.test');
+    const pass = await page.evaluate(async (gagId) => {
+      const res = await fetch(`/api/gags/${gagId}/passes`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
+      return (await res.json()) as { id: string; number: number };
+    }, GAG);
+    const strokes = benchStrokes(N);
+    for (let i = 0; i < N; i += 250) {
+      await page.evaluate(
+        async ({ passId, batchId, ops }) => {
+          const res = await fetch(`/api/passes/${passId}/ops`, {
+            method: 'POST',
+            headers: { 'content-type': 'application/json' },
+            body: JSON.stringify({ batchId, ops }),
+          });
+          if (!res.ok) throw new Error(`batch ${batchId}: HTTP ${res.status}`);
+        },
+        { passId: pass.id, batchId: `bench-${i}`, ops: strokes.slice(i, i + 250).map((stroke) => ({ op: 'add', stroke })) },
+      );
+    }
+    const editorUrl = `${app.url}/series/demo-kettle-crab/gags/${GAG}/passes/${pass.number}`;
+    const script = await floorScript();
+    const opens: number[] = [];
+    const floors: number[] = [];
+    let shown = 0;
+    for (let i = 0; i < 4; i++) {
+      await page.goto(editorUrl);
+      await page.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor({ timeout: 60_000 });
+      if (i === 0) continue; // warm-up: server and browser caches, JIT
+      opens.push(await page.evaluate(() => (window as { __loadedAt?: number }).__loadedAt!));
+      shown = Number(await page.getByTestId('sketch-canvas').getAttribute('data-stroke-count'));
+      await page.addScriptTag({ content: script });
+      const floor = await page.evaluate(
+        ({ passId, spec }) =>
+          (
+            window as unknown as {
+              quadrilleFloor: { editorFloor: (id: string, s: unknown, px: number) => Promise<{ ms: number }> };
+            }
+          ).quadrilleFloor.editorFloor(passId, spec, 3 * (window.devicePixelRatio || 1)),
+        { passId: pass.id, spec: DEFAULT_PAGE_SPEC },
+      );
+      floors.push(floor.ms);
+    }
+    const firstLoadJs: Record<string, number> = {};
+    for (const [name, at] of Object.entries(FIRST_LOAD_PAGES)) {
+      // A fresh page with the browser cache bypassed: what a first visit downloads.
+      const fresh = await browser.context.newPage();
+      const cdp = await browser.context.newCDPSession(fresh);
+      await cdp.send('Network.setCacheDisabled', { cacheDisabled: true });
+      const sizes: Promise<number>[] = [];
+      fresh.on('response', (r) => {
+        if (r.request().resourceType() === 'script')
+          sizes.push(
+            r
+              .request()
+              .sizes()
+              .then((z) => z.responseBodySize),
+          );
+      });
+      await fresh.goto(`${app.url}${at}`, { waitUntil: 'networkidle' });
+      firstLoadJs[name] = (await Promise.all(sizes)).reduce((a, b) => a + b, 0);
+      await fresh.close();
+    }
+    const cookie = (await browser.context.cookies()).map((c) => `${c.name}=${c.value}`).join('; ');
+    // A pass of 40 strokes, as a gag page's pass usually is, for the API rows.
+    const small = await page.evaluate(async (gagId) => {
+      const res = await fetch(`/api/gags/${gagId}/passes`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
+      return ((await res.json()) as { id: string }).id;
+    }, GAG);
+    await page.evaluate(
+      async ({ passId, ops }) => {
+        await fetch(`/api/passes/${passId}/ops`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json' },
+          body: JSON.stringify({ batchId: 'api-40', ops }),
+        });
+      },
+      { passId: small, ops: benchStrokes(40, 3).map((stroke) => ({ op: 'add', stroke })) },
+    );
+    const healthA = await reqPerSec(`${app.url}/api/health`, cookie);
+    const passRate = await reqPerSec(`${app.url}/api/passes/${small}`, cookie);
+    const gagsRate = await reqPerSec(`${app.url}/api/series/demo-kettle-crab/gags`, cookie);
+    const healthB = await reqPerSec(`${app.url}/api/health`, cookie);
+    const api = { health: (healthA + healthB) / 2, pass: passRate, gags: gagsRate };
+    const bodyBytes = async (accept: string) =>
+      (await (await fetch(`${app!.url}/api/passes/${pass.id}`, { headers: { cookie, accept, 'accept-encoding': 'identity' } })).arrayBuffer())
+        .byteLength;
+    return {
+      openMs: median(opens),
+      floorMs: median(floors),
+      strokesShown: shown,
+      packedBytes: await bodyBytes(PASS_MEDIA_TYPE),
+      jsonBytes: await bodyBytes('application/json'),
+      firstLoadJs,
+      api,
+    };
+  } finally {
+    await browser.close();
+    app?.kill();
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
+}
