@@ -287,7 +287,12 @@ export class PassSync {
         if (done) break;
         const got = reader.push(value);
         strokes.push(...got);
-        if (opts.progressive && got.length && !this.stopped) this.emitDoc({ panels: new Set(), full: false, items: false, added: got });
+        if (opts.progressive && got.length && !this.stopped) {
+          // Shown (and erasable) as they come; the document is rebuilt from the whole read at the end.
+          const shown = got.filter((st) => !this.doc.gone.has(st.id));
+          for (const st of shown) this.doc.strokes.set(st.id, st);
+          this.emitDoc({ panels: new Set(), full: false, items: false, added: shown });
+        }
       }
       const header = reader.finish();
       if (this.stopped) return false;

@@ -40,17 +40,14 @@ export function usePassSession(opts: { passId: string; canDraw: boolean; spec: P
     const { passId, canDraw, pxPerMm } = first.current;
     const sync = new PassSync(passId, null, window.localStorage, !canDraw);
     syncRef.current = sync;
-    // Strokes of the pass drawn as they arrive, before they join the document at the end of the read.
-    let arrived = 0;
     const offDoc = sync.onDoc((change) => {
+      // Strokes of the pass arriving: drawn on top, nothing else changes.
       if (change.added) {
         for (const s of change.added) rasters.drawStroke(s);
         strokesLayerRef.current?.batchDraw();
-        arrived += change.added.length;
-        setStrokeCount(sync.doc.strokes.size + arrived);
+        setStrokeCount(sync.doc.strokes.size);
         return;
       }
-      arrived = 0;
       setLoaded(sync.loaded);
       if (change.full) rasters.redrawAll(sync.doc.strokes.values());
       else for (const p of change.panels) rasters.redrawPanel(p, strokesOfPanel(sync.doc, p));

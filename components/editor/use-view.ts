@@ -25,6 +25,12 @@ export function useView(o: { wrapRef: RefObject<HTMLDivElement | null>; bleed: R
     });
   }, []);
 
+  // Re-raster once a zoom settles (the session skips it when the resolution is close enough).
+  const onSettled = useRef(o.onSettled);
+  useEffect(() => {
+    onSettled.current = o.onSettled;
+  });
+
   const { wrapRef, bleed } = o;
   useEffect(() => {
     const el = wrapRef.current;
@@ -36,19 +42,17 @@ export function useView(o: { wrapRef: RefObject<HTMLDivElement | null>; bleed: R
       const h = Math.max(200, Math.floor(entry.contentRect.height));
       setSize({ w, h });
       if (first) {
+        // The first fit sets the bitmaps' resolution at once, before the pass's strokes arrive to be drawn.
         first = false;
-        update(() => fitPage(bleed, w, h));
+        const fitted = fitPage(bleed, w, h);
+        update(() => fitted);
+        onSettled.current(fitted.scale * (window.devicePixelRatio || 1));
       }
     });
     ro.observe(el);
     return () => ro.disconnect();
   }, [wrapRef, bleed, update]);
 
-  // Re-raster once a zoom settles (the session skips it when the resolution is close enough).
-  const onSettled = useRef(o.onSettled);
-  useEffect(() => {
-    onSettled.current = o.onSettled;
-  });
   useEffect(() => {
     const t = setTimeout(() => onSettled.current(view.scale * (window.devicePixelRatio || 1)), 180);
     return () => clearTimeout(t);

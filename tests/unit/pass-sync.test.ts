@@ -3,7 +3,9 @@
 // and a drawn stroke is never thrown away (issue 13: "no stroke dropped by a refused batch").
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { PassSync } from '@/components/editor/pass-sync';
+import { encodePoints } from '@/lib/strokes/codec';
 import type { Lightbox, Op, Stroke } from '@/lib/strokes/types';
+import { END, PASS_MEDIA_TYPE, encodeHeader, encodeStrokes } from '@/lib/strokes/wire';
 
 function memoryStorage(): Storage {
   const m = new Map<string, string>();
@@ -32,6 +34,31 @@ const stroke = (id: string): Stroke => ({
 });
 const staleLightbox: Lightbox = { id: 'lb', uploadId: 'gone', panel: null, x: 0, y: 0, w: 50, h: 50, rotation: 0, opacity: 0.5, visible: true };
 
+/** The whole pass packed as the server sends it, one chunk per `per` strokes. */
+function packedPass(strokes: Stroke[], seq: number, per = 2): Response {
+  const rows = strokes.map((st) => ({
+    strokeId: st.id,
+    panel: st.panel,
+    tool: st.tool,
+    grey: st.grey,
+    size: st.size,
+    points: encodePoints(st.points),
+    ox: 0,
+    oy: 0,
+  }));
+  const chunks = [encodeHeader({ id: 'p', gagId: 'g', number: 1, seq, strokeCount: rows.length, rooms: [], lightboxes: [] })];
+  for (let i = 0; i < rows.length; i += per) chunks.push(encodeStrokes(rows.slice(i, i + per)));
+  chunks.push(END);
+  const body = new ReadableStream<Uint8Array>({
+    pull(c) {
+      const next = chunks.shift();
+      if (next) c.enqueue(next);
+      else c.close();
+    },
+  });
+  return new Response(body, { headers: { 'content-type': PASS_MEDIA_TYPE } });
+}
+
 /** A server that refuses any batch holding `refuse(op)`, and stores the rest. */
 function fakeServer(refuse: (op: Op) => string | null) {
   const stored: Stroke[] = [];
@@ -44,6 +71,7 @@ function fakeServer(refuse: (op: Op) => string | null) {
       for (const op of batch.ops) if (op.op === 'add') stored.push(op.stroke);
       return Response.json({ seq: ++seq });
     }
+    if (new Headers(init?.headers).get('accept') === PASS_MEDIA_TYPE) return packedPass(stored, seq);
     return Response.json({
       id: 'p',
       seq,
@@ -97,5 +125,39 @@ describe('PassSync after a refusal', () => {
     reloaded.start();
     expect(reloaded.doc.strokes.has('odd')).toBe(true);
     reloaded.stop();
+  });
+});
+
+describe('PassSync opening a pass', () => {
+  it('reads it packed, draws strokes as they arrive, then holds the whole pass and keeps local work on top', async () => {
+    const server = (['a', 'b', 'c', 'd', 'e'] as const).map(stroke);
+    const storage = memoryStorage();
+    // Work from before a reload, not yet acknowledged: erase "b", draw "mine".
+    const earlier = new PassSync('p', { seq: 0, strokes: [], rooms: [], lightboxes: [] }, storage);
+    earlier.commit([
+      { op: 'remove', strokeId: 'b' },
+      { op: 'add', stroke: stroke('mine') },
+    ]);
+    vi.stubGlobal('fetch', async (url: string, init?: RequestInit) => {
+      if (init?.method === 'POST') return new Promise<Response>(() => undefined); // the outbox waits; not what is tested here
+      expect(new Headers(init?.headers).get('accept')).toBe(PASS_MEDIA_TYPE);
+      return packedPass(server, 7);
+    });
+    const sync = new PassSync('p', null, storage);
+    const arrivals: string[][] = [];
+    let finalChange: { full: boolean; items: boolean } | null = null;
+    sync.onDoc((c) => {
+      if (c.added) arrivals.push(c.added.map((s) => s.id));
+      else if (sync.loaded) finalChange = c;
+    });
+    expect(sync.loaded).toBe(false);
+    sync.start();
+    await vi.waitFor(() => expect(sync.loaded).toBe(true));
+    expect(arrivals.length).toBeGreaterThanOrEqual(3); // in chunks, not all at once
+    expect(arrivals.flat()).toEqual(['a', 'c', 'd', 'e']); // "b" was erased here: never shown
+    expect([...sync.doc.strokes.keys()].sort()).toEqual(['a', 'c', 'd', 'e', 'mine']);
+    expect(sync.seq).toBe(7);
+    expect(finalChange).toMatchObject({ full: true, items: true }); // local work on top: redrawn whole once
+    sync.stop();
   });
 });
