@@ -1,10 +1,13 @@
 import { findPass, liveLightboxes, liveRooms, liveStrokeRows, passDelta, passState } from '@/db/queries/passes';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
 import { byPassId } from '@/lib/http/series-of';
+import { remembered } from '@/lib/remembered';
 import { END, PASS_MEDIA_TYPE, encodeHeader, encodeStrokes } from '@/lib/strokes/wire';
 
 type Params = { passId: string };
 const seriesOf = byPassId;
+
+const asJson = remembered<string | null>({ maxBytes: 32 * 1024 * 1024, sizeOf: (t) => (t ? t.length * 2 : 0) });
 
 /** Strokes per chunk of the packed answer: the editor draws each chunk as it arrives. */
 const STROKES_PER_CHUNK = 500;
@@ -21,8 +24,19 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, pa
     if (!Number.isInteger(n) || n < 0) return jsonError(422, '"since" must be a sequence number (0 or more).');
     return Response.json(await passDelta(db, params.passId, n));
   }
-  if (!(req.headers.get('accept') ?? '').includes(PASS_MEDIA_TYPE))
-    return Response.json(await passState(db, params.passId), { headers: { vary: 'Accept' } });
+  if (!(req.headers.get('accept') ?? '').includes(PASS_MEDIA_TYPE)) {
+    // The JSON of a pass at a seq never changes: made once, then served as it is.
+    const at = await findPass(db, params.passId);
+    if (!at) return jsonError(404, 'Not found.');
+    const body = await asJson.get(`${params.passId}:${at.seq}`, async () => {
+      const state = await passState(db, params.passId);
+      return state && state.seq === at.seq ? JSON.stringify(state) : null;
+    });
+    // A batch landed between the two reads: answer the newer state, unremembered.
+    const fresh = body === null ? await passState(db, params.passId) : null;
+    if (body === null && !fresh) return jsonError(404, 'Not found.');
+    return new Response(body ?? JSON.stringify(fresh), { headers: { 'content-type': 'application/json', vary: 'Accept' } });
+  }
 
   const pass = await findPass(db, params.passId);
   if (!pass) return jsonError(404, 'Not found.');

@@ -8,7 +8,8 @@ import { pageSpecForPass } from '@/db/queries/series';
 import { withSeriesRole } from '@/lib/http/route';
 import { byPassId } from '@/lib/http/series-of';
 import type { Findings } from '@/lib/review/findings';
-import { remembered, runHeavy } from '@/lib/workers/pool';
+import { remembered } from '@/lib/remembered';
+import { runHeavy } from '@/lib/workers/pool';
 
 type Params = { passId: string };
 const seriesOf = byPassId;

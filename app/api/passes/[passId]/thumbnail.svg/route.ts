@@ -4,7 +4,8 @@ import { findPass } from '@/db/queries/passes';
 import { pageSpecForPass } from '@/db/queries/series';
 import { withSeriesRole } from '@/lib/http/route';
 import { byPassId } from '@/lib/http/series-of';
-import { remembered, runHeavy } from '@/lib/workers/pool';
+import { remembered } from '@/lib/remembered';
+import { runHeavy } from '@/lib/workers/pool';
 
 type Params = { passId: string };
 const seriesOf = byPassId;
