@@ -1,0 +1,136 @@
+// One heavy request must not stall everyone (issue 13, found 6): while the thumbnail of a 50,000-stroke
+// pass, a findings run on it and 100 sign-ins are in flight on a real `next start`, `/api/health` still
+// answers with a p99 under 200 ms. Health is asked every 25 ms whatever the answers (an open loop, so a
+// stalled server shows as the long waits it causes rather than as fewer samples).
+// Pending: it waits in tests/soak/pending until the server holds this goal. Moved to tests/soak/servers/ it runs
+// in `npm test` (e2e) and the soak; until then `SOAK_PENDING=1 npx vitest run --project e2e tests/soak/pending`.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDb, getDb } from '@/db/client';
+import { applyBatch, createPass } from '@/db/queries/passes';
+import { DEMO_PASSWORD } from '@/db/seed/demo-data';
+import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
+import { benchStrokes } from '../../../bench/strokes-fixture';
+import type { Instance } from '../../../support/instances';
+import { type SqliteSite, csrfOf, mustSignIn, signIn, sqliteSite } from '../../../support/servers';
+import { SOAK, percentile, recordFigures, scale } from '../../../support/soak';
+
+const STROKES = 50_000;
+// 20 points a stroke: the thumbnail (an SVG of ~100 MB) and the findings each cost seconds of CPU.
+const POINTS = 20;
+const SIGN_INS = 100;
+const HEALTH_EVERY_MS = 25;
+const P99_MS = 200;
+// The short run watches health for 10 s of the heavy work and then lets it go; the soak waits for all of it.
+const WINDOW_MS = scale(10_000, 240_000);
+
+let site: SqliteSite;
+let server: Instance;
+let passId = '';
+let viewer = '';
+let seededIn = 0;
+
+beforeAll(async () => {
+  site = await sqliteSite();
+  // The big pass goes in through the pass log's own query functions, before the server opens the file.
+  process.env.DATABASE_URL = site.databaseUrl;
+  const db = await getDb();
+  passId = (await createPass(db, { gagId: 'demo-gag-12', userId: 'demo-user-owner' })).id;
+  const seeding = performance.now();
+  const strokes = benchStrokes(STROKES, 13, POINTS);
+  for (let i = 0; i < strokes.length; i += 5000) {
+    const ops = strokes.slice(i, i + 5000).map((stroke) => ({ op: 'add' as const, stroke }));
+    await applyBatch(db, { passId, batchId: `big-${i}`, ops, userId: 'demo-user-owner', spec: DEFAULT_PAGE_SPEC });
+  }
+  await closeDb();
+  seededIn = performance.now() - seeding;
+  server = await site.start('A');
+  viewer = await mustSignIn(server.url, 'viewer@quadrille.test', DEMO_PASSWORD);
+}, 300_000);
+
+afterAll(async () => {
+  await site?.stop();
+});
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+/** The answer's status (0 when the connection was dropped, -1 when still running when given up on) and how long it took. */
+async function timed(fn: (signal: AbortSignal) => Promise<Response>, signal: AbortSignal): Promise<{ status: number; ms: number }> {
+  const t0 = performance.now();
+  try {
+    const res = await fn(signal);
+    await res.arrayBuffer();
+    return { status: res.status, ms: performance.now() - t0 };
+  } catch {
+    return { status: signal.aborted ? -1 : 0, ms: performance.now() - t0 };
+  }
+}
+
+const shown = (r: { status: number; ms: number }) =>
+  r.status === -1 ? `still running after ${Math.round(r.ms)} ms` : `${r.status} in ${Math.round(r.ms)} ms`;
+
+describe('heavy requests beside light ones', () => {
+  it(`/api/health p99 < ${P99_MS} ms while a ${STROKES.toLocaleString('en')}-stroke thumbnail, its findings and ${SIGN_INS} sign-ins run`, async () => {
+    for (let i = 0; i < 5; i++) await fetch(`${server.url}/api/health`);
+    const csrf = await csrfOf(server.url);
+    const stop = new AbortController();
+    const t0 = performance.now();
+    const thumbnail = timed(
+      (signal) => fetch(`${server.url}/api/passes/${passId}/thumbnail.svg`, { headers: { cookie: viewer }, signal }),
+      stop.signal,
+    );
+    const findings = timed((signal) => fetch(`${server.url}/api/passes/${passId}/findings`, { headers: { cookie: viewer }, signal }), stop.signal);
+    const signIns = Promise.all(
+      Array.from({ length: SIGN_INS }, (_, i) =>
+        timed(async (signal) => {
+          const r = await signIn(server.url, `nobody-${i}-${Date.now()}@pier.test`, 'not a password anyone has', csrf, signal);
+          return new Response(null, { status: r.status });
+        }, stop.signal),
+      ),
+    ).then((answers) => ({ ms: performance.now() - t0, statuses: answers.map((a) => a.status) }));
+    let busy = true;
+    const heavy = Promise.all([thumbnail, findings, signIns]).finally(() => (busy = false));
+
+    // Health every 25 ms while the heavy requests run (in the short run, for WINDOW_MS at most).
+    const samples: number[] = [];
+    const out = new Map<Promise<void>, number>();
+    while (busy && performance.now() - t0 < WINDOW_MS) {
+      const started = performance.now();
+      const p: Promise<void> = fetch(`${server.url}/api/health`, { signal: stop.signal })
+        .then((r) => r.arrayBuffer())
+        .then(
+          () => void samples.push(performance.now() - started),
+          // A health request that failed outright is as bad as one never answered.
+          () => void (stop.signal.aborted || samples.push(Infinity)),
+        )
+        .finally(() => out.delete(p));
+      out.set(p, started);
+      await sleep(HEALTH_EVERY_MS);
+    }
+    // Health answers still owed get a few seconds; one never answered counts as long as it was waited for.
+    await Promise.race([Promise.all(out.keys()), sleep(5000)]);
+    for (const started of out.values()) samples.push(performance.now() - started);
+    if (busy) stop.abort();
+    const [thumb, find, sign] = await heavy;
+    const p99 = percentile(samples, 0.99);
+    const statuses = new Map<number, number>();
+    for (const s of sign.statuses) statuses.set(s, (statuses.get(s) ?? 0) + 1);
+    recordFigures(`/api/health under heavy requests${SOAK ? ' (soak)' : ''}`, {
+      [`${STROKES} strokes stored through the query functions (ms)`]: Math.round(seededIn),
+      'health samples': samples.length,
+      'health p50 (ms)': Math.round(percentile(samples, 0.5)),
+      'health p99 (ms)': Math.round(p99),
+      'health max (ms)': Math.round(Math.max(...samples)),
+      [`thumbnail.svg of ${STROKES} strokes`]: shown(thumb),
+      findings: shown(find),
+      [`${SIGN_INS} sign-ins`]: `${[...statuses].map(([s, n]) => `${n} × ${s === -1 ? 'still running' : s === 0 ? 'connection dropped' : s}`).join(', ')} in ${Math.round(sign.ms)} ms`,
+    });
+    // What finished, finished well (the soak waits for all of it).
+    for (const r of [thumb, find]) expect([200, ...(SOAK ? [] : [-1])], shown(r)).toContain(r.status);
+    expect(
+      sign.statuses.filter((s) => s >= 500 || s === 0),
+      'sign-ins answered 5xx or dropped',
+    ).toEqual([]);
+    expect(samples.length).toBeGreaterThan(10);
+    expect(p99, `health p99 (ms) over ${samples.length} samples`).toBeLessThan(P99_MS);
+  }, 300_000);
+});
