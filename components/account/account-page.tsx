@@ -1,17 +1,21 @@
 'use client';
 // My account: who I am, and a new password (the current one first). Changing it signs out every other device.
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { changePassword } from '@/hooks/use-members';
 import { ApiError, messageOf } from '@/lib/http/client';
-import { PASSWORD_MIN, type PasswordChangeInput, passwordChangeSchema } from '@/lib/validation/account';
+import type { PasswordChangeInput } from '@/lib/validation/account';
+import { PASSWORD_MIN } from '@/lib/validation/password-limits';
+import { lazyZodResolver } from '@/lib/forms/lazy-resolver';
 
 export function AccountPage({ name, email }: { name: string; email: string }) {
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
-  const form = useForm<PasswordChangeInput>({ resolver: zodResolver(passwordChangeSchema), defaultValues: { currentPassword: '', newPassword: '' } });
+  const form = useForm<PasswordChangeInput>({
+    resolver: lazyZodResolver(() => import('@/lib/validation/account').then((m) => m.passwordChangeSchema)),
+    defaultValues: { currentPassword: '', newPassword: '' },
+  });
   const { errors, isSubmitting } = form.formState;
 
   const onSubmit = form.handleSubmit(async (values) => {

@@ -1,5 +1,4 @@
 'use client';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { signIn } from 'next-auth/react';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
@@ -7,7 +6,8 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
-import { type SignInInput, signInSchema } from '@/lib/validation/account';
+import type { SignInInput } from '@/lib/validation/account';
+import { lazyZodResolver } from '@/lib/forms/lazy-resolver';
 
 const MESSAGES: Record<string, string> = {
   CredentialsSignin: 'That e-mail address and password do not match an account. Check both and try again.',
@@ -25,7 +25,9 @@ function safeReturn(url: string | null | undefined): string {
 export function SignInForm({ callbackUrl, initialError }: { callbackUrl?: string; initialError?: string }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(initialError ? (MESSAGES[initialError] ?? 'Sign-in failed. Try again.') : null);
-  const { register, handleSubmit, formState } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
+  const { register, handleSubmit, formState } = useForm<SignInInput>({
+    resolver: lazyZodResolver(() => import('@/lib/validation/account').then((m) => m.signInSchema)),
+  });
 
   const onSubmit = handleSubmit(async (values) => {
     setError(null);

@@ -1,5 +1,4 @@
 'use client';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { signIn } from 'next-auth/react';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
@@ -8,12 +7,16 @@ import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { api, messageOf } from '@/lib/http/client';
-import { PASSWORD_MIN, type SignUpInput, signUpSchema } from '@/lib/validation/account';
+import type { SignUpInput } from '@/lib/validation/account';
+import { PASSWORD_MIN } from '@/lib/validation/password-limits';
+import { lazyZodResolver } from '@/lib/forms/lazy-resolver';
 
 export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
-  const { register, handleSubmit, formState } = useForm<SignUpInput>({ resolver: zodResolver(signUpSchema) });
+  const { register, handleSubmit, formState } = useForm<SignUpInput>({
+    resolver: lazyZodResolver(() => import('@/lib/validation/account').then((m) => m.signUpSchema)),
+  });
 
   const onSubmit = handleSubmit(async (values) => {
     setError(null);

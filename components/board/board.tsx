@@ -2,6 +2,7 @@
 // The board of one series: gags grouped by status (columns) or as a sortable
 // table, with a shared search and status filter.
 import { LayoutGrid, Search, Table2 } from 'lucide-react';
+import dynamic from 'next/dynamic';
 import Link from 'next/link';
 import { useCallback, useMemo, useState } from 'react';
 import { BeatGridMark } from '@/components/ui/beat-grid-mark';
@@ -13,10 +14,23 @@ import { ROLE_LABELS, type Role, can } from '@/lib/auth/permissions';
 import { filterGags } from '@/lib/gags/filter';
 import { GAG_STATUSES, type GagStatus, STATUS_LABELS } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
-import { GagTable } from './gag-table';
-import { NewGagForm } from './new-gag-form';
 
 type View = 'board' | 'table';
+
+// The new-gag form (and its form library) loads after the board is shown; the sortable
+// table (and its table library) only when someone switches to it.
+const NewGagForm = dynamic(() => import('./new-gag-form').then((m) => m.NewGagForm), {
+  ssr: false,
+  loading: () => <div className="panel h-[5.5rem]" aria-hidden="true" />,
+});
+const GagTable = dynamic(() => import('./gag-table').then((m) => m.GagTable), {
+  ssr: false,
+  loading: () => (
+    <p role="status" className="py-8 text-center text-graphite-faint">
+      Setting out the table…
+    </p>
+  ),
+});
 
 export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: string; seriesTitle: string; role: Role; initialGags: GagDto[] }) {
   const { data, createGag, setStatus: moveGag } = useGags(seriesId, initialGags);

@@ -1,17 +1,17 @@
 'use client';
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { messageOf } from '@/lib/http/client';
-import { type CreateGagInput, createGagSchema } from '@/lib/validation/gag';
+import type { CreateGagInput } from '@/lib/validation/gag';
+import { lazyZodResolver } from '@/lib/forms/lazy-resolver';
 
 export function NewGagForm({ onCreate }: { onCreate: (input: CreateGagInput) => Promise<unknown> }) {
   const [error, setError] = useState<string | null>(null);
   const [created, setCreated] = useState<string | null>(null);
   const { register, handleSubmit, formState, reset, setFocus } = useForm<CreateGagInput>({
-    resolver: zodResolver(createGagSchema),
+    resolver: lazyZodResolver(() => import('@/lib/validation/gag').then((m) => m.createGagSchema)),
     defaultValues: { title: '', premise: '' },
   });
   const onSubmit = handleSubmit(async (values) => {

@@ -15,7 +15,10 @@ import { useGag } from '@/hooks/use-gag';
 import { ROLE_LABELS, type Role, can } from '@/lib/auth/permissions';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind, type GagStatus, STATUS_LABELS } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
-import { gagPremise, gagTitle } from '@/lib/validation/gag';
+import { onFirstUse } from '@/lib/forms/lazy-resolver';
+
+/** The title and premise rules, loaded with the first edit. */
+const fieldRules = onFirstUse(() => import('@/lib/validation/gag'));
 import { StatusSelect } from './status-select';
 
 type Draft = { title?: string; premise?: string; beats?: Partial<Record<BeatKind, string>> };
@@ -61,15 +64,19 @@ export function GagDetail({ seriesId, seriesTitle, role, initial }: { seriesId: 
 
   function editTitle(v: string) {
     setTitle(v);
-    const r = gagTitle.safeParse(v);
-    setFieldError((e) => ({ ...e, title: r.success ? undefined : r.error.issues[0]?.message }));
-    if (r.success) autosave.queue({ title: r.data });
+    void fieldRules().then(({ gagTitle }) => {
+      const r = gagTitle.safeParse(v);
+      setFieldError((e) => ({ ...e, title: r.success ? undefined : r.error.issues[0]?.message }));
+      if (r.success) autosave.queue({ title: r.data });
+    });
   }
   function editPremise(v: string) {
     setPremise(v);
-    const r = gagPremise.safeParse(v);
-    setFieldError((e) => ({ ...e, premise: r.success ? undefined : r.error.issues[0]?.message }));
-    if (r.success) autosave.queue({ premise: r.data });
+    void fieldRules().then(({ gagPremise }) => {
+      const r = gagPremise.safeParse(v);
+      setFieldError((e) => ({ ...e, premise: r.success ? undefined : r.error.issues[0]?.message }));
+      if (r.success) autosave.queue({ premise: r.data });
+    });
   }
   function editNote(kind: BeatKind, v: string) {
     setNotes((n) => ({ ...n, [kind]: v }));

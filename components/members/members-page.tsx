@@ -1,6 +1,5 @@
 'use client';
 // Members, roles and invitations of a series. Owners manage; others see who is in.
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
@@ -10,7 +9,8 @@ import type { MemberDto } from '@/db/queries/members';
 import { memberActions, useInvitations, useMe, useMembers } from '@/hooks/use-members';
 import { ROLES, ROLE_HINT, ROLE_LABELS, type Role } from '@/lib/auth/permissions';
 import { messageOf } from '@/lib/http/client';
-import { inviteSchema } from '@/lib/validation/members';
+import { lazyZodResolver } from '@/lib/forms/lazy-resolver';
+import type { inviteSchema } from '@/lib/validation/members';
 
 export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { seriesId: string; seriesTitle: string; canManage: boolean; meId: string }) {
   const { data: members, mutate } = useMembers(seriesId);
@@ -19,7 +19,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
   const actions = memberActions(seriesId);
   const [message, setMessage] = useState<string | null>(null);
   const form = useForm<z.input<typeof inviteSchema>>({
-    resolver: zodResolver(inviteSchema),
+    resolver: lazyZodResolver(() => import('@/lib/validation/members').then((m) => m.inviteSchema)),
     defaultValues: { email: '', role: 'viewer', anyoneWithLink: false },
   });
 

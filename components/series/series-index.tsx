@@ -1,5 +1,4 @@
 'use client';
-import { zodResolver } from '@hookform/resolvers/zod';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
@@ -10,14 +9,15 @@ import type { SeriesDto } from '@/db/queries/series';
 import { useSeriesList } from '@/hooks/use-series-list';
 import { ROLE_LABELS } from '@/lib/auth/permissions';
 import { messageOf } from '@/lib/http/client';
-import { type CreateSeriesInput, createSeriesSchema } from '@/lib/validation/series';
+import type { CreateSeriesInput } from '@/lib/validation/series';
+import { lazyZodResolver } from '@/lib/forms/lazy-resolver';
 
 export function SeriesIndex({ initial }: { initial: SeriesDto[] }) {
   const router = useRouter();
   const { data, createSeries } = useSeriesList(initial);
   const [error, setError] = useState<string | null>(null);
   const { register, handleSubmit, formState, reset } = useForm<CreateSeriesInput>({
-    resolver: zodResolver(createSeriesSchema),
+    resolver: lazyZodResolver(() => import('@/lib/validation/series').then((m) => m.createSeriesSchema)),
   });
   const onSubmit = handleSubmit(async ({ title }) => {
     setError(null);
