@@ -1,43 +1,46 @@
 // PDFs for the printer and the drawing desk, drawn with pdf-lib from the same
 // geometry and outlines as the editor. Fonts come from fonts/ and are embedded.
+// The review dummy writes each page as one content stream of its own: pdf-lib's
+// operators for its few shapes and texts, and the strokes' outlines as plain path
+// operators in whole micrometres, deflated by node's zlib. pdf-lib keeps the
+// document's structure, the font (subset once, at save) and the scans.
 import fs from 'node:fs';
 import path from 'node:path';
+import { constants as zlibConstants, deflateSync } from 'node:zlib';
 import fontkit from '@pdf-lib/fontkit';
 import {
   PDFDocument,
   type PDFFont,
+  PDFHexString,
   type PDFImage,
   PDFName,
-  degrees,
   type PDFOperator,
   type PDFPage,
-  appendQuadraticCurve,
-  clip,
-  closePath,
-  endPath,
-  fill,
-  moveTo,
-  popGraphicsState,
-  pushGraphicsState,
-  rectangle,
+  type PDFRef,
+  degrees,
+  drawEllipse,
+  drawImage,
+  drawRectangle,
   rgb,
-  setFillingRgbColor,
-  setGraphicsState,
 } from 'pdf-lib';
 import { type PageSpec, type Rect, bleedBox, mmToPt, panelRects, safeBox } from '@/lib/print/geometry';
 import { pdfBoxes } from '@/lib/print/book';
 import { outlineOf, traceOutline } from '@/lib/strokes/outline';
 import { type Lightbox, type Room, type Stroke, strokeAlpha } from '@/lib/strokes/types';
 import { BEAT_KINDS, BEAT_LABELS } from '@/lib/gags/status';
+import { sfntFromWoff } from './woff';
 
 export const PRINTER_NOTE = "Guidance only: the printer's own specification takes precedence.";
 
 const FONT_FILE = 'atkinson-hyperlegible-latin-400-normal.woff';
+let fontBytes: Buffer | undefined;
+/** The font as plain TrueType, unwrapped once per process (see woff.ts). */
+const fontFile = () => (fontBytes ??= sfntFromWoff(fs.readFileSync(path.join(process.cwd(), 'fonts', FONT_FILE))));
 
 async function newDoc(title: string) {
   const doc = await PDFDocument.create();
   doc.registerFontkit(fontkit);
-  const font = await doc.embedFont(fs.readFileSync(path.join(process.cwd(), 'fonts', FONT_FILE)), { subset: true });
+  const font = await doc.embedFont(fontFile(), { subset: true });
   doc.setTitle(title);
   doc.setSubject(PRINTER_NOTE);
   doc.setCreator('Quadrille');
@@ -47,14 +50,6 @@ async function newDoc(title: string) {
 
 const greyLevel = (g: number) => 1 - Math.min(100, Math.max(0, g)) / 100;
 
-/** A graphics state for translucent tone, registered once per page. */
-function toneState(page: PDFPage, alpha: number): PDFName {
-  const name = PDFName.of(`QTone${Math.round(alpha * 100)}`);
-  const ref = page.doc.context.register(page.doc.context.obj({ Type: 'ExtGState', ca: alpha, CA: alpha }));
-  page.node.setExtGState(name, ref);
-  return name;
-}
-
 /** mm on the page (from the trim's top left) → pt in PDF space (origin bottom left). */
 function placer(spec: PageSpec, pageH: number, originX = mmToPt(spec.bleed), originTop = mmToPt(spec.bleed)) {
   return {
@@ -63,8 +58,152 @@ function placer(spec: PageSpec, pageH: number, originX = mmToPt(spec.bleed), ori
   };
 }
 
+/**
+ * Stroke paths are written in whole micrometres from the trim's top left (the SVG
+ * thumbnails round to the same 0.001 mm), with one `cm` mapping them to points, so
+ * each coordinate is a short integer rather than a 17-digit decimal.
+ */
+const UM_PER_MM = 1000;
+
+/** The graphics states (opacities) of one document: each registered once, named on the pages that use it. */
+class Opacities {
+  private refs = new Map<string, { name: PDFName; ref: PDFRef }>();
+  constructor(private doc: PDFDocument) {}
+  /** fill is `ca`, stroke `CA` (undefined leaves it opaque), as pdf-lib's own drawing does. */
+  name(page: PDFPage, fill: number, stroke?: number): PDFName {
+    const key = `${fill}/${stroke}`;
+    let known = this.refs.get(key);
+    if (!known) {
+      const ref = this.doc.context.register(this.doc.context.obj({ Type: 'ExtGState', ca: fill, CA: stroke }));
+      known = { name: PDFName.of(`QGS${this.refs.size}`), ref };
+      this.refs.set(key, known);
+    }
+    page.node.setExtGState(known.name, known.ref);
+    return known.name;
+  }
+}
+
+/**
+ * A page's content stream as bytes. Path coordinates are written digit by digit:
+ * a page of 40 strokes holds some 20,000 of them, and building them as strings
+ * (or as pdf-lib operator objects) cost more than everything else on the page.
+ */
+export class ContentWriter {
+  private buf = new Uint8Array(1 << 16);
+  private n = 0;
+  /** Room for a path segment: four coordinates (sign, up to ten digits and a space each) and an operator. */
+  private static SEGMENT = 4 * 12 + 2;
+
+  private room(k: number) {
+    if (this.n + k <= this.buf.length) return;
+    const grown = new Uint8Array(Math.max(this.buf.length * 2, this.n + k));
+    grown.set(this.buf.subarray(0, this.n));
+    this.buf = grown;
+  }
+
+  /** ASCII text, e.g. pdf-lib operators' own serialisation. */
+  text(s: string) {
+    this.room(s.length);
+    for (let i = 0; i < s.length; i++) this.buf[this.n++] = s.charCodeAt(i) & 0xff;
+  }
+
+  ops(ops: (PDFOperator | undefined | false)[]) {
+    for (const op of ops) if (op) this.text(`${op.toString()}\n`);
+  }
+
+  /** v rounded to an integer, then a space. */
+  private int(v: number) {
+    let i = Math.round(v);
+    if (!(i > -2e9 && i < 2e9)) i = 0; // NaN, or kilometres off a page whose points are validated to within a metre
+    const buf = this.buf;
+    if (i < 0) {
+      buf[this.n++] = 45; // -
+      i = -i;
+    }
+    const len = i < 10 ? 1 : i < 100 ? 2 : i < 1000 ? 3 : i < 10000 ? 4 : i < 100000 ? 5 : i < 1000000 ? 6 : String(i).length;
+    let at = this.n + len;
+    this.n = at + 1;
+    buf[at] = 32;
+    do {
+      const q = (i / 10) | 0;
+      buf[--at] = 48 + i - q * 10;
+      i = q;
+    } while (i > 0);
+  }
+
+  moveTo(x: number, y: number) {
+    this.room(ContentWriter.SEGMENT);
+    this.int(x);
+    this.int(y);
+    this.buf[this.n++] = 109; // m
+    this.buf[this.n++] = 10;
+  }
+
+  /** pdf-lib's appendQuadraticCurve: `v` takes the current point as its first control point. */
+  curveV(cx: number, cy: number, x: number, y: number) {
+    this.room(ContentWriter.SEGMENT);
+    this.int(cx);
+    this.int(cy);
+    this.int(x);
+    this.int(y);
+    this.buf[this.n++] = 118; // v
+    this.buf[this.n++] = 10;
+  }
+
+  /** Deflated for a FlateDecode stream. Huffman coding alone: path digits have few repeats for LZ77 to find (1 % smaller at 2.5× the time). */
+  deflated(): Buffer {
+    return deflateSync(this.buf.subarray(0, this.n), { level: 1, strategy: zlibConstants.Z_HUFFMAN_ONLY });
+  }
+
+  /** Sets what was written as the page's content stream, and starts again (the buffer is kept for the next page). */
+  finish(doc: PDFDocument, page: PDFPage) {
+    page.node.addContentStream(doc.context.register(doc.context.stream(this.deflated(), { Filter: 'FlateDecode' })));
+    this.n = 0;
+  }
+}
+
+/**
+ * Strokes as filled outlines, in µm from the trim's top left (the caller sets the `cm`):
+ * the same curve as the canvas and the SVG (traceOutline of outlineOf).
+ */
+export function writeStrokePaths(out: ContentWriter, strokes: Stroke[], toneState: (alpha: number) => PDFName) {
+  const path = {
+    moveTo: (x: number, y: number) => out.moveTo(x * UM_PER_MM, y * UM_PER_MM),
+    quadraticCurveTo: (cx: number, cy: number, x: number, y: number) => out.curveV(cx * UM_PER_MM, cy * UM_PER_MM, x * UM_PER_MM, y * UM_PER_MM),
+    closePath: () => out.text('h\n'),
+  };
+  for (const s of strokes) {
+    const alpha = strokeAlpha(s.tool);
+    const v = Math.round(greyLevel(s.grey) * 1000) / 1000; // never an exponent, which PDF numbers lack
+    out.text(alpha < 1 ? `q ${toneState(alpha).toString()} gs ${v} ${v} ${v} rg\n` : `q ${v} ${v} ${v} rg\n`);
+    traceOutline(path, outlineOf(s));
+    out.text('f Q\n');
+  }
+}
+
+/** A length or position in points, to 0.001 pt, never with an exponent (which PDF numbers lack). */
+const pt = (v: number) => String(Math.round(v * 1000) / 1000);
+
+/** The `cm` that maps µm from the trim's top left to the page's points. */
+export function strokeSpace(spec: PageSpec, pageH: number): string {
+  const k = mmToPt(1) / UM_PER_MM; // 0.00283…: written in full, as a scale
+  const at = placer(spec, pageH);
+  return `${k} 0 0 ${-k} ${pt(at.x(0))} ${pt(at.y(0))} cm\n`;
+}
+
+/** A rectangle's path as pdf-lib's drawRectangle makes it: from the lower-left corner, up first. */
+const rectPath = (x: number, y: number, w: number, h: number) =>
+  `${pt(x)} ${pt(y)} m ${pt(x)} ${pt(y + h)} l ${pt(x + w)} ${pt(y + h)} l ${pt(x + w)} ${pt(y)} l h`;
+
+/** The drawing context of one review page. */
+type Sheet = { page: PDFPage; out: ContentWriter; opacity: Opacities; at: ReturnType<typeof placer> };
+
+/** Saves the state and clips to an area in mm (a `Q` ends it). */
+const clipTo = (at: ReturnType<typeof placer>, r: Rect) => `q ${pt(at.x(r.x))} ${pt(at.y(r.y + r.h))} ${pt(mmToPt(r.w))} ${pt(mmToPt(r.h))} re W n\n`;
+
 /** A scan under the strokes, clipped to its panel or the page; its quarter turn is clockwise as on screen. */
-function drawLightbox(page: PDFPage, at: ReturnType<typeof placer>, area: Rect, l: Lightbox, image: PDFImage) {
+function drawLightbox(sheet: Sheet, area: Rect, l: Lightbox, image: { name: PDFName; image: PDFImage }) {
+  const { at, out } = sheet;
   const turnedQ = l.rotation === 90 || l.rotation === 270;
   const iw = mmToPt(turnedQ ? l.h : l.w);
   const ih = mmToPt(turnedQ ? l.w : l.h);
@@ -74,66 +213,79 @@ function drawLightbox(page: PDFPage, at: ReturnType<typeof placer>, area: Rect, 
   const phi = (-l.rotation * Math.PI) / 180;
   const x = cx - ((iw / 2) * Math.cos(phi) - (ih / 2) * Math.sin(phi));
   const y = cy - ((iw / 2) * Math.sin(phi) + (ih / 2) * Math.cos(phi));
-  page.pushOperators(pushGraphicsState(), rectangle(at.x(area.x), at.y(area.y + area.h), mmToPt(area.w), mmToPt(area.h)), clip(), endPath());
-  page.drawImage(image, { x, y, width: iw, height: ih, rotate: degrees(-l.rotation), opacity: l.opacity });
-  page.pushOperators(popGraphicsState());
+  sheet.page.node.setXObject(image.name, image.image.ref);
+  out.text(clipTo(at, area));
+  out.ops(
+    drawImage(image.name, {
+      x,
+      y,
+      width: iw,
+      height: ih,
+      rotate: degrees(-l.rotation),
+      xSkew: degrees(0),
+      ySkew: degrees(0),
+      graphicsState: sheet.opacity.name(sheet.page, l.opacity),
+    }),
+  );
+  out.text('Q\n');
 }
 
-type PlacedScan = { lightbox: Lightbox; image: PDFImage };
+type PlacedScan = { lightbox: Lightbox; image: { name: PDFName; image: PDFImage } };
 
-function drawStrokes(page: PDFPage, spec: PageSpec, strokes: Stroke[], rooms: Room[], scans: PlacedScan[] = []) {
+/** pdf-lib's drawRectangle operators, with page.drawRectangle's defaults. */
+const box = (o: Partial<Parameters<typeof drawRectangle>[0]> & { x: number; y: number; width: number; height: number }) =>
+  drawRectangle({ rotate: degrees(0), xSkew: degrees(0), ySkew: degrees(0), color: undefined, borderColor: undefined, borderWidth: 0, ...o });
+
+const ROOM_LOOK = { color: rgb(0.86, 0.91, 0.94), borderColor: rgb(0.11, 0.31, 0.43), borderWidth: 0.4, borderDashArray: [2, 1.5] };
+
+/** The panels: each clipped, with its scans, rooms and strokes in that order, then its border. */
+function drawPanels(sheet: Sheet, spec: PageSpec, strokes: Stroke[], rooms: Room[], scans: PlacedScan[]) {
+  const { at, out, page } = sheet;
   const { height } = page.getSize();
-  const at = placer(spec, height);
-  const panels = panelRects(spec);
-  let tone: PDFName | undefined;
-  for (const s of scans.filter((x) => x.lightbox.panel === null)) drawLightbox(page, at, bleedBox(spec), s.lightbox, s.image);
-  panels.forEach((r, i) => {
-    page.pushOperators(pushGraphicsState(), rectangle(at.x(r.x), at.y(r.y + r.h), mmToPt(r.w), mmToPt(r.h)), clip(), endPath());
-    for (const s of scans.filter((x) => x.lightbox.panel === i)) drawLightbox(page, at, r, s.lightbox, s.image);
+  const toneState = (alpha: number) => sheet.opacity.name(page, alpha, alpha);
+  for (const s of scans.filter((x) => x.lightbox.panel === null)) drawLightbox(sheet, bleedBox(spec), s.lightbox, s.image);
+  panelRects(spec).forEach((r, i) => {
+    out.text(clipTo(at, r));
+    for (const s of scans.filter((x) => x.lightbox.panel === i)) drawLightbox(sheet, r, s.lightbox, s.image);
     for (const room of rooms.filter((x) => x.panel === i)) {
-      const common = { color: rgb(0.86, 0.91, 0.94), opacity: 0.6, borderColor: rgb(0.11, 0.31, 0.43), borderWidth: 0.4, borderDashArray: [2, 1.5] };
-      if (room.shape === 'ellipse')
-        page.drawEllipse({
-          x: at.x(room.x + room.w / 2),
-          y: at.y(room.y + room.h / 2),
-          xScale: mmToPt(room.w / 2),
-          yScale: mmToPt(room.h / 2),
-          ...common,
-        });
-      else page.drawRectangle({ x: at.x(room.x), y: at.y(room.y + room.h), width: mmToPt(room.w), height: mmToPt(room.h), ...common });
-    }
-    // Each outline is written as PDF path operators (the same curve as the canvas and the SVG).
-    for (const s of strokes.filter((x) => x.panel === i)) {
-      const ops: PDFOperator[] = [pushGraphicsState()];
-      const alpha = strokeAlpha(s.tool);
-      if (alpha < 1) ops.push(setGraphicsState(tone ?? (tone = toneState(page, alpha))));
-      const v = greyLevel(s.grey);
-      ops.push(setFillingRgbColor(v, v, v));
-      traceOutline(
-        {
-          moveTo: (x, y) => ops.push(moveTo(at.x(x), at.y(y))),
-          quadraticCurveTo: (cx, cy, x, y) => ops.push(appendQuadraticCurve(at.x(cx), at.y(cy), at.x(x), at.y(y))),
-          closePath: () => ops.push(closePath()),
-        },
-        outlineOf(s),
+      const look = { ...ROOM_LOOK, graphicsState: sheet.opacity.name(page, 0.6) };
+      out.ops(
+        room.shape === 'ellipse'
+          ? drawEllipse({
+              x: at.x(room.x + room.w / 2),
+              y: at.y(room.y + room.h / 2),
+              xScale: mmToPt(room.w / 2),
+              yScale: mmToPt(room.h / 2),
+              ...look,
+            })
+          : box({ x: at.x(room.x), y: at.y(room.y + room.h), width: mmToPt(room.w), height: mmToPt(room.h), ...look }),
       );
-      ops.push(fill(), popGraphicsState());
-      page.pushOperators(...ops);
     }
-    page.pushOperators(popGraphicsState());
-    page.drawRectangle({
-      x: at.x(r.x),
-      y: at.y(r.y + r.h),
-      width: mmToPt(r.w),
-      height: mmToPt(r.h),
-      borderColor: rgb(0.55, 0.54, 0.51),
-      borderWidth: 0.5,
-    });
+    const inPanel = strokes.filter((x) => x.panel === i);
+    if (inPanel.length) {
+      out.text(`q ${strokeSpace(spec, height)}`);
+      writeStrokePaths(out, inPanel, toneState);
+      out.text('Q\n');
+    }
+    out.text('Q\n');
+    out.text(`q 0.55 0.54 0.51 RG 0.5 w ${rectPath(at.x(r.x), at.y(r.y + r.h), mmToPt(r.w), mmToPt(r.h))} S Q\n`);
   });
 }
 
-function centred(page: PDFPage, font: PDFFont, text: string, size: number, cx: number, y: number, color = rgb(0.16, 0.16, 0.18)) {
-  page.drawText(text, { x: cx - font.widthOfTextAtSize(text, size) / 2, y, size, font, color });
+const FONT_KEY = PDFName.of('QF0');
+/** An RGB fill for text, each 0…1. */
+type Grey3 = [number, number, number];
+
+/** One line of text, or the font's encoding of it. */
+function textAt(sheet: Sheet, font: PDFFont, text: string | PDFHexString, size: number, x: number, y: number, color: Grey3) {
+  sheet.page.node.setFontDictionary(FONT_KEY, font.ref);
+  const glyphs = typeof text === 'string' ? font.encodeText(text) : text;
+  const [r, g, b] = color;
+  sheet.out.text(`q BT ${r} ${g} ${b} rg ${FONT_KEY.toString()} ${size} Tf 1 0 0 1 ${pt(x)} ${pt(y)} Tm ${glyphs.toString()} Tj ET Q\n`);
+}
+
+function centred(sheet: Sheet, font: PDFFont, text: string, size: number, cx: number, y: number, color: Grey3 = [0.16, 0.16, 0.18]) {
+  textAt(sheet, font, text, size, cx - font.widthOfTextAtSize(text, size) / 2, y, color);
 }
 
 /** A scan's bytes for the PDF: PNG or JPEG (pdf-lib embeds no other kind). */
@@ -157,43 +309,45 @@ export async function reviewPdf(
   opts: { scans?: Map<string, ScanImage>; onPage?: (done: number) => void } = {},
 ): Promise<Uint8Array> {
   const { doc, font } = await newDoc(`${title} — review dummy`);
+  const opacity = new Opacities(doc);
   // Each scan is embedded once, however many pages place it.
-  const embedded = new Map<string, PDFImage>();
+  const embedded = new Map<string, { name: PDFName; image: PDFImage }>();
   const scanFor = async (uploadId: string) => {
     const known = embedded.get(uploadId);
     if (known) return known;
     const src = opts.scans?.get(uploadId);
     if (!src) return null;
     const image = src.format === 'png' ? await doc.embedPng(src.bytes) : await doc.embedJpg(src.bytes);
-    embedded.set(uploadId, image);
-    return image;
+    const placed = { name: PDFName.of(`QIm${embedded.size}`), image };
+    embedded.set(uploadId, placed);
+    return placed;
   };
   const boxes = pdfBoxes(spec);
   const [, , w, h] = boxes.media;
+  const safe = safeBox(spec);
+  const out = new ContentWriter();
+  // The note is the same on every page: laid out once (a space before it, so no glyph joins across).
+  const note = font.encodeText(PRINTER_NOTE).asString();
   for (const p of pages) {
     const page = doc.addPage([w, h]);
     page.setMediaBox(0, 0, w, h);
     page.setBleedBox(boxes.bleed[0], boxes.bleed[1], boxes.bleed[2] - boxes.bleed[0], boxes.bleed[3] - boxes.bleed[1]);
     page.setTrimBox(boxes.trim[0], boxes.trim[1], boxes.trim[2] - boxes.trim[0], boxes.trim[3] - boxes.trim[1]);
-    page.drawRectangle({ x: 0, y: 0, width: w, height: h, color: rgb(1, 1, 1) });
+    const sheet: Sheet = { page, out, opacity, at: placer(spec, h) };
+    sheet.out.text(`q 1 1 1 rg ${rectPath(0, 0, w, h)} f Q\n`);
     if (p.kind === 'gag') {
       const scans: PlacedScan[] = [];
       for (const l of p.lightboxes ?? []) {
         const image = l.visible ? await scanFor(l.uploadId) : null;
         if (image) scans.push({ lightbox: l, image });
       }
-      drawStrokes(page, spec, p.strokes ?? [], p.rooms ?? [], scans);
-    } else centred(page, font, p.label, 14, w / 2, h / 2, rgb(0.47, 0.46, 0.49));
-    const safe = safeBox(spec);
-    centred(page, font, String(p.number), 7, w / 2, boxes.trim[1] + mmToPt(safe.y) / 2 - 2.5);
+      drawPanels(sheet, spec, p.strokes ?? [], p.rooms ?? [], scans);
+    } else centred(sheet, font, p.label, 14, w / 2, h / 2, [0.47, 0.46, 0.49]);
+    centred(sheet, font, String(p.number), 7, w / 2, boxes.trim[1] + mmToPt(safe.y) / 2 - 2.5);
     // In the bleed, outside the trim: the page's name and the printer note (cut off when trimmed).
-    page.drawText(`${p.number} · ${p.kind === 'gag' ? p.label : p.label} · ${PRINTER_NOTE}`, {
-      x: 2,
-      y: 2,
-      size: 4,
-      font,
-      color: rgb(0.5, 0.5, 0.5),
-    });
+    const line = PDFHexString.of(font.encodeText(`${p.number} · ${p.label} · `).asString() + note);
+    textAt(sheet, font, line, 4, 2, 2, [0.5, 0.5, 0.5]);
+    sheet.out.finish(doc, page);
     opts.onPage?.(p.number);
   }
   return doc.save();
