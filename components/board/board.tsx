@@ -1,11 +1,11 @@
 'use client';
 // The board of one series: gags grouped by status (columns) or as a sortable
 // table, with a shared search and status filter.
-import { LayoutGrid, Search, Table2 } from 'lucide-react';
 import dynamic from 'next/dynamic';
 import Link from 'next/link';
 import { useCallback, useMemo, useState } from 'react';
 import { BeatGridMark } from '@/components/ui/beat-grid-mark';
+import { LoupeGlyph, PanelsGlyph, RowsGlyph } from '@/components/ui/board-glyphs';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { When } from '@/components/ui/when';
 import type { GagDto } from '@/db/queries/gags';
@@ -78,8 +78,8 @@ export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: 
         <div role="group" aria-label="View" className="inline-flex rounded-md border border-paper-edge bg-white p-0.5">
           {(
             [
-              ['board', 'Board', LayoutGrid],
-              ['table', 'Table', Table2],
+              ['board', 'Board', PanelsGlyph],
+              ['table', 'Table', RowsGlyph],
             ] as const
           ).map(([v, label, Icon]) => (
             <button
@@ -89,7 +89,7 @@ export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: 
               onClick={() => setView(v)}
               className={`inline-flex items-center gap-1.5 rounded px-3 py-1.5 text-sm font-bold ${view === v ? 'bg-ink text-white' : 'text-graphite-soft hover:bg-paper-deep'}`}
             >
-              <Icon aria-hidden className="h-4 w-4" /> {label}
+              <Icon className="h-4 w-4" /> {label}
             </button>
           ))}
         </div>
@@ -102,7 +102,7 @@ export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: 
           <label htmlFor="gag-search" className="mb-1 block text-sm font-bold text-graphite-soft">
             Search title and premise
           </label>
-          <Search aria-hidden className="pointer-events-none absolute bottom-2.5 left-2.5 h-4 w-4 text-graphite-faint" />
+          <LoupeGlyph className="pointer-events-none absolute bottom-2.5 left-2.5 h-4 w-4 text-graphite-faint" />
           <input
             id="gag-search"
             type="search"
