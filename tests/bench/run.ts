@@ -11,6 +11,7 @@ import { addEntry, createVolume, listEntries, moveEntry } from '@/db/queries/vol
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { openBrowser } from '../e2e/browser';
 import { liveFigures } from './live-bench';
+import { webFigures } from './web-bench';
 import { STROKES_A_PAGE, pdfFigures } from './pdf-bench';
 import { benchStrokes } from './strokes-fixture';
 
@@ -144,7 +145,7 @@ function row(
 async function main() {
   execFileSync('bash', [path.join(root, 'tests/ensure-tools.sh')], { stdio: 'inherit' });
   console.log('Quadrille bench — 5,000 strokes of 60 points, headless Chromium (software raster) and SQLite\n');
-  // `npm run bench -- --only pdf,server` runs just those groups of rows (client, server, pdf, live).
+  // `npm run bench -- --only pdf,server` runs just those groups of rows (client, server, pdf, live, web).
   const onlyArg = process.argv.findIndex((a) => a === '--only' || a.startsWith('--only='));
   const only = onlyArg < 0 ? null : (process.argv[onlyArg]!.split('=')[1] ?? process.argv[onlyArg + 1] ?? '').split(',');
   const pick = (group: string) => !only || only.includes(group);
@@ -152,6 +153,8 @@ async function main() {
   const s = pick('server') ? await serverFigures() : undefined;
   const p = pick('pdf') ? await pdfFigures() : undefined;
   const l = pick('live') ? await liveFigures() : undefined;
+  const w = pick('web') ? await webFigures() : undefined;
+  const kb = (n: number) => `${(n / 1000).toFixed(1)} kB`;
   const ms = (n: number) => `${n.toFixed(2)} ms`;
   const whole = (n: number) => `${Math.round(n)} ms`;
   const kept = (t: NonNullable<typeof l>['pg']) =>
@@ -224,6 +227,52 @@ async function main() {
         `${l.pg.perSecond.toFixed(0)}/s (2 instances) vs ${l.sqlite.perSecond.toFixed(0)}/s; PostgreSQL ${kept(l.pg)}, SQLite ${kept(l.sqlite)}`,
         '0.25',
         { atLeast: true, sound: l.pg.integrity.ok && l.sqlite.integrity.ok },
+      ),
+    w &&
+      row(
+        'Editor open, 5,000 strokes: navigation → all drawn ÷ floor (≤ 2)',
+        w.openMs / w.floorMs,
+        2,
+        `${whole(w.openMs)} (goal ≤ 1,500 ms${w.openMs > 1500 ? ', MISSED' : ''}) vs ${whole(w.floorMs)} decoding the stored bytes and rastering the panels in the same page; ${w.strokesShown} strokes shown`,
+        '2',
+        { sound: w.openMs <= 1500 && w.strokesShown === 5000 },
+      ),
+    w &&
+      row(
+        'Pass on the wire, packed ÷ JSON (5,000 strokes)',
+        w.packedBytes / w.jsonBytes,
+        1 / 3,
+        `${kb(w.packedBytes)} vs ${kb(w.jsonBytes)}, before HTTP compression`,
+        '1/3',
+      ),
+    ...(w
+      ? Object.entries(w.firstLoadJs).map(([page, bytes]) =>
+          row(
+            `First-load JS of the ${page} page, gzipped, kB (≤ 150)`,
+            bytes / 1000,
+            150,
+            `${bytes.toLocaleString('en')} B from the scripts its HTML loads`,
+            '150',
+          ),
+        )
+      : []),
+    w &&
+      row(
+        'GET /api/passes/:id (40 strokes) ÷ /api/health, req/s at 20 connections',
+        w.api.pass / w.api.health,
+        0.6,
+        `${w.api.pass.toFixed(0)}/s vs ${w.api.health.toFixed(0)}/s`,
+        '0.6',
+        { atLeast: true },
+      ),
+    w &&
+      row(
+        'GET /api/series/:id/gags ÷ /api/health, req/s at 20 connections',
+        w.api.gags / w.api.health,
+        0.6,
+        `${w.api.gags.toFixed(0)}/s vs ${w.api.health.toFixed(0)}/s`,
+        '0.6',
+        { atLeast: true },
       ),
   ];
   const ran = results.filter((r) => r !== undefined);
