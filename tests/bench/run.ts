@@ -248,8 +248,8 @@ async function main() {
     ...(w
       ? Object.entries(w.firstLoadJs).map(([page, bytes]) =>
           row(
-            `First-load JS of the ${page} page, gzipped, kB (≤ 150)`,
-            bytes / 1000,
+            `First-load JS of the ${page} page, gzipped, KB of 1,024 B (≤ 150)`,
+            bytes / 1024,
             150,
             `${bytes.toLocaleString('en')} B from the scripts its HTML loads`,
             '150',
