@@ -26,6 +26,9 @@ async function main(command: string | undefined, flags: string[]) {
   } finally {
     await db.destroy();
     await closeDb();
+    // The seed hashed the demo passwords in worker threads: let them go so the command ends.
+    const { closeHeavyPool } = await import('@/lib/workers/pool');
+    await closeHeavyPool();
   }
 }
 

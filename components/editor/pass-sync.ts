@@ -295,6 +295,7 @@ export class PassSync {
         }
       }
       const header = reader.finish();
+      performance.mark?.('quadrille:pass-read');
       if (this.stopped) return false;
       this.doc = docFrom(strokes, header.rooms, header.lightboxes);
       this.seq = header.seq;
@@ -305,6 +306,7 @@ export class PassSync {
       // Drawn as they came, the panels are already right unless local work changes them.
       const redraw = !opts.progressive || local.length > 0;
       this.emitDoc({ panels: redraw ? new Set([0, 1, 2, 3]) : new Set(), full: redraw, items: true });
+      performance.mark?.('quadrille:pass-drawn');
       return true;
     } catch {
       return false;

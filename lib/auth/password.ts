@@ -1,12 +1,12 @@
-// Password hashing with scrypt (node:crypto). scrypt runs on libuv's thread pool, so a sign-in's hash never holds
-// up the request thread. Parameters from the OWASP Password Storage Cheat Sheet (scrypt: N=2^15, r=8, p=3, one of
+// Password hashing with scrypt (node:crypto), run in the hashing worker threads (lib/workers/pool.ts), so a
+// sign-in's hash never holds up the request thread, and a burst of them does not fill libuv's thread pool. Parameters from the OWASP Password Storage Cheat Sheet (scrypt: N=2^15, r=8, p=3, one of
 // its equal-strength choices). A hash describes itself — `scrypt$N$r$p$salt$hash` (salt and hash in base64) — so
 // the parameters can rise later and old hashes still verify. The whole password counts (no 72-byte cut as in
 // bcrypt); it is NFKC-normalised first, so the same password typed on another keyboard or system matches
 // (NIST SP 800-63B 5.1.1.2). Hashes made by bcrypt before ($2a$, $2b$, $2y$) still verify, and a sign-in replaces
 // them (needsRehash).
-import { randomBytes, scrypt, timingSafeEqual } from 'node:crypto';
-import bcrypt from 'bcryptjs';
+import { randomBytes, timingSafeEqual } from 'node:crypto';
+import { bcryptInPool, scryptInPool } from '@/lib/workers/pool';
 
 /** OWASP Password Storage Cheat Sheet, scrypt: N=2^15 (CPU/memory cost), r=8 (block size), p=3 (parallelism). */
 export const SCRYPT_PARAMS = { N: 2 ** 15, r: 8, p: 3 } as const;
@@ -19,9 +19,7 @@ type Params = { N: number; r: number; p: number };
 const maxmemFor = ({ N, r, p }: Params) => 128 * r * (N + p + 2) + 1024 * 1024;
 
 function derive(plain: string, salt: Buffer, params: Params, length: number): Promise<Buffer> {
-  return new Promise((resolve, reject) =>
-    scrypt(plain.normalize('NFKC'), salt, length, { ...params, maxmem: maxmemFor(params) }, (err, key) => (err ? reject(err) : resolve(key))),
-  );
+  return scryptInPool({ plain: plain.normalize('NFKC'), salt, ...params, maxmem: maxmemFor(params), length });
 }
 
 export async function hashPassword(plain: string): Promise<string> {
@@ -55,7 +53,7 @@ export async function verifyPassword(plain: string, stored: string): Promise<boo
     const key = await derive(plain, parsed.salt, parsed.params, parsed.key.length);
     return timingSafeEqual(key, parsed.key);
   }
-  if (isBcrypt(stored)) return bcrypt.compare(plain, stored);
+  if (isBcrypt(stored)) return bcryptInPool(plain, stored);
   return false;
 }
 

@@ -28,7 +28,8 @@ export async function thumbnail(args: { passId: string; seriesId: string }) {
   const state = await passState(db, args.passId);
   if (!state) return null;
   const spec = await pageSpecForPass(db, args.seriesId, args.passId);
-  return { seq: state.seq, svg: passToSvg(spec, state.strokes, state.rooms, { bleed: false, title: `Pass ${state.number}` }) };
+  // As UTF-8 bytes, handed over without a copy: a big pass's SVG is tens of MB.
+  return sent(Buffer.from(passToSvg(spec, state.strokes, state.rooms, { bleed: false, title: `Pass ${state.number}` })));
 }
 
 export async function findings(args: { passId: string; seriesId: string }) {

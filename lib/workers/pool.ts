@@ -60,8 +60,42 @@ export async function runHeavy<N extends TaskName>(name: N, args: Parameters<Tas
 /** For tests and shutdown. */
 export async function closeHeavyPool(): Promise<void> {
   const p = holder.__quadrilleHeavyPool;
+  const h = hashHolder.__quadrilleHashPool;
   holder.__quadrilleHeavyPool = undefined;
-  await p?.close({ force: true });
+  hashHolder.__quadrilleHashPool = undefined;
+  await Promise.all([p?.close({ force: true }), h?.close({ force: true })]);
+}
+
+// Password hashing has a pool of its own, apart from the large jobs: a sign-in never waits behind a
+// PDF, is never refused for a full queue (the sign-in limits bound how many arrive), and a burst of
+// them takes at most these threads.
+const hashHolder = globalThis as unknown as { __quadrilleHashPool?: Piscina };
+
+function hashThreads(): number {
+  const set = Number(process.env.HASH_WORKERS);
+  return Number.isInteger(set) && set > 0 ? set : Math.max(1, Math.min(4, Math.floor(availableParallelism() / 2)));
+}
+
+function hashPool(): Piscina {
+  hashHolder.__quadrilleHashPool ??= new Piscina({
+    filename: path.join(process.cwd(), 'lib/workers/hash-worker.mjs'),
+    minThreads: 0,
+    maxThreads: hashThreads(),
+    idleTimeout: 30_000,
+  });
+  return hashHolder.__quadrilleHashPool;
+}
+
+export type ScryptJob = { plain: string; salt: Uint8Array; N: number; r: number; p: number; maxmem: number; length: number };
+
+/** scrypt in the hashing pool. */
+export async function scryptInPool(job: ScryptJob): Promise<Buffer> {
+  return Buffer.from((await hashPool().run(job, { name: 'scryptKey' })) as Uint8Array);
+}
+
+/** A bcrypt hash (from before scrypt) checked in the hashing pool. */
+export async function bcryptInPool(plain: string, hash: string): Promise<boolean> {
+  return (await hashPool().run({ plain, hash }, { name: 'bcryptCompare' })) as boolean;
 }
 
 /** How many tasks the pool has finished in this process (for tests: was a result computed or remembered?). */

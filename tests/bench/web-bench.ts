@@ -20,6 +20,8 @@ const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.len
 
 export type WebFigures = {
   openMs: number;
+  /** Where the last open's time went, ms since navigation: HTML, scripts, the pass's bytes asked and received, read (decoded, drawn as they came) and in the document. */
+  openParts: { html: number; scriptsDone: number; dataStart: number; dataEnd: number; read: number; drawn: number };
   floorMs: number;
   strokesShown: number;
   packedBytes: number;
@@ -94,6 +96,7 @@ export async function webFigures(): Promise<WebFigures> {
     const editorUrl = `${app.url}/series/demo-kettle-crab/gags/${GAG}/passes/${pass.number}`;
     const script = await floorScript();
     const opens: number[] = [];
+    let parts = { html: 0, scriptsDone: 0, dataStart: 0, dataEnd: 0, read: 0, drawn: 0 };
     const floors: number[] = [];
     let shown = 0;
     for (let i = 0; i < 4; i++) {
@@ -101,6 +104,20 @@ export async function webFigures(): Promise<WebFigures> {
       await page.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor({ timeout: 60_000 });
       if (i === 0) continue; // warm-up: server and browser caches, JIT
       opens.push(await page.evaluate(() => (window as { __loadedAt?: number }).__loadedAt!));
+      parts = await page.evaluate((passId) => {
+        const nav = performance.getEntriesByType('navigation')[0] as PerformanceNavigationTiming;
+        const data = performance.getEntriesByType('resource').find((r) => r.name.endsWith(`/api/passes/${passId}`)) as
+          PerformanceResourceTiming | undefined;
+        const scripts = performance.getEntriesByType('resource').filter((r) => (r as PerformanceResourceTiming).initiatorType === 'script');
+        return {
+          html: Math.round(nav.responseEnd),
+          scriptsDone: Math.round(Math.max(0, ...scripts.map((r) => (r as PerformanceResourceTiming).responseEnd))),
+          dataStart: Math.round(data?.startTime ?? -1),
+          dataEnd: Math.round(data?.responseEnd ?? -1),
+          read: Math.round(performance.getEntriesByName('quadrille:pass-read')[0]?.startTime ?? -1),
+          drawn: Math.round(performance.getEntriesByName('quadrille:pass-drawn')[0]?.startTime ?? -1),
+        };
+      }, pass.id);
       shown = Number(await page.getByTestId('sketch-canvas').getAttribute('data-stroke-count'));
       await page.addScriptTag({ content: script });
       const floor = await page.evaluate(
@@ -155,6 +172,7 @@ export async function webFigures(): Promise<WebFigures> {
         .byteLength;
     return {
       openMs: median(opens),
+      openParts: parts,
       floorMs: median(floors),
       strokesShown: shown,
       packedBytes: await bodyBytes(PASS_MEDIA_TYPE),

@@ -10,8 +10,8 @@ import { runHeavy } from '@/lib/workers/pool';
 type Params = { passId: string };
 const seriesOf = byPassId;
 
-type Drawn = { seq: number; svg: string } | null;
-const drawn = remembered<Drawn>({ maxBytes: 64 * 1024 * 1024, sizeOf: (d) => (d ? d.svg.length * 2 : 0) });
+type Drawn = Uint8Array | null;
+const drawn = remembered<Drawn>({ maxBytes: 64 * 1024 * 1024, sizeOf: (d) => d?.byteLength ?? 0 });
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params, seriesId }) => {
   const pass = await findPass(db, params.passId);
@@ -20,7 +20,7 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params,
   const key = `${params.passId}:${pass.seq}:${JSON.stringify(spec)}`;
   const result = await drawn.get(key, () => runHeavy('thumbnail', { passId: params.passId, seriesId }));
   if (!result) return new Response(null, { status: 404 });
-  return new Response(result.svg, {
+  return new Response(result as Uint8Array<ArrayBuffer>, {
     headers: { 'content-type': 'image/svg+xml; charset=utf-8', 'cache-control': 'private, max-age=0, must-revalidate' },
   });
 });

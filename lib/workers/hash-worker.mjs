@@ -1,0 +1,14 @@
+// The password hashing worker (lib/workers/pool.ts, runHash): scrypt and, for
+// hashes made before scrypt, bcrypt, run synchronously in this thread so that a
+// burst of sign-ins neither holds up the request thread nor fills libuv's small
+// thread pool, which file reads, compression and the rest of the server share.
+import { scryptSync } from 'node:crypto';
+import bcrypt from 'bcryptjs';
+
+export function scryptKey({ plain, salt, N, r, p, maxmem, length }) {
+  return scryptSync(plain, Buffer.from(salt), length, { N, r, p, maxmem });
+}
+
+export function bcryptCompare({ plain, hash }) {
+  return bcrypt.compareSync(plain, hash);
+}
