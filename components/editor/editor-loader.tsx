@@ -1,7 +1,9 @@
 'use client';
 // Konva needs a browser: the editor is loaded on the client only.
 import dynamic from 'next/dynamic';
+import { useEffect } from 'react';
 import { LiveProvider } from '@/components/live/live-provider';
+import { prefetchPass } from './pass-prefetch';
 import type { EditorProps } from './types';
 
 const Editor = dynamic(() => import('./editor'), {
@@ -15,6 +17,8 @@ const Editor = dynamic(() => import('./editor'), {
 
 /** The editor inside its pass's live stream (others' strokes, comments, who is on which panel). */
 export function EditorLoader(props: EditorProps) {
+  // The pass's strokes start coming while the editor's code is still loading.
+  useEffect(() => prefetchPass(props.passId), [props.passId]);
   return (
     <LiveProvider url={`/api/passes/${props.passId}/events`} gagId={props.gagId} where={`pass:${props.passNumber}`}>
       <Editor {...props} />

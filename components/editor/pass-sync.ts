@@ -6,7 +6,8 @@ import { nanoid } from 'nanoid';
 import { Outbox } from '@/lib/strokes/outbox';
 import { type PassDoc, applyDelta, applyOp, docFrom } from '@/lib/strokes/pass-model';
 import type { Lightbox, Op, Room, Stroke } from '@/lib/strokes/types';
-import { PASS_MEDIA_TYPE, PassReader } from '@/lib/strokes/wire';
+import { PassReader } from '@/lib/strokes/wire';
+import { passRequest, takePrefetched } from './pass-prefetch';
 
 export type SyncState = 'saved' | 'saving' | 'offline' | 'refused';
 export type SyncStatus = { state: SyncState; waiting: number; message: string | null };
@@ -277,7 +278,7 @@ export class PassSync {
     if (this.loading) return false;
     this.loading = true;
     try {
-      const res = await fetch(`/api/passes/${this.passId}`, { cache: 'no-store', headers: { accept: PASS_MEDIA_TYPE } });
+      const res = await ((opts.progressive && takePrefetched(this.passId)) || passRequest(this.passId));
       if (!res.ok || !res.body) return false;
       const reader = new PassReader();
       const strokes: Stroke[] = [];
