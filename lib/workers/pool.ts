@@ -2,7 +2,6 @@
 // lib/workers/heavy-worker.ts, so a 50,000-stroke thumbnail or a 120-page PDF
 // never holds up the requests behind it. Results that depend only on a pass's
 // seq are kept (see `remembered`), so the same picture is computed once.
-import 'server-only';
 import { availableParallelism } from 'node:os';
 import path from 'node:path';
 import { SHARE_ENV } from 'node:worker_threads';
