@@ -3,6 +3,7 @@
 // pass's SVG, its readability findings, and the volume PDFs. Each task reads
 // what it needs through its own database connection (the process environment
 // is shared with the worker) and answers plain data.
+import { gzipSync } from 'node:zlib';
 import { move } from 'piscina';
 import { getDb } from '@/db/client';
 import { findGag } from '@/db/queries/gags';
@@ -28,8 +29,9 @@ export async function thumbnail(args: { passId: string; seriesId: string }) {
   const state = await passState(db, args.passId);
   if (!state) return null;
   const spec = await pageSpecForPass(db, args.seriesId, args.passId);
-  // As UTF-8 bytes, handed over without a copy: a big pass's SVG is tens of MB.
-  return sent(Buffer.from(passToSvg(spec, state.strokes, state.rooms, { bleed: false, title: `Pass ${state.number}` })));
+  // Gzipped here and handed over without a copy: a big pass's SVG is tens of MB, and the request thread
+  // then only passes a tenth of that to the socket, with no compressing of its own.
+  return sent(gzipSync(passToSvg(spec, state.strokes, state.rooms, { bleed: false, title: `Pass ${state.number}` })));
 }
 
 export async function findings(args: { passId: string; seriesId: string }) {
