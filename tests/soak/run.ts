@@ -31,12 +31,6 @@ const lines: Line[] = fs
 
 const sum = (key: string) => lines.reduce((n, l) => n + (typeof l.figures[key] === 'number' ? (l.figures[key] as number) : 0), 0);
 const first = (key: string) => lines.find((l) => l.figures[key] !== undefined)?.figures[key];
-const memory = lines.flatMap((l) =>
-  Object.entries(l.figures)
-    .filter(([k, v]) => /memory/.test(k) || (typeof v === 'string' && /memory \+/.test(v)))
-    .map(([k, v]) => `${k}: ${v}`),
-);
-
 console.log(`\n## Soak summary (${new Date().toISOString().slice(0, 10)}, ${minutes} min, vitest exit ${run.status})\n`);
 console.log('| figure | value |');
 console.log('|---|---|');
@@ -48,7 +42,12 @@ console.log(
 );
 console.log(`| kill -9 while writing; integrity_check | ${sum('kill -9 of a process')}; ${first('integrity_check') ?? '—'} |`);
 console.log(`| /api/health p99 under heavy requests | ${first('health p99 (ms)') ?? '—'} ms (p50 ${first('health p50 (ms)') ?? '—'} ms) |`);
-for (const m of memory) console.log(`| ${m.split(': ')[0]} | ${m.split(': ').slice(1).join(': ')} |`);
+console.log(
+  `| bodies over their limit (JSON, sign-in, upload; declared and chunked) | 413 at most ${first('slowest 413 after the limit (ms)') ?? '—'} ms after the limit; server memory +${first('largest memory growth while refusing (MB)') ?? '—'} MB at most |`,
+);
+console.log(
+  `| memory growth of a process that served the writers (kill -9 survivor) | ${first('memory growth of the surviving process (MB)') ?? '—'} MB |`,
+);
 console.log('\n### Each suite\n');
 for (const l of lines) {
   console.log(
