@@ -28,8 +28,14 @@ export function sqlitePathFromUrl(url: string): string {
   return path.resolve(raw);
 }
 
-/** Opens SQLite with the pragmas that make an acknowledged write durable. */
-export function openSqlite(file: string): SqliteDatabase.Database {
+/** Opens SQLite with the pragmas that make an acknowledged write durable; read-only for a reader beside the app. */
+export function openSqlite(file: string, opts: { readOnly?: boolean } = {}): SqliteDatabase.Database {
+  if (opts.readOnly) {
+    // A reader takes no lock a writer would wait for, and never migrates: the file is the app's, already set up.
+    const reader = new SqliteDatabase(file, { readonly: true, fileMustExist: true });
+    reader.pragma('busy_timeout = 5000');
+    return reader;
+  }
   fs.mkdirSync(path.dirname(file), { recursive: true });
   const sqlite = new SqliteDatabase(file);
   sqlite.pragma('journal_mode = WAL');
@@ -71,17 +77,18 @@ class MarkedPostgresDialect extends PostgresDialect {
 pg.types.setTypeParser(pg.types.builtins.INT8, (v) => Number(v));
 pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
 
-export function createPgPool(url: string): pg.Pool {
-  const pool = new pg.Pool({ connectionString: url, max: Number(process.env.DATABASE_POOL_SIZE || 10) });
+export function createPgPool(url: string, max = Number(process.env.DATABASE_POOL_SIZE || 10)): pg.Pool {
+  const pool = new pg.Pool({ connectionString: url, max });
   // An idle client that loses its server must not crash the process; the next query reconnects.
   pool.on('error', (err) => console.error('[db] idle PostgreSQL client error:', err.message));
   return pool;
 }
 
-export function createDb(url = process.env.DATABASE_URL || DEFAULT_DATABASE_URL): Kysely<Database> {
+/** `readOnly`: a connection for the worker threads' reads (SQLite read-only, a pool of two on PostgreSQL). */
+export function createDb(url = process.env.DATABASE_URL || DEFAULT_DATABASE_URL, opts: { readOnly?: boolean } = {}): Kysely<Database> {
   const dialect = isPostgresUrl(url)
-    ? new MarkedPostgresDialect({ pool: createPgPool(url) })
-    : new ImmediateSqliteDialect({ database: openSqlite(sqlitePathFromUrl(url)) });
+    ? new MarkedPostgresDialect({ pool: createPgPool(url, opts.readOnly ? 2 : undefined) })
+    : new ImmediateSqliteDialect({ database: openSqlite(sqlitePathFromUrl(url), opts) });
   return new Kysely<Database>({ dialect, plugins: [new CamelCasePlugin()] });
 }
 

@@ -5,7 +5,9 @@
 // is shared with the worker) and answers plain data.
 import { gzipSync } from 'node:zlib';
 import { move } from 'piscina';
-import { getDb } from '@/db/client';
+import type { Kysely } from 'kysely';
+import { DEFAULT_DATABASE_URL, createDb } from '@/db/client';
+import type { Database } from '@/db/database';
 import { findGag } from '@/db/queries/gags';
 import { listPasses, liveStrokesOfPasses, passState } from '@/db/queries/passes';
 import { ROOMS, liveItemsOfPasses } from '@/db/queries/pass-items';
@@ -15,6 +17,21 @@ import { reviewPdf as buildReviewPdf, type Paper, templatesPdf as buildTemplates
 import { gagNotes, scanImages, volumePages } from '@/lib/export/volume-export';
 import { computeFindings } from '@/lib/review/findings';
 import { passToSvg } from '@/lib/strokes/svg';
+
+let reader: { url: string; db: Kysely<Database> } | undefined;
+
+/**
+ * This thread's own connection, for reading only: it never migrates (the app did at start) and takes no
+ * write lock, so a worker slowed by its low priority can never hold up a writer on the request thread.
+ */
+async function getDb(): Promise<Kysely<Database>> {
+  const url = process.env.DATABASE_URL || DEFAULT_DATABASE_URL;
+  if (!reader || reader.url !== url) {
+    void reader?.db.destroy();
+    reader = { url, db: createDb(url, { readOnly: true }) };
+  }
+  return reader.db;
+}
 
 /** Hands the bytes to the request thread without copying them. */
 const sent = (bytes: Uint8Array) => move(bytes) as unknown as Uint8Array;
