@@ -5,7 +5,8 @@
 import type { Kysely } from 'kysely';
 import sharp from 'sharp';
 import type { Database } from '@/db/database';
-import { applyBatch, findPass } from '@/db/queries/passes';
+import { findPass } from '@/db/queries/passes';
+import { applyBatch } from '@/db/queries/batches';
 import { pageSpecOf } from '@/db/queries/series';
 import { DEMO_SERIES_ID } from './demo-data';
 

@@ -48,7 +48,8 @@ import * as templatesPdfRoute from '@/app/api/volumes/[volumeId]/export/template
 import * as csvRoute from '@/app/api/volumes/[volumeId]/export/running-order.csv/route';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
-import { applyBatch, createPass } from '@/db/queries/passes';
+import { createPass } from '@/db/queries/passes';
+import { applyBatch } from '@/db/queries/batches';
 import { checklistItems } from '@/db/queries/review';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { callRoute } from '../support/call-route';

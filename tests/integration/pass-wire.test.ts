@@ -3,7 +3,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import * as passesRoute from '@/app/api/gags/[gagId]/passes/route';
 import * as passRoute from '@/app/api/passes/[passId]/route';
-import { applyBatch } from '@/db/queries/passes';
+import { applyBatch } from '@/db/queries/batches';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { PASS_MEDIA_TYPE, PassReader } from '@/lib/strokes/wire';
 import { benchStrokes } from '../bench/strokes-fixture';

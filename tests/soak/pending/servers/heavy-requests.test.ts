@@ -6,7 +6,8 @@
 // in `npm test` (e2e) and the soak; until then `SOAK_PENDING=1 npx vitest run --project e2e tests/soak/pending`.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
-import { applyBatch, createPass } from '@/db/queries/passes';
+import { createPass } from '@/db/queries/passes';
+import { applyBatch } from '@/db/queries/batches';
 import { DEMO_PASSWORD } from '@/db/seed/demo-data';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { benchStrokes } from '../../../bench/strokes-fixture';

@@ -1,5 +1,5 @@
 // Receives a batch of editor operations; applies it in one transaction, once.
-import { applyBatch } from '@/db/queries/passes';
+import { applyBatch } from '@/db/queries/batches';
 import { pageSpecForPass } from '@/db/queries/series';
 import { Refused, withSeriesRole } from '@/lib/http/route';
 import { MAX_BATCH_BYTES } from '@/lib/strokes/types';
