@@ -11,6 +11,7 @@ import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
 import { PASS_MEDIA_TYPE } from '@/lib/strokes/wire';
 import { openBrowser, signIn } from '../e2e/browser';
 import { type Instance, ROOT, ensureBuild, seed, startInstance } from '../support/instances';
+import { passFilledFrom } from '../support/heavy-pass';
 import { benchStrokes } from './strokes-fixture';
 
 const DIST = '.next-test';
@@ -75,24 +76,7 @@ export async function webFigures(): Promise<WebFigures> {
       }).observe(document, { subtree: true, childList: true, attributes: true, attributeFilter: ['data-loaded'] });
     });
     await signIn(page, app.url, 'cocreator@quadrille.test');
-    const pass = await page.evaluate(async (gagId) => {
-      const res = await fetch(`/api/gags/${gagId}/passes`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
-      return (await res.json()) as { id: string; number: number };
-    }, GAG);
-    const strokes = benchStrokes(N);
-    for (let i = 0; i < N; i += 250) {
-      await page.evaluate(
-        async ({ passId, batchId, ops }) => {
-          const res = await fetch(`/api/passes/${passId}/ops`, {
-            method: 'POST',
-            headers: { 'content-type': 'application/json' },
-            body: JSON.stringify({ batchId, ops }),
-          });
-          if (!res.ok) throw new Error(`batch ${batchId}: HTTP ${res.status}`);
-        },
-        { passId: pass.id, batchId: `bench-${i}`, ops: strokes.slice(i, i + 250).map((stroke) => ({ op: 'add', stroke })) },
-      );
-    }
+    const pass = await passFilledFrom(page, GAG, benchStrokes(N), 'bench');
     const editorUrl = `${app.url}/series/demo-kettle-crab/gags/${GAG}/passes/${pass.number}`;
     const script = await floorScript();
     const opens: number[] = [];

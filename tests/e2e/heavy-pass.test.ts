@@ -5,6 +5,7 @@
 import sharp from 'sharp';
 import { describe, expect, inject, it } from 'vitest';
 import { benchStrokes } from '../bench/strokes-fixture';
+import { passFilledFrom } from '../support/heavy-pass';
 import { signIn } from './browser';
 import { usePage } from './page-fixture';
 
@@ -18,25 +19,8 @@ describe('a heavy pass', () => {
     await signIn(page, baseUrl, 'cocreator@quadrille.test');
     // Post from a page that follows nothing live (the gag page would redraw its cards after every batch).
     await page.goto(`${baseUrl}/series`);
-    const pass = await page.evaluate(async (gagId) => {
-      const res = await fetch(`/api/gags/${gagId}/passes`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
-      return (await res.json()) as { id: string; number: number };
-    }, GAG);
-    const strokes = benchStrokes(N);
-    for (let i = 0; i < N; i += 250) {
-      const status = await page.evaluate(
-        async ({ passId, batchId, ops }) =>
-          (
-            await fetch(`/api/passes/${passId}/ops`, {
-              method: 'POST',
-              headers: { 'content-type': 'application/json' },
-              body: JSON.stringify({ batchId, ops }),
-            })
-          ).status,
-        { passId: pass.id, batchId: `heavy-${i}`, ops: strokes.slice(i, i + 250).map((stroke) => ({ op: 'add', stroke })) },
-      );
-      expect(status).toBe(200);
-    }
+    // Every batch must be accepted (the helper throws on any other answer).
+    const pass = await passFilledFrom(page, GAG, benchStrokes(N), 'heavy');
 
     await page.goto(`${baseUrl}/series/demo-kettle-crab/gags/${GAG}/passes/${pass.number}`);
     const canvas = page.locator('[data-testid="sketch-canvas"][data-loaded="true"]');
