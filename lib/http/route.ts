@@ -11,6 +11,7 @@ import type { Action, Role } from '@/lib/auth/permissions';
 import { type SessionUser, userFromRequest } from '@/lib/auth/session';
 import { Refused } from '@/lib/refused';
 import { readTextCapped } from './body';
+import { sized } from './sized';
 
 export { Refused };
 
@@ -75,6 +76,10 @@ export function sameSite(req: Request): boolean {
 }
 
 async function run(fn: () => Promise<Response>): Promise<Response> {
+  return sized(await answer(fn));
+}
+
+async function answer(fn: () => Promise<Response>): Promise<Response> {
   try {
     return await fn();
   } catch (err) {

@@ -78,22 +78,34 @@ export async function startInstance(opts: {
   const port = opts.port ?? (await freePort());
   const url = `http://127.0.0.1:${port}`;
   let output = '';
-  const server = spawn(process.execPath, [NEXT_BIN, 'start', '-H', '127.0.0.1', '-p', String(port)], {
-    cwd: ROOT,
-    env: {
-      ...process.env,
-      NEXT_TELEMETRY_DISABLED: '1',
-      NEXT_DIST_DIR: opts.distDir,
-      NODE_ENV: 'production',
-      DATABASE_URL: opts.databaseUrl,
-      NEXTAUTH_URL: opts.publicUrl ?? url,
-      NEXTAUTH_SECRET: 'multi-instance-test-secret-shared-by-all',
-      MAIL_FAKE: 'off',
-      ...opts.env,
+  const server = spawn(
+    process.execPath,
+    [
+      ...(process.env.CPU_PROF_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.CPU_PROF_DIR}`] : []),
+      NEXT_BIN,
+      'start',
+      '-H',
+      '127.0.0.1',
+      '-p',
+      String(port),
+    ],
+    {
+      cwd: ROOT,
+      env: {
+        ...process.env,
+        NEXT_TELEMETRY_DISABLED: '1',
+        NEXT_DIST_DIR: opts.distDir,
+        NODE_ENV: 'production',
+        DATABASE_URL: opts.databaseUrl,
+        NEXTAUTH_URL: opts.publicUrl ?? url,
+        NEXTAUTH_SECRET: 'multi-instance-test-secret-shared-by-all',
+        MAIL_FAKE: 'off',
+        ...opts.env,
+      },
+      detached: true, // its own process group: kill() stops next-server too
+      stdio: ['ignore', 'pipe', 'pipe'],
     },
-    detached: true, // its own process group: kill() stops next-server too
-    stdio: ['ignore', 'pipe', 'pipe'],
-  });
+  );
   server.stdout?.on('data', (d) => (output += d));
   server.stderr?.on('data', (d) => (output += d));
   await waitForHealth(url, server, () => output);

@@ -1,4 +1,5 @@
 import { dbKind, getDb, ping } from '@/db/client';
+import { sized } from '@/lib/http/sized';
 
 export const dynamic = 'force-dynamic';
 
@@ -6,8 +7,8 @@ export async function GET() {
   try {
     const db = await getDb();
     await ping(db);
-    return Response.json({ ok: true, db: dbKind() });
+    return sized(Response.json({ ok: true, db: dbKind() }));
   } catch {
-    return Response.json({ ok: false, db: dbKind() }, { status: 503 });
+    return sized(Response.json({ ok: false, db: dbKind() }, { status: 503 }));
   }
 }

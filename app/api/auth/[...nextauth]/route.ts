@@ -9,6 +9,8 @@ import { clientAddress } from '@/lib/auth/client-address';
 import { SIGN_IN_REFUSALS, authOptions } from '@/lib/auth/options';
 import { WINDOW_MS, isClientThrottled, isThrottled } from '@/lib/auth/throttle';
 import { readTextCapped } from '@/lib/http/body';
+import { bulkhead } from '@/lib/http/bulkhead';
+import { sized } from '@/lib/http/sized';
 import { Refused } from '@/lib/refused';
 import { email as emailSchema } from '@/lib/validation/account';
 
@@ -37,17 +39,27 @@ function tooMany(req: NextRequest, code: string, error: string): Response {
 }
 
 export async function GET(req: NextRequest, ctx: Ctx) {
-  return handler(req, ctx);
+  return sized(await handler(req, ctx));
 }
 
+/**
+ * next-auth's forms are handled a few at a time (lib/http/bulkhead.ts): a burst of sign-ins, even ones
+ * refused 429 before any password check, costs the event loop a few ms each, and other requests must
+ * not wait behind all of them.
+ */
+const forms = bulkhead({ concurrent: 4, waiting: 256, what: 'sign-ins' });
+
 export async function POST(incoming: NextRequest, ctx: Ctx) {
-  let text: string;
   try {
-    text = await readTextCapped(incoming, MAX_AUTH_BODY_BYTES);
+    return await sized(await forms.run(() => handleForm(incoming, ctx)));
   } catch (err) {
-    if (err instanceof Refused) return Response.json({ error: err.message }, { status: err.status });
+    if (err instanceof Refused) return sized(Response.json({ error: err.message }, { status: err.status, headers: err.headers }));
     throw err;
   }
+}
+
+async function handleForm(incoming: NextRequest, ctx: Ctx) {
+  const text = await readTextCapped(incoming, MAX_AUTH_BODY_BYTES);
   // next-auth reads the body itself: hand it the bytes already read, and nothing more.
   const req = new NextRequest(incoming.url, { method: 'POST', headers: incoming.headers, body: text });
   if (req.nextUrl.pathname.endsWith('/callback/credentials')) {
