@@ -26,6 +26,16 @@ describe('a heavy pass', () => {
     const canvas = page.locator('[data-testid="sketch-canvas"][data-loaded="true"]');
     await canvas.waitFor({ timeout: 30_000 });
     expect(Number(await canvas.getAttribute('data-stroke-count'))).toBe(N);
+    // The strokes were read once, by the script in the page's HTML, before the editor's code arrived:
+    // the editor took that read rather than asking again.
+    const reads = await page.evaluate((id) => {
+      const all = performance.getEntriesByType('resource') as PerformanceResourceTiming[];
+      const editorCode = all.filter((r) => r.initiatorType === 'script').map((r) => r.responseEnd);
+      const pass = all.filter((r) => new URL(r.name).pathname === `/api/passes/${id}` && !new URL(r.name).search);
+      return { count: pass.length, startedAt: pass[0]?.startTime ?? -1, lastScriptAt: Math.max(...editorCode) };
+    }, pass.id);
+    expect(reads.count).toBe(1);
+    expect(reads.startedAt).toBeLessThan(reads.lastScriptAt);
 
     // The page as shown: each panel's quarter of the page holds a good share of dark pixels.
     const shot = await page.getByTestId('sketch-canvas').screenshot();

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { EditorLoader } from '@/components/editor/editor-loader';
+import { PassEarlyRead } from '@/components/editor/pass-early-read';
 import { can } from '@/lib/auth/permissions';
 import { loadPassEditor } from '@/lib/data/studio';
 
@@ -13,6 +14,7 @@ export default async function PassEditorPage({ params }: { params: Promise<{ ser
   const canDraw = can(role, 'edit');
   return (
     <div className="space-y-2">
+      <PassEarlyRead passId={pass.id} />
       <nav aria-label="Passes" className="flex flex-wrap items-center gap-2 text-sm">
         <Link href={`/series/${series.id}`} className="text-graphite-faint hover:underline">
           {series.title}
