@@ -26,6 +26,7 @@ import { SelectionBar } from './selection-bar';
 import { EditorToolbar } from './toolbar';
 import type { EditorProps } from './types';
 import { ERASER_RADIUS_PX, type Guides, PEN_SIZES, TONE_SIZES, type Tool, stepSize, toolAllowed } from './tools';
+import { ApprovalNote, useApproval } from './use-approval';
 import { useEditorKeys } from './use-editor-keys';
 import { useLightboxArranging } from './use-lightbox-arranging';
 import { usePassSession } from './use-pass-session';
@@ -59,7 +60,9 @@ export default function Editor(props: EditorProps) {
   const [pointPin, setPointPin] = useState<PointPin | null>(null);
   const [highlight, setHighlight] = useState(true);
 
-  const session = usePassSession({ passId: props.passId, canDraw, spec, pxPerMm: () => 3 });
+  const approved = useApproval({ ...props, tool, wrapRef });
+  // The bitmaps' first resolution is the fitted view's (use-view fits the page before effects run).
+  const session = usePassSession({ passId: props.passId, canDraw, spec, pxPerMm: () => v.viewRef.current.scale, gate: approved.gateRef });
   const v = useView({ wrapRef, bleed, onSettled: session.rescale });
   const selection = useSelection({ session, panels });
   const arranging = useLightboxArranging({ seriesId: props.seriesId, session, bleed, panels });
@@ -216,6 +219,7 @@ export default function Editor(props: EditorProps) {
         }
         canvas={
           <>
+            <ApprovalNote approval={approved.approval} locked={approved.locked} />
             <SelectionBar
               status={session.status}
               canDraw={canDraw}
@@ -296,6 +300,7 @@ export default function Editor(props: EditorProps) {
         }
       />
       <HelpSheet open={helpOpen} onClose={() => setHelpOpen(false)} />
+      {approved.dialog}
     </>
   );
 }

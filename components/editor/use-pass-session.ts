@@ -4,7 +4,7 @@
 // lightboxes, counts, the save status); committing operations and the person's
 // own undo history. Drawing never redraws the whole pass (see PanelRasters).
 import type Konva from 'konva';
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { type RefObject, useCallback, useEffect, useRef, useState } from 'react';
 import { useLive, useLiveEvents } from '@/hooks/use-live';
 import type { PageSpec } from '@/lib/print/geometry';
 import { strokesOfPanel } from '@/lib/strokes/pass-model';
@@ -17,7 +17,15 @@ import { UndoStack, type UndoEntry } from './undo';
  * The pass's life in the editor. Its strokes are read after the page loads (packed, drawn panel by
  * panel as they arrive); `loaded` says when all of them are in.
  */
-export function usePassSession(opts: { passId: string; canDraw: boolean; spec: PageSpec; pxPerMm: () => number }) {
+export function usePassSession(opts: {
+  passId: string;
+  canDraw: boolean;
+  spec: PageSpec;
+  pxPerMm: () => number;
+  /** Asked before a change made through `commit` or undo/redo (an approved pass asks first: use-approval). */
+  gate?: RefObject<(change: () => void) => void>;
+}) {
+  const gate = opts.gate;
   const syncRef = useRef<PassSync | null>(null);
   // Plain canvases with no life of their own, so made once while rendering (the editor runs in the browser only).
   const [rasters] = useState(() => new PanelRasters(opts.spec));
@@ -83,13 +91,17 @@ export function usePassSession(opts: { passId: string; canDraw: boolean; spec: P
   /** Applies operations now and queues them; `undo` records them in the person's history. */
   const commit = useCallback(
     (ops: Op[], undo?: UndoEntry) => {
-      syncRef.current?.commit(ops);
-      if (undo) {
-        undoStack.current.push(undo);
-        refreshUndo();
-      }
+      const change = () => {
+        syncRef.current?.commit(ops);
+        if (undo) {
+          undoStack.current.push(undo);
+          refreshUndo();
+        }
+      };
+      if (gate?.current) gate.current(change);
+      else change();
     },
-    [refreshUndo],
+    [gate, refreshUndo],
   );
 
   /** A stroke under the pen just ended: into its panel's bitmap only, O(1) whatever the pass holds. */
@@ -131,11 +143,15 @@ export function usePassSession(opts: { passId: string; canDraw: boolean; spec: P
 
   const runUndo = useCallback(
     (which: 'undo' | 'redo') => {
-      const ops = which === 'undo' ? undoStack.current.undo() : undoStack.current.redo();
-      if (ops) syncRef.current?.commit(ops);
-      refreshUndo();
+      const change = () => {
+        const ops = which === 'undo' ? undoStack.current.undo() : undoStack.current.redo();
+        if (ops) syncRef.current?.commit(ops);
+        refreshUndo();
+      };
+      if (gate?.current) gate.current(change);
+      else change();
     },
-    [refreshUndo],
+    [gate, refreshUndo],
   );
 
   /** Re-rasters every panel at a new resolution (after a zoom settles). */

@@ -82,7 +82,16 @@ describe('review loop', () => {
     await page2.goto(`${GAG}/passes/2`);
     const canvas = page2.getByTestId('sketch-canvas');
     await page2.locator('[data-testid="sketch-canvas"][data-loaded="true"]').waitFor();
+    // The editor says the pass is approved, and the first change asks first.
+    await expect
+      .poll(async () => page2.getByTestId('approval-note').textContent())
+      .toMatch(/Approved: ready to ink\. Ivo Sand stamped pass 2 on .*, at revision \d+/);
     const b = (await canvas.boundingBox())!;
+    const shown = await canvas.getAttribute('data-stroke-count');
+    await page2.mouse.click(b.x + b.width * 0.3, b.y + b.height * 0.7);
+    await page2.getByRole('dialog', { name: 'Pass 2 is approved' }).waitFor();
+    expect(await canvas.getAttribute('data-stroke-count')).toBe(shown);
+    await page2.getByRole('button', { name: 'Change this pass, clear the approval' }).click();
     await page2.mouse.move(b.x + b.width * 0.3, b.y + b.height * 0.7);
     await page2.mouse.down();
     for (let i = 1; i <= 8; i++) await page2.mouse.move(b.x + b.width * 0.3 + i * 6, b.y + b.height * 0.7 + i * 2);
