@@ -1,12 +1,13 @@
 // The editor's stamp on a pass: "ready to ink" names the exact pass and its
-// sequence number; any later change to that pass clears it and puts the gag
-// back "in review".
+// sequence number; any later change to that pass clears it, and the gag's status
+// follows lib/gags/status.ts afterStampCleared (back "in review" from "ready to ink").
 import { randomUUID } from 'node:crypto';
 import type { Kysely, Transaction } from 'kysely';
 import type { Database, StampDecision } from '../database';
 import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 import { passWithGag } from './pass-info';
+import { afterStampCleared } from '@/lib/gags/status';
 import { Refused } from '@/lib/refused';
 
 type Db = Kysely<Database> | Transaction<Database>;
@@ -157,8 +158,9 @@ export async function clearStampOnChange(trx: Transaction<Database>, passId: str
     .select(['g.id', 'g.status', 'g.seriesId', 'g.title', 'p.number'])
     .where('p.id', '=', passId)
     .executeTakeFirstOrThrow();
-  if (gag.status === 'ready_to_ink') {
-    await trx.updateTable('gags').set({ status: 'in_review', updatedAt: now }).where('id', '=', gag.id).execute();
+  const after = afterStampCleared(gag.status);
+  if (after.status !== gag.status) {
+    await trx.updateTable('gags').set({ status: after.status, updatedAt: now }).where('id', '=', gag.id).execute();
   }
   await recordActivity(trx, {
     seriesId: gag.seriesId,
@@ -166,7 +168,7 @@ export async function clearStampOnChange(trx: Transaction<Database>, passId: str
     passId,
     userId,
     kind: 'stamp.cleared',
-    summary: `changed pass ${gag.number} of “${gag.title}” after its “ready to ink” stamp: the stamp is cleared and the gag is back in review`,
+    summary: `changed pass ${gag.number} of “${gag.title}” after its “ready to ink” stamp: the stamp is cleared and ${after.says}`,
   });
   return true;
 }

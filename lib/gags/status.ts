@@ -67,3 +67,19 @@ export function checkManualMove(from: GagStatus, to: GagStatus, ctx: { readyStam
     reason: `A gag cannot move from "${STATUS_LABELS[from]}" to "${STATUS_LABELS[to]}". From "${STATUS_LABELS[from]}" it can go to: ${MANUAL_MOVES[from].map((s) => `"${STATUS_LABELS[s]}"`).join(', ')}.`,
   };
 }
+
+/**
+ * What a cleared "ready to ink" stamp (someone changed the approved pass) does to the gag, in one
+ * place for the status and the activity line that reports it:
+ * - "ready to ink" goes back to "in review": what was approved is no longer what the pass shows;
+ * - "inked", "scanned" and "placed" stay: the page on paper exists whatever the rough does now,
+ *   and the line says so rather than claiming the gag is back in review;
+ * - the drafting statuses stay as they are.
+ */
+export function afterStampCleared(status: GagStatus): { status: GagStatus; says: string } {
+  if (status === 'ready_to_ink') return { status: 'in_review', says: 'the gag is back in review' };
+  if (status === 'inked' || status === 'scanned' || status === 'placed') {
+    return { status, says: `the gag stays “${STATUS_LABELS[status]}”: its inked page is not affected` };
+  }
+  return { status, says: `the gag stays “${STATUS_LABELS[status]}”` };
+}

@@ -80,6 +80,26 @@ describe('the stamp', () => {
     expect(feed.body.items[0]).toMatchObject({ kind: 'stamp.cleared', by: 'Tam Quill' });
   });
 
+  it('after a clearing, a gag already on paper keeps its status and the activity says so (one rule: afterStampCleared)', async () => {
+    const gagId = 'demo-gag-11';
+    const passId = await gagWithPass(gagId);
+    await stamp(passId, 'editor', 'ready');
+    const patch = (status: string) => callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { gagId }, body: { status } });
+    expect((await patch('inked')).status).toBe(200);
+    expect((await patch('scanned')).status).toBe(200);
+    await callRoute(opsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { passId },
+      body: { batchId: 'after-scan', ops: [{ op: 'add', stroke: line('late-scan') }] },
+    });
+    expect(await gagStatus(gagId)).toBe('scanned');
+    const feed = await callRoute(activityRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } });
+    const cleared = feed.body.items.find((i: { kind: string; summary: string }) => i.kind === 'stamp.cleared' && i.summary.includes('Scanned'));
+    expect(cleared?.summary).toMatch(/the stamp is cleared and the gag stays “Scanned”/);
+    expect(cleared?.summary).not.toMatch(/back in review/);
+  });
+
   it('a restore is a change too', async () => {
     const passId = await gagWithPass('demo-gag-09');
     const [created] = (await listRevisions(db, passId)).filter((r) => r.reason === 'created');
