@@ -32,6 +32,7 @@ export function CanvasSurface(p: {
       data-testid="sketch-canvas"
       data-stroke-count={v.counts.strokes}
       data-loaded={v.loaded ? 'true' : 'false'}
+      data-px-per-mm={v.view.scale}
       aria-busy={!v.loaded}
       data-room-count={v.counts.rooms}
       data-lightbox-count={v.counts.lightboxes}

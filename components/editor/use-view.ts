@@ -2,7 +2,7 @@
 // Where the page sits on screen: the canvas size (followed with a ResizeObserver),
 // the view transform (zoom and pan), fitting the page, and a re-raster of the
 // stroke bitmaps once a zoom has settled.
-import { type RefObject, useCallback, useEffect, useRef, useState } from 'react';
+import { type RefObject, useCallback, useEffect, useLayoutEffect, useRef, useState } from 'react';
 import type { Rect } from '@/lib/print/geometry';
 import { type View, fitView, zoomAt } from '@/lib/print/view';
 
@@ -32,6 +32,17 @@ export function useView(o: { wrapRef: RefObject<HTMLDivElement | null>; bleed: R
   });
 
   const { wrapRef, bleed } = o;
+  // The page is fitted before any effect runs, so the pass's strokes (which may all be here at once,
+  // read while the page loaded) are rastered once, at the resolution they are shown at.
+  useLayoutEffect(() => {
+    const el = wrapRef.current;
+    if (!el) return;
+    const w = Math.max(200, Math.floor(el.clientWidth));
+    const h = Math.max(200, Math.floor(el.clientHeight));
+    setSize({ w, h });
+    update(() => fitPage(bleed, w, h));
+  }, [wrapRef, bleed, update]);
+
   useEffect(() => {
     const el = wrapRef.current;
     if (!el) return;

@@ -105,13 +105,14 @@ export async function webFigures(): Promise<WebFigures> {
       shown = Number(await page.getByTestId('sketch-canvas').getAttribute('data-stroke-count'));
       await page.addScriptTag({ content: script });
       const floor = await page.evaluate(
-        ({ passId, spec }) =>
+        ({ passId, spec, pxPerMm }) =>
           (
             window as unknown as {
               quadrilleFloor: { editorFloor: (id: string, s: unknown, px: number) => Promise<{ ms: number }> };
             }
-          ).quadrilleFloor.editorFloor(passId, spec, 3 * (window.devicePixelRatio || 1)),
-        { passId: pass.id, spec: DEFAULT_PAGE_SPEC },
+          ).quadrilleFloor.editorFloor(passId, spec, pxPerMm * (window.devicePixelRatio || 1)),
+        // The floor rasters at the resolution the editor did: its fitted view's.
+        { passId: pass.id, spec: DEFAULT_PAGE_SPEC, pxPerMm: Number(await page.getByTestId('sketch-canvas').getAttribute('data-px-per-mm')) },
       );
       floors.push(floor.ms);
     }
