@@ -39,7 +39,7 @@ export function CanvasSurface(p: {
       data-lightbox-images={v.counts.lightboxImages}
       data-tool={v.tool}
       tabIndex={0}
-      className={`h-full w-full touch-none overflow-hidden rounded-lg border bg-marker-10 ${dropOver ? 'border-ink ring-2 ring-ink' : 'border-paper-edge'}`}
+      className={`relative h-full w-full touch-none overflow-hidden rounded-lg border bg-marker-10 ${dropOver ? 'border-ink ring-2 ring-ink' : 'border-paper-edge'}`}
       onDragOver={(e) => {
         if (!canDraw || !e.dataTransfer.types.includes('Files')) return;
         e.preventDefault();

@@ -1,7 +1,9 @@
 'use client';
 // The editor's side panel: who is here, the readability findings, the lightbox,
 // the beat notes, comments (with a pin being placed) and revisions.
+import { BeatComments } from '@/components/review/beat-comments';
 import { CommentsPanel } from '@/components/review/comments-panel';
+import type { ThreadDto } from '@/db/queries/comments';
 import { PresenceBar } from '@/components/review/presence-bar';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import type { Findings } from '@/lib/review/findings';
@@ -12,6 +14,9 @@ import { RevisionsPanel } from './revisions-panel';
 import type { LightboxArranging } from './use-lightbox-arranging';
 
 export type PointPin = { panel: number; x: number; y: number };
+
+/** Pins carried from earlier passes are lettered (A, B, …) where this pass's are numbered. */
+export const pinLetter = (i: number) => String.fromCharCode(65 + (i % 26));
 
 export function FindingsPanel({
   findings,
@@ -60,6 +65,11 @@ export function EditorSidebar(
     pointPin: PointPin | null;
     setPointPin: (pin: PointPin | null) => void;
     onRestored: () => void;
+    threads: ThreadDto[] | undefined;
+    /** Open point and panel comments of earlier passes, offered on this one. */
+    earlier: ThreadDto[];
+    showEarlier: boolean;
+    setShowEarlier: (on: boolean) => void;
   },
 ) {
   const a = p.arranging;
@@ -95,17 +105,30 @@ export function EditorSidebar(
                 {i + 1} {BEAT_LABELS[k]}
               </span>
               <p className="text-graphite-soft">{p.notes[k] || <em className="text-graphite-faint">No note yet.</em>}</p>
+              <BeatComments threads={p.threads} beat={k} />
             </li>
           ))}
         </ol>
       </section>
-      {p.pointPin && p.canComment && (
-        <p className="panel px-3 py-2 text-sm">
-          New pin at panel {p.pointPin.panel + 1}, {p.pointPin.x} × {p.pointPin.y} mm: choose “Pinned point” below and write.{' '}
-          <button type="button" className="text-ink underline" onClick={() => p.setPointPin(null)}>
-            Drop pin
-          </button>
-        </p>
+      {p.earlier.length > 0 && (
+        <section className="panel p-3 text-sm" aria-labelledby="earlier-pins">
+          <div className="mb-1 flex items-center justify-between">
+            <h2 id="earlier-pins" className="font-display text-lg font-extrabold">
+              From earlier passes
+            </h2>
+            <label className="inline-flex items-center gap-1 text-xs">
+              <input type="checkbox" checked={p.showEarlier} onChange={(e) => p.setShowEarlier(e.target.checked)} /> Show on the page
+            </label>
+          </div>
+          <ol className="space-y-1" data-testid="earlier-pins">
+            {p.earlier.map((t, i) => (
+              <li key={t.id}>
+                <span className="font-bold">{pinLetter(i)}</span> from pass {t.passNumber}, panel {(t.panel ?? 0) + 1}:{' '}
+                <span className="font-bold">{t.author}:</span> {t.body}
+              </li>
+            ))}
+          </ol>
+        </section>
       )}
       <CommentsPanel
         gagId={p.gagId}

@@ -13,6 +13,7 @@ import { turned } from '@/lib/strokes/lightbox';
 import type { Lightbox, Room } from '@/lib/strokes/types';
 import type { LoadedImage } from './lightbox-images';
 import type { PanelRasters } from './panel-rasters';
+import { pinLetter } from './editor-sidebar';
 import type { Guides, Tool } from './tools';
 
 const INK = '#1d4e6e';
@@ -45,6 +46,8 @@ export function EditorStage(p: {
   onRoomDown: (id: string) => void;
   onRoomEdited: (id: string, node: Konva.Shape) => void;
   pins: ThreadDto[];
+  /** Open pins of earlier passes: hollow and lettered, so they read as carried over. */
+  earlierPins: ThreadDto[];
   pointPin: { x: number; y: number } | null;
   drawOverlay: (ctx: Konva.Context) => void;
 }) {
@@ -187,29 +190,12 @@ export function EditorStage(p: {
             <Rect key={key} x={room.x} y={room.y} width={room.w} height={room.h} cornerRadius={1} {...common} />
           );
         })}
-        {v.pins.map((t, i) => {
-          const r = panels[t.panel ?? 0]!;
-          const x = t.target === 'point' && t.x !== null ? t.x : r.x + 3;
-          const y = t.target === 'point' && t.y !== null ? t.y : r.y + 3;
-          const rad = 9 / view.scale;
-          return (
-            <Group key={t.id} x={x} y={y} listening={false} name="comment-pin">
-              <Circle radius={rad} fill={INK} stroke="#ffffff" strokeWidth={1.5} strokeScaleEnabled={false} />
-              <Text
-                text={String(i + 1)}
-                fontSize={11 / view.scale}
-                fill="#ffffff"
-                width={2 * rad}
-                height={2 * rad}
-                offsetX={rad}
-                offsetY={rad}
-                align="center"
-                verticalAlign="middle"
-                fontStyle="bold"
-              />
-            </Group>
-          );
-        })}
+        {v.pins.map((t, i) => (
+          <PinMark key={t.id} thread={t} panels={panels} scale={view.scale} label={String(i + 1)} />
+        ))}
+        {v.earlierPins.map((t, i) => (
+          <PinMark key={t.id} thread={t} panels={panels} scale={view.scale} label={pinLetter(i)} hollow />
+        ))}
         {v.pointPin && (
           <Circle
             x={v.pointPin.x}
@@ -226,5 +212,49 @@ export function EditorStage(p: {
         <Shape sceneFunc={v.drawOverlay} listening={false} />
       </Layer>
     </Stage>
+  );
+}
+
+/** A comment pin: filled and numbered for this pass, hollow and lettered for one carried from an earlier pass. */
+function PinMark({
+  thread: t,
+  panels,
+  scale,
+  label,
+  hollow,
+}: {
+  thread: ThreadDto;
+  panels: MmRect[];
+  scale: number;
+  label: string;
+  hollow?: boolean;
+}) {
+  const r = panels[t.panel ?? 0]!;
+  const x = t.target === 'point' && t.x !== null ? t.x : r.x + 3;
+  const y = t.target === 'point' && t.y !== null ? t.y : r.y + 3;
+  const rad = 9 / scale;
+  return (
+    <Group x={x} y={y} listening={false} name={hollow ? 'earlier-pin' : 'comment-pin'}>
+      <Circle
+        radius={rad}
+        fill={hollow ? '#ffffff' : INK}
+        stroke={hollow ? INK : '#ffffff'}
+        strokeWidth={hollow ? 2 : 1.5}
+        dash={hollow ? [3, 2] : undefined}
+        strokeScaleEnabled={false}
+      />
+      <Text
+        text={label}
+        fontSize={11 / scale}
+        fill={hollow ? INK : '#ffffff'}
+        width={2 * rad}
+        height={2 * rad}
+        offsetX={rad}
+        offsetY={rad}
+        align="center"
+        verticalAlign="middle"
+        fontStyle="bold"
+      />
+    </Group>
   );
 }

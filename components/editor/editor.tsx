@@ -20,6 +20,7 @@ import { EditorSidebar, type PointPin } from './editor-sidebar';
 import { EditorStage } from './editor-stage';
 import type { Effects, Scene, Settings } from './gestures';
 import { HelpSheet } from './help-sheet';
+import { PinComposer } from './pin-composer';
 import { useLightboxImages } from './lightbox-images';
 import { drawOverlay } from './overlay';
 import { SelectionBar } from './selection-bar';
@@ -69,7 +70,11 @@ export default function Editor(props: EditorProps) {
   const images = useLightboxImages(session.lightboxes.map((l) => l.uploadId));
   const { data: findings } = useFindings(props.passId, session.seqSeen);
   const { data: threads } = useComments(props.gagId);
-  const pins = (threads ?? []).filter((t) => t.passId === props.passId && !t.resolvedAt && (t.target === 'panel' || t.target === 'point'));
+  const pinned = (threads ?? []).filter((t) => !t.resolvedAt && (t.target === 'panel' || t.target === 'point'));
+  const pins = pinned.filter((t) => t.passId === props.passId);
+  // Open pins of earlier passes are offered here too, lettered and marked with their pass.
+  const earlier = pinned.filter((t) => t.passNumber !== null && t.passNumber < props.passNumber);
+  const [showEarlier, setShowEarlier] = useState(true);
   const flagged = highlight && findings ? findings.panels.flatMap((p) => [...p.roomIntrusionIds, ...p.outsideSafeIds]) : [];
 
   /** Picking a tool lets go of what the previous one had chosen. */
@@ -273,9 +278,13 @@ export default function Editor(props: EditorProps) {
                 onRoomDown={selection.setRoom}
                 onRoomEdited={selection.roomEdited}
                 pins={pins}
+                earlierPins={showEarlier ? earlier : []}
                 pointPin={pointPin}
                 drawOverlay={paintOverlay}
               />
+              {pointPin && canComment && (
+                <PinComposer pin={pointPin} view={v.view} size={v.size} gagId={props.gagId} passId={props.passId} onDone={() => setPointPin(null)} />
+              )}
             </CanvasSurface>
           </>
         }
@@ -296,6 +305,10 @@ export default function Editor(props: EditorProps) {
             pointPin={pointPin}
             setPointPin={setPointPin}
             onRestored={() => void session.syncRef.current?.resync()}
+            threads={threads}
+            earlier={earlier}
+            showEarlier={showEarlier}
+            setShowEarlier={setShowEarlier}
           />
         }
       />

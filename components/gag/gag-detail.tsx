@@ -13,6 +13,8 @@ import type { GagDto } from '@/db/queries/gags';
 import { useAutosave } from '@/hooks/use-autosave';
 import { useGag } from '@/hooks/use-gag';
 import { ROLE_LABELS, type Role, can } from '@/lib/auth/permissions';
+import { BeatComments } from '@/components/review/beat-comments';
+import { useComments } from '@/hooks/use-review';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind, type GagStatus, STATUS_LABELS } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
 import { onFirstUse } from '@/lib/forms/lazy-resolver';
@@ -40,6 +42,7 @@ export function GagDetail({ seriesId, seriesTitle, role, initial }: { seriesId: 
   const gag = data ?? initial;
   const canEdit = can(role, 'edit');
   const canDelete = can(role, 'manage');
+  const { data: threads } = useComments(initial.id);
 
   const [title, setTitle] = useState(initial.title);
   const [premise, setPremise] = useState(initial.premise);
@@ -221,6 +224,7 @@ export function GagDetail({ seriesId, seriesTitle, role, initial }: { seriesId: 
                   {notes[kind] || <em className="text-graphite-faint">No note yet.</em>}
                 </p>
               )}
+              <BeatComments threads={threads} beat={kind} />
             </div>
           ))}
         </div>

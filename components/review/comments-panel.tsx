@@ -9,6 +9,7 @@ import { useMembers } from '@/hooks/use-members';
 import { useComments } from '@/hooks/use-review';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
+import { pointWhere } from '@/lib/review/words';
 
 export function pinLabel(c: Pick<ThreadDto, 'target' | 'passNumber' | 'panel' | 'beat' | 'x' | 'y'>): string {
   const panel = c.panel !== null ? `panel ${c.panel + 1} (${BEAT_LABELS[BEAT_KINDS[c.panel]!]})` : '';
@@ -22,7 +23,7 @@ export function pinLabel(c: Pick<ThreadDto, 'target' | 'passNumber' | 'panel' | 
     case 'panel':
       return `Pass ${c.passNumber}, ${panel}`;
     case 'point':
-      return `Pass ${c.passNumber}, ${panel}, at ${c.x?.toFixed(0)} × ${c.y?.toFixed(0)} mm`;
+      return `Pass ${c.passNumber}, ${panel}, ${pointWhere(c.x ?? 0, c.y ?? 0)}`;
   }
 }
 
@@ -68,7 +69,13 @@ export function CommentsPanel({
 
   const pinOptions: { key: string; label: string; pin: Pin }[] = [
     ...(point
-      ? [{ key: 'point', label: `Pinned point: panel ${point.panel + 1}, ${point.x} × ${point.y} mm`, pin: { target: 'point' as const, ...point } }]
+      ? [
+          {
+            key: 'point',
+            label: `Pinned point: panel ${point.panel + 1}, ${pointWhere(point.x, point.y)}`,
+            pin: { target: 'point' as const, ...point },
+          },
+        ]
       : []),
     { key: 'gag', label: 'The whole gag', pin: { target: 'gag' } },
     ...BEAT_KINDS.map((b) => ({ key: `beat:${b}`, label: `Beat: ${BEAT_LABELS[b]}`, pin: { target: 'beat' as const, beat: b } })),
