@@ -6,7 +6,7 @@ import path from 'node:path';
 import { constants as zlibConstants, deflateSync } from 'node:zlib';
 import fontkit from '@pdf-lib/fontkit';
 import { PDFDocument, type PDFFont, PDFHexString, PDFName, type PDFOperator, type PDFPage, type PDFRef } from 'pdf-lib';
-import { type Polygon, outlineOf, traceOutline } from '@/lib/strokes/outline';
+import { type Outline, outlineOf, traceOutline } from '@/lib/strokes/outline';
 import { type Stroke, strokeAlpha } from '@/lib/strokes/types';
 import { sfntFromWoff } from './woff';
 
@@ -63,8 +63,8 @@ export class Opacities {
 export class ContentWriter {
   private buf = new Uint8Array(1 << 16);
   private n = 0;
-  /** Room for a path segment: four coordinates (sign, up to ten digits and a space each) and an operator. */
-  private static SEGMENT = 4 * 12 + 2;
+  /** Room for a path segment: two coordinates (sign, up to ten digits and a space each) and an operator. */
+  private static SEGMENT = 2 * 12 + 2;
 
   private room(k: number) {
     if (this.n + k <= this.buf.length) return;
@@ -111,14 +111,11 @@ export class ContentWriter {
     this.buf[this.n++] = 10;
   }
 
-  /** pdf-lib's appendQuadraticCurve: `v` takes the current point as its first control point. */
-  curveV(cx: number, cy: number, x: number, y: number) {
+  lineTo(x: number, y: number) {
     this.room(ContentWriter.SEGMENT);
-    this.int(cx);
-    this.int(cy);
     this.int(x);
     this.int(y);
-    this.buf[this.n++] = 118; // v
+    this.buf[this.n++] = 108; // l
     this.buf[this.n++] = 10;
   }
 
@@ -139,12 +136,12 @@ export class ContentWriter {
   }
 }
 
-/** One outline's path, in µm from the trim's top left (the caller sets the `cm` and the fill). */
-export function writeOutline(out: ContentWriter, outline: Polygon) {
+/** One outline's path, in µm from the trim's top left (the caller sets the `cm` and fills it by the non-zero rule, `f`). */
+export function writeOutline(out: ContentWriter, outline: Outline) {
   traceOutline(
     {
       moveTo: (x: number, y: number) => out.moveTo(x * UM_PER_MM, y * UM_PER_MM),
-      quadraticCurveTo: (cx: number, cy: number, x: number, y: number) => out.curveV(cx * UM_PER_MM, cy * UM_PER_MM, x * UM_PER_MM, y * UM_PER_MM),
+      lineTo: (x: number, y: number) => out.lineTo(x * UM_PER_MM, y * UM_PER_MM),
       closePath: () => out.text('h\n'),
     },
     outline,
@@ -153,7 +150,7 @@ export function writeOutline(out: ContentWriter, outline: Polygon) {
 
 /**
  * Strokes as filled outlines in their grey, in µm from the trim's top left (the caller sets
- * the `cm`): the same curve as the canvas and the SVG (traceOutline of outlineOf).
+ * the `cm`): the same polygons as the canvas and the SVG (traceOutline of outlineOf).
  */
 export function writeStrokePaths(out: ContentWriter, strokes: Stroke[], toneState: (alpha: number) => PDFName) {
   for (const s of strokes) {

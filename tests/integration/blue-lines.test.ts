@@ -228,7 +228,7 @@ describe('a sheet rendered with pdftoppm', () => {
     const near = new Set<number>();
     let checked = 0;
     for (const s of state.strokes) {
-      const cover = coveredPixels([outlineOf(s)], at, img, 4);
+      const cover = coveredPixels(outlineOf(s), at, img, 4);
       const deep: [number, number, number][] = [];
       for (let y = cover.py0; y <= cover.py1; y++) {
         for (let x = cover.px0; x <= cover.px1; x++) {
@@ -306,7 +306,7 @@ describe('a sheet rendered with pdftoppm', () => {
       const sum = [0, 0, 0];
       let n = 0;
       for (const s of strokes) {
-        const cover = coveredPixels([outlineOf(s)], at, img, 3);
+        const cover = coveredPixels(outlineOf(s), at, img, 3);
         for (let y = cover.py0 + 2; y <= cover.py1 - 2; y++) {
           for (let x = cover.px0 + 2; x <= cover.px1 - 2; x++) {
             let all = true;
