@@ -4,6 +4,7 @@
 import { Download } from 'lucide-react';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
+import { BlueLineForm } from './blue-line-form';
 
 async function download(url: string, name: string, onProgress: (f: number) => void) {
   const res = await fetch(url);
@@ -34,12 +35,10 @@ async function download(url: string, name: string, onProgress: (f: number) => vo
   setTimeout(() => URL.revokeObjectURL(a.href), 10_000);
 }
 
-export function Exports({ volumeId }: { volumeId: string }) {
+export function Exports({ volumeId, entriesKey }: { volumeId: string; entriesKey: string }) {
   const [progress, setProgress] = useState<number | null>(null);
   const [which, setWhich] = useState('');
   const [error, setError] = useState<string | null>(null);
-  const [scale, setScale] = useState('100');
-  const [paper, setPaper] = useState('A4');
   const [withScans, setWithScans] = useState(false);
   const run = async (label: string, url: string, name: string) => {
     setError(null);
@@ -74,34 +73,6 @@ export function Exports({ volumeId }: { volumeId: string }) {
         <label className="inline-flex items-center gap-1 pb-2 text-sm">
           <input type="checkbox" checked={withScans} onChange={(e) => setWithScans(e.target.checked)} /> with lightbox scans under the strokes
         </label>
-        <label className="text-sm font-bold text-graphite-soft">
-          Scale
-          <select className="field mt-1 w-auto py-1.5" value={scale} onChange={(e) => setScale(e.target.value)}>
-            <option value="100">100%</option>
-            <option value="150">150%</option>
-            <option value="200">200%</option>
-          </select>
-        </label>
-        <label className="text-sm font-bold text-graphite-soft">
-          Paper
-          <select className="field mt-1 w-auto py-1.5" value={paper} onChange={(e) => setPaper(e.target.value)}>
-            <option value="A4">A4</option>
-            <option value="A3">A3</option>
-          </select>
-        </label>
-        <Button
-          variant="secondary"
-          disabled={progress !== null}
-          onClick={() =>
-            void run(
-              'Drawing templates',
-              `/api/volumes/${volumeId}/export/templates.pdf?scale=${scale}&paper=${paper}`,
-              `templates-${scale}-${paper}.pdf`,
-            )
-          }
-        >
-          <Download aria-hidden className="h-4 w-4" /> Drawing templates (PDF)
-        </Button>
         <Button
           variant="secondary"
           disabled={progress !== null}
@@ -110,6 +81,12 @@ export function Exports({ volumeId }: { volumeId: string }) {
           <Download aria-hidden className="h-4 w-4" /> Running order (CSV)
         </Button>
       </div>
+      <BlueLineForm
+        volumeId={volumeId}
+        entriesKey={entriesKey}
+        busy={progress !== null}
+        onDownload={(url, name) => void run('Blue-line sheets', url, name)}
+      />
       {progress !== null && (
         <div>
           <p className="text-sm">{which}…</p>

@@ -35,7 +35,7 @@ export function VolumePage({ seriesId, seriesTitle, role, initial }: { seriesId:
         canEdit={can(role, 'manage')}
         onSave={(spec) => patch({ spec })}
       />
-      <Exports volumeId={v.id} />
+      <Exports volumeId={v.id} entriesKey={v.entries.map((e) => `${e.id}:${e.status ?? ''}`).join(',')} />
     </div>
   );
 }

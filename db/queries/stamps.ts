@@ -39,6 +39,24 @@ export async function readyStampStands(db: Db, gagId: string): Promise<boolean> 
   return !!row;
 }
 
+/** The pass a gag's standing "ready to ink" stamp approved: the one the drawing desk works from. */
+export type ApprovedPass = { gagId: string; passId: string; passNumber: number; passSeq: number; stampedAt: string; by: string };
+
+/** The approved pass of each of these gags that has one (a standing "ready to ink" stamp). */
+export async function approvedPasses(db: Db, gagIds: string[]): Promise<Map<string, ApprovedPass>> {
+  if (gagIds.length === 0) return new Map();
+  const rows = await db
+    .selectFrom('stamps as s')
+    .innerJoin('passes as p', 'p.id', 's.passId')
+    .innerJoin('users as u', 'u.id', 's.userId')
+    .select(['s.gagId', 's.passId', 'p.number as passNumber', 's.passSeq', 's.createdAt as stampedAt', 'u.name as by'])
+    .where('s.gagId', 'in', gagIds)
+    .where('s.decision', '=', 'ready')
+    .where('s.clearedAt', 'is', null)
+    .execute();
+  return new Map(rows.map((r) => [r.gagId, r]));
+}
+
 /** Lets every standing "ready to ink" stamp of a gag go (a newer stamp, or a move back to drafting). */
 export async function clearReadyStamps(db: Db, gagId: string, now: string): Promise<void> {
   await db

@@ -3,12 +3,15 @@ import 'server-only';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
 import { findGag } from '@/db/queries/gags';
+import { approvedPasses } from '@/db/queries/stamps';
 import { passState } from '@/db/queries/passes';
 import { type EntryDto, type VolumeDto, findVolume, listEntries } from '@/db/queries/volumes';
+import type { SheetChoiceGag } from '@/lib/print/sheets';
 import { entryLabel } from '@/lib/print/matter';
 import { uploadKeys } from '@/db/queries/uploads';
 import { getObject } from '@/lib/storage/s3';
 import sharp from 'sharp';
+import type { SheetGag } from './blue-lines';
 import type { ReviewPage, ScanImage } from './pdf';
 
 export async function volumePages(
@@ -37,12 +40,46 @@ export async function volumePages(
   return { volume, entries, pages };
 }
 
-export async function gagNotes(db: Kysely<Database>, entries: EntryDto[]) {
-  const out = [];
-  for (const e of entries) {
-    if (!e.gagId) continue;
-    const g = await findGag(db, e.gagId);
-    if (g) out.push({ title: g.title, notes: g.beats.map((b) => b.note) });
+/**
+ * The gag pages a blue-line export may carry, in running order, and the default choice:
+ * the gags whose pass has a standing "ready to ink" stamp.
+ */
+export async function sheetChoice(db: Kysely<Database>, volumeId: string): Promise<{ gags: SheetChoiceGag[]; defaults: string[] }> {
+  const entries = await listEntries(db, volumeId);
+  const approved = await approvedPasses(
+    db,
+    entries.flatMap((e) => (e.gagId ? [e.gagId] : [])),
+  );
+  const gags: SheetChoiceGag[] = [];
+  entries.forEach((e, i) => {
+    if (e.kind !== 'gag' || !e.gagId) return;
+    const a = approved.get(e.gagId);
+    gags.push({
+      gagId: e.gagId,
+      page: i + 1,
+      title: e.title ?? 'Gag',
+      status: e.status,
+      approved: a ? { passId: a.passId, passNumber: a.passNumber, passSeq: a.passSeq, stampedAt: a.stampedAt, by: a.by } : null,
+    });
+  });
+  return { gags, defaults: gags.filter((g) => g.approved).map((g) => g.gagId) };
+}
+
+/** What the sheets of these gags (ids from sheetChoice, kept in running order) carry: notes, and the approved pass's strokes and rooms. */
+export async function blueLineGags(db: Kysely<Database>, volumeId: string, gagIds: string[]): Promise<SheetGag[]> {
+  const wanted = new Set(gagIds);
+  const { gags } = await sheetChoice(db, volumeId);
+  const out: SheetGag[] = [];
+  for (const g of gags) {
+    if (!wanted.has(g.gagId)) continue;
+    const gag = await findGag(db, g.gagId);
+    const state = g.approved ? await passState(db, g.approved.passId) : undefined;
+    out.push({
+      page: g.page,
+      title: g.title,
+      notes: gag?.beats.map((b) => ({ kind: b.kind, note: b.note })) ?? [],
+      approved: g.approved && state ? { passNumber: g.approved.passNumber, strokes: state.strokes, rooms: state.rooms } : null,
+    });
   }
   return out;
 }

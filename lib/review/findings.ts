@@ -69,10 +69,10 @@ export function computeFindings(
   const panelsOut: PanelFindings[] = panels.map((rect, i) => {
     const own = strokes.filter((s) => s.panel === i);
     const outlines = own.map((s) => outlineOf(s));
-    const inkLoad = panelInkLoad(rect, outlines);
+    const inkLoad = panelInkLoad(rect, outlines.flat());
     const myRooms = rooms.filter((r) => r.panel === i);
     const intruders = own.filter((s) => myRooms.some((room) => s.points.some(([x, y]) => discTouchesRoom(x, y, s.size / 2, room))));
-    const out = own.filter((_, k) => outside(outlines[k]!, safe));
+    const out = own.filter((_, k) => outlines[k]!.some((poly) => outside(poly, safe)));
     return {
       panel: i,
       inkLoad,

@@ -13,8 +13,10 @@ import { listPasses, liveStrokesOfPasses, passState } from '@/db/queries/passes'
 import { ROOMS, liveItemsOfPasses } from '@/db/queries/pass-items';
 import { inkThresholdOf } from '@/db/queries/review';
 import { pageSpecForGag, pageSpecForPass } from '@/db/queries/series';
-import { reviewPdf as buildReviewPdf, type Paper, templatesPdf as buildTemplatesPdf } from '@/lib/export/pdf';
-import { gagNotes, scanImages, volumePages } from '@/lib/export/volume-export';
+import { findVolume } from '@/db/queries/volumes';
+import { type BlueLineOptions, blueLinePdf } from '@/lib/export/blue-lines';
+import { reviewPdf as buildReviewPdf } from '@/lib/export/pdf';
+import { blueLineGags, scanImages, volumePages } from '@/lib/export/volume-export';
 import { computeFindings } from '@/lib/review/findings';
 import { passToSvg } from '@/lib/strokes/svg';
 
@@ -88,8 +90,10 @@ export async function reviewPdf(args: { volumeId: string; lightbox: boolean }) {
   return sent(bytes);
 }
 
-export async function templatesPdf(args: { volumeId: string; scale: number; paper: Paper }) {
+/** Blue-line sheets of these gags (in running order; none: one blank template). */
+export async function templatesPdf(args: { volumeId: string; gagIds: string[] } & BlueLineOptions) {
   const db = await getDb();
-  const { volume, entries } = await volumePages(db, args.volumeId);
-  return sent(await buildTemplatesPdf(volume.spec, volume.title, await gagNotes(db, entries), args.scale, args.paper));
+  const { volumeId, gagIds, ...options } = args;
+  const volume = (await findVolume(db, volumeId))!;
+  return sent(await blueLinePdf(volume.spec, volume.title, await blueLineGags(db, volumeId, gagIds), options));
 }

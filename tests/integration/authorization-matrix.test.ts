@@ -45,6 +45,7 @@ import * as planRoute from '@/app/api/volumes/[volumeId]/plan/route';
 import { addEntry, createVolume } from '@/db/queries/volumes';
 import * as reviewPdfRoute from '@/app/api/volumes/[volumeId]/export/review.pdf/route';
 import * as templatesPdfRoute from '@/app/api/volumes/[volumeId]/export/templates.pdf/route';
+import * as templatesOfferRoute from '@/app/api/volumes/[volumeId]/export/templates/route';
 import * as csvRoute from '@/app/api/volumes/[volumeId]/export/running-order.csv/route';
 import * as specRoute from '@/app/api/series/[seriesId]/print-spec/route';
 import { createGag } from '@/db/queries/gags';
@@ -502,6 +503,13 @@ const ROUTES: RouteCase[] = [
   {
     route: 'GET /api/volumes/:volumeId/export/templates.pdf',
     handler: templatesPdfRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/export/templates',
+    handler: templatesOfferRoute.GET,
     method: 'GET',
     prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
     expected: row(401, 200, 200, 200, 200, 404),

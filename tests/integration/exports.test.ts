@@ -19,7 +19,7 @@ import { volumePages } from '@/lib/export/volume-export';
 import { sfntFromWoff } from '@/lib/export/woff';
 import { pdfBoxes } from '@/lib/print/book';
 import { type Rect, panelRects } from '@/lib/print/geometry';
-import { type Polygon, outlineOf } from '@/lib/strokes/outline';
+import { type Outline, outlineOf } from '@/lib/strokes/outline';
 import { callRouteRaw } from '../support/call-route';
 import { freshDb } from '../support/test-db';
 
@@ -74,20 +74,21 @@ const centre = (g: Grid, p: number) => (p + 0.5) * g.mmPerPx - g.bleed;
 const pixelOf = (g: Grid, mm: number) => Math.floor((mm + g.bleed) / g.mmPerPx);
 
 /**
- * A polygon over the pixels around it (its bounds and `reach` mm more): which pixel centres it
- * fills (nonzero winding, as PDF's `f`, by scanlines) and how far each is from its nearest edge
- * (up to `reach`, by visiting the pixels beside each edge).
+ * An outline's polygons over the pixels around them (their bounds and `reach` mm more): which
+ * pixel centres they fill together (nonzero winding, as PDF's `f`, by scanlines) and how far
+ * each is from its nearest edge (up to `reach`, by visiting the pixels beside each edge).
  */
-function coverage(g: Grid, poly: Polygon, reach: number) {
-  const x0 = Math.max(0, pixelOf(g, Math.min(...poly.map((q) => q[0])) - reach));
-  const x1 = Math.min(g.width - 1, pixelOf(g, Math.max(...poly.map((q) => q[0])) + reach));
-  const y0 = Math.max(0, pixelOf(g, Math.min(...poly.map((q) => q[1])) - reach));
-  const y1 = Math.min(g.height - 1, pixelOf(g, Math.max(...poly.map((q) => q[1])) + reach));
+function coverage(g: Grid, outline: Outline, reach: number) {
+  const all = outline.flat();
+  const x0 = Math.max(0, pixelOf(g, Math.min(...all.map((q) => q[0])) - reach));
+  const x1 = Math.min(g.width - 1, pixelOf(g, Math.max(...all.map((q) => q[0])) + reach));
+  const y0 = Math.max(0, pixelOf(g, Math.min(...all.map((q) => q[1])) - reach));
+  const y1 = Math.min(g.height - 1, pixelOf(g, Math.max(...all.map((q) => q[1])) + reach));
   const w = x1 - x0 + 1;
   const h = Math.max(0, y1 - y0 + 1);
   const inside = new Uint8Array(w * h);
   const dist = new Float32Array(w * h).fill(reach);
-  const edges = poly.map((a, i) => [a, poly[(i + 1) % poly.length]!] as const);
+  const edges = outline.flatMap((poly) => poly.map((a, i) => [a, poly[(i + 1) % poly.length]!] as const));
   for (let py = y0; py <= y1; py++) {
     const y = centre(g, py);
     const crossings: [number, number][] = [];

@@ -54,7 +54,7 @@ describe('ink load against analytic areas (error ≤ 2%)', () => {
     [0.6, 25, 41.13],
   ])('a straight stroke %s mm wide and %s mm long (at y = %s mm)', (w, L, y) => {
     const s = straight(20, y, L, w);
-    const load = panelInkLoad(panel0, [outlineOf(s)]);
+    const load = panelInkLoad(panel0, outlineOf(s));
     const expected = (w * L + (Math.PI * w * w) / 4) / PANEL_AREA;
     expect(Math.abs(load - expected) / expected).toBeLessThanOrEqual(0.02);
   });
@@ -62,7 +62,7 @@ describe('ink load against analytic areas (error ≤ 2%)', () => {
   // A filled disc of radius r covers π·r².
   it.each([3, 6, 10])('a disc of radius %s mm', (r) => {
     const dot: Stroke = { id: 'dot', panel: 0, tool: 'tone', grey: 40, size: 2 * r, points: [[39, 39, 0.5]] };
-    const load = panelInkLoad(panel0, [outlineOf(dot)]);
+    const load = panelInkLoad(panel0, outlineOf(dot));
     const expected = (Math.PI * r * r) / PANEL_AREA;
     expect(Math.abs(load - expected) / expected).toBeLessThanOrEqual(0.02);
   });

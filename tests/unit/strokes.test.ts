@@ -125,7 +125,7 @@ describe('outlines and SVG', () => {
     ] as Point[],
   };
   it('an outline surrounds the centre line', () => {
-    const poly = outlineOf(stroke);
+    const poly = outlineOf(stroke).flat();
     expect(poly.length).toBeGreaterThan(8);
     const xs = poly.map((p) => p[0]);
     expect(Math.min(...xs)).toBeLessThan(10.2);
