@@ -6,6 +6,7 @@ import Link from 'next/link';
 import { useCallback, useMemo, useState } from 'react';
 import { BeatGridMark } from '@/components/ui/beat-grid-mark';
 import { LoupeGlyph, PanelsGlyph, RowsGlyph } from '@/components/ui/board-glyphs';
+import { StampMark } from '@/components/ui/stamp-mark';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { When } from '@/components/ui/when';
 import type { GagDto } from '@/db/queries/gags';
@@ -186,6 +187,7 @@ function GagCard({ seriesId, gag }: { seriesId: string; gag: GagDto }) {
         </Link>
       </h3>
       {gag.premise && <p className="mt-1 line-clamp-3 text-sm text-graphite-soft">{gag.premise}</p>}
+      {gag.stamp && <StampMark decision={gag.stamp.decision} standing={gag.stamp.standing} passNumber={gag.stamp.passNumber} className="mt-2" />}
       <div className="mt-2 flex items-center justify-between gap-2 text-xs text-graphite-faint">
         <BeatGridMark beats={gag.beats} />
         <StatusBadge status={gag.status} />
