@@ -1,7 +1,7 @@
 import type { Config } from 'tailwindcss';
 
 // Quadrille's own palette: warm paper, graphite text, marker greys for tone,
-// one ink for actions and one stamp colour reserved for "ready to ink".
+// one ink for actions and one stamp colour reserved for "ready to ink" (`ready`).
 const config: Config = {
   content: ['./app/**/*.{ts,tsx}', './components/**/*.{ts,tsx}', './hooks/**/*.{ts,tsx}'],
   theme: {
@@ -17,7 +17,11 @@ const config: Config = {
           80: '#5f5d59',
         },
         ink: { DEFAULT: '#1d4e6e', hover: '#163c55', light: '#dbe8f0' },
+        // Red for errors, warnings and deleting. (Named before "ready to ink" had a colour of its own: read it as "alert".)
         stamp: { DEFAULT: '#b8321f', light: '#f6dcd6' },
+        // The stamp colour: the "ready to ink" mark and its button, nothing else, so an approval never looks like an
+        // error. #24603a on its light tint is about 6.3:1, on white 7.5:1 (WCAG 2.x contrast formula; AA asks 4.5:1).
+        ready: { DEFAULT: '#24603a', light: '#e1f0e3' },
       },
       fontFamily: {
         sans: ['var(--font-ui)', 'system-ui', 'sans-serif'],

@@ -18,11 +18,24 @@ export function useGags(seriesId: string | null, fallbackData?: GagDto[]) {
     await mutate((list) => [...(list ?? []).filter((g) => g.id !== gag.id), gag], { revalidate: false });
     return gag;
   }
-  /** Moves a gag to another status by hand (the board's menu); the list shows it at once. */
+  /**
+   * Moves a gag to another status by hand (the board's columns and menus): the card shows in
+   * its new column at once and goes back if the server refuses the move.
+   */
   async function setStatus(gagId: string, status: GagStatus) {
-    const updated = await api<GagDto>(`/api/gags/${gagId}`, { method: 'PATCH', json: { status } });
-    await mutate((list) => list?.map((g) => (g.id === updated.id ? updated : g)), { revalidate: false });
-    return updated;
+    let updated: GagDto | undefined;
+    await mutate(
+      async (list) => {
+        updated = await api<GagDto>(`/api/gags/${gagId}`, { method: 'PATCH', json: { status } });
+        return list?.map((g) => (g.id === updated!.id ? updated! : g));
+      },
+      {
+        optimisticData: (list) => (list ?? []).map((g) => (g.id === gagId ? { ...g, status } : g)),
+        rollbackOnError: true,
+        revalidate: false,
+      },
+    );
+    return updated!;
   }
   return { data, error, isLoading, mutate, createGag, setStatus };
 }

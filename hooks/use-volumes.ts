@@ -1,6 +1,9 @@
 'use client';
 // Volumes: a series' list, and one volume with its flatplan and plan kept in step.
+// On the volume page the series' stream says when a gag's status moved (a stamp, a
+// clearing, a move on the board): the badges, the flatplan's warnings and the plan follow.
 import useSWR from 'swr';
+import { useLiveSWR } from '@/hooks/use-live';
 import type { EntryDto, Flatplan, VolumeDto } from '@/db/queries/volumes';
 import type { GagStatus } from '@/lib/gags/status';
 import { api, fetcher } from '@/lib/http/client';
@@ -30,9 +33,11 @@ export function runningOrderActions(volumeId: string) {
 }
 
 export function useVolume(initial: VolumeData) {
-  const vol = useSWR<VolumeData>(`/api/volumes/${initial.id}`, fetcher, { fallbackData: initial });
-  const flat = useSWR<Flatplan>(`/api/volumes/${initial.id}/flatplan`, fetcher);
-  const plan = useSWR<PlanData>(`/api/volumes/${initial.id}/plan`, fetcher);
+  // Without a stream these wait for the next change here, as before (pollMs 0).
+  const live = { types: ['gags'], pollMs: 0 };
+  const vol = useLiveSWR<VolumeData>(`/api/volumes/${initial.id}`, fetcher, { fallbackData: initial, ...live });
+  const flat = useLiveSWR<Flatplan>(`/api/volumes/${initial.id}/flatplan`, fetcher, live);
+  const plan = useLiveSWR<PlanData>(`/api/volumes/${initial.id}/plan`, fetcher, live);
   const volume = vol.data ?? initial;
   const reloadAll = () => Promise.all([vol.mutate(), flat.mutate(), plan.mutate()]);
   /** After a running-order change: the new entries at once, or everything read again. */

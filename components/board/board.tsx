@@ -4,16 +4,14 @@
 import dynamic from 'next/dynamic';
 import Link from 'next/link';
 import { useCallback, useMemo, useState } from 'react';
-import { BeatGridMark } from '@/components/ui/beat-grid-mark';
 import { LoupeGlyph, PanelsGlyph, RowsGlyph } from '@/components/ui/board-glyphs';
-import { StatusBadge } from '@/components/ui/status-badge';
-import { When } from '@/components/ui/when';
 import type { GagDto } from '@/db/queries/gags';
 import { useGags } from '@/hooks/use-gags';
 import { ROLE_LABELS, type Role, can } from '@/lib/auth/permissions';
 import { filterGags } from '@/lib/gags/filter';
 import { GAG_STATUSES, type GagStatus, STATUS_LABELS } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
+import { BoardColumns } from './board-columns';
 
 type View = 'board' | 'table';
 
@@ -130,7 +128,7 @@ export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: 
         </p>
       </div>
       {notice && (
-        <p role="status" className="rounded-md bg-ink-light px-3 py-2 text-sm text-ink">
+        <p role="status" data-testid="board-notice" className="rounded-md bg-ink-light px-3 py-2 text-sm text-ink">
           {notice}
         </p>
       )}
@@ -138,61 +136,15 @@ export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: 
       {view === 'table' ? (
         <GagTable seriesId={seriesId} gags={gags} canEdit={canEdit} onStatus={onStatus} />
       ) : (
-        <div className="flex gap-3 overflow-x-auto pb-3" aria-label="Gags by status">
-          {columns.map((s) => {
-            const inColumn = gags.filter((g) => g.status === s);
-            return (
-              <section key={s} aria-label={STATUS_LABELS[s]} className="w-64 shrink-0 rounded-lg border border-paper-edge bg-paper-deep/50 p-2">
-                <h2 className="flex items-center justify-between px-1 pb-2 font-sans text-sm font-bold">
-                  <span>{STATUS_LABELS[s]}</span>
-                  <span className="rounded-full bg-white px-2 text-xs text-graphite-faint">
-                    {inColumn.length}
-                    <span className="sr-only"> gags</span>
-                  </span>
-                </h2>
-                <ul className="space-y-2">
-                  {inColumn.map((g) => (
-                    <li key={g.id}>
-                      <GagCard seriesId={seriesId} gag={g} />
-                    </li>
-                  ))}
-                </ul>
-              </section>
-            );
-          })}
-        </div>
-      )}
-    </div>
-  );
-}
-
-function GagCard({ seriesId, gag }: { seriesId: string; gag: GagDto }) {
-  return (
-    <article className="panel relative p-3 transition-colors focus-within:border-ink hover:border-ink">
-      {gag.latestPass && (
-        // eslint-disable-next-line @next/next/no-img-element -- a private, per-pass SVG served by our own route
-        <img
-          src={`/api/passes/${gag.latestPass.id}/thumbnail.svg?v=${gag.latestPass.seq}`}
-          alt={`Pass ${gag.latestPass.number} of “${gag.title}”`}
-          width={120}
-          height={120}
-          loading="lazy"
-          className="mb-2 aspect-square w-full rounded border border-paper-edge bg-white"
+        <BoardColumns
+          seriesId={seriesId}
+          gags={gags}
+          columns={columns}
+          canEdit={canEdit}
+          onMove={onStatus}
+          onRefused={(message) => setNotice(message)}
         />
       )}
-      <h3 className="font-sans text-base font-bold leading-snug">
-        <Link href={`/series/${seriesId}/gags/${gag.id}`} className="after:absolute after:inset-0 focus:outline-none">
-          {gag.title}
-        </Link>
-      </h3>
-      {gag.premise && <p className="mt-1 line-clamp-3 text-sm text-graphite-soft">{gag.premise}</p>}
-      <div className="mt-2 flex items-center justify-between gap-2 text-xs text-graphite-faint">
-        <BeatGridMark beats={gag.beats} />
-        <StatusBadge status={gag.status} />
-      </div>
-      <p className="mt-1 text-xs text-graphite-faint">
-        Changed <When iso={gag.updatedAt} />
-      </p>
-    </article>
+    </div>
   );
 }

@@ -188,7 +188,8 @@ export function GagDetail({ seriesId, seriesTitle, role, initial }: { seriesId: 
       )}
       {gag.status === 'ready_to_ink' && (
         <p className="text-sm text-graphite-soft">
-          Stamped <strong>{STATUS_LABELS.ready_to_ink}</strong>: the approved pass goes to the drawing desk.
+          Stamped <strong>{STATUS_LABELS.ready_to_ink}</strong>
+          {gag.stamp?.standing ? ` on pass ${gag.stamp.passNumber}` : ''}: the approved pass goes to the drawing desk.
         </p>
       )}
 

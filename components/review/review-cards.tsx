@@ -140,7 +140,7 @@ export function StampCard({ gagId, passId, passNumber, canStamp }: { gagId: stri
       {current ? (
         <div
           data-testid="current-stamp"
-          className={`rounded-md border-2 px-3 py-2 ${current.decision === 'ready' && !current.clearedAt ? 'border-stamp bg-stamp-light text-stamp' : 'border-paper-edge text-graphite-soft'}`}
+          className={`rounded-md border-2 px-3 py-2 ${current.decision === 'ready' && !current.clearedAt ? 'border-ready bg-ready-light text-ready' : 'border-paper-edge text-graphite-soft'}`}
         >
           <p className="font-bold">
             {current.decision === 'ready' ? 'Ready to ink' : 'Needs another pass'}
@@ -161,7 +161,7 @@ export function StampCard({ gagId, passId, passNumber, canStamp }: { gagId: stri
             <textarea className="field mt-1" rows={2} value={note} onChange={(e) => setNote(e.target.value)} maxLength={1000} />
           </label>
           <div className="flex flex-wrap gap-2">
-            <Button variant="danger" disabled={busy} onClick={() => void act('ready')}>
+            <Button variant="stamp" disabled={busy} onClick={() => void act('ready')}>
               Stamp “ready to ink”
             </Button>
             <Button variant="secondary" disabled={busy} onClick={() => void act('again')}>

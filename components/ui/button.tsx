@@ -1,12 +1,14 @@
 import { forwardRef } from 'react';
 
-type Variant = 'primary' | 'secondary' | 'ghost' | 'danger';
+type Variant = 'primary' | 'secondary' | 'ghost' | 'danger' | 'stamp';
 
 const VARIANTS: Record<Variant, string> = {
   primary: 'bg-ink text-white hover:bg-ink-hover disabled:bg-marker-60',
   secondary: 'border border-paper-edge bg-white text-graphite hover:bg-paper-deep disabled:text-graphite-faint',
   ghost: 'text-graphite-soft hover:bg-paper-deep hover:text-graphite',
   danger: 'bg-stamp text-white hover:bg-stamp/90',
+  /** The editor's "ready to ink" stamp: its own colour, never the one for deleting. */
+  stamp: 'bg-ready text-white hover:bg-ready/90 disabled:bg-marker-60',
 };
 
 export type ButtonProps = React.ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant };

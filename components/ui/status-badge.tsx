@@ -5,7 +5,7 @@ const TONES: Record<GagStatus, string> = {
   idea: 'bg-marker-10 text-graphite-soft border-marker-20',
   thumbnailing: 'bg-white text-graphite border-marker-40',
   in_review: 'bg-ink-light text-ink border-ink/30',
-  ready_to_ink: 'bg-stamp-light text-stamp border-stamp/50',
+  ready_to_ink: 'bg-ready-light text-ready border-ready/50',
   inked: 'bg-graphite text-white border-graphite',
   // White on marker-80 is about 6.6:1 (WCAG 2.x AA asks 4.5:1 for small text).
   scanned: 'bg-marker-80 text-white border-marker-80',

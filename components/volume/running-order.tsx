@@ -1,11 +1,12 @@
 'use client';
 // The running order: reorder by dragging or with the keyboard (dnd-kit sortable,
-// with spoken announcements), add unplaced gags and matter pages, remove pages.
-import { DndContext, type DragEndEvent, KeyboardSensor, PointerSensor, closestCenter, useDraggable, useSensor, useSensors } from '@dnd-kit/core';
-import { SortableContext, arrayMove, sortableKeyboardCoordinates, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
+// with spoken announcements), drag unplaced gags in (mouse or keyboard), add matter
+// pages, remove pages. Where a drop lands is worked out in ./running-order-moves.
+import { DndContext, type DragEndEvent, KeyboardSensor, PointerSensor, useDraggable, useDroppable, useSensor, useSensors } from '@dnd-kit/core';
+import { SortableContext, arrayMove, useSortable, verticalListSortingStrategy } from '@dnd-kit/sortable';
 import { CSS } from '@dnd-kit/utilities';
 import { GripVertical, Plus, X } from 'lucide-react';
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { StatusBadge } from '@/components/ui/status-badge';
 import type { EntryDto } from '@/db/queries/volumes';
@@ -14,19 +15,43 @@ import { messageOf } from '@/lib/http/client';
 
 import { MATTER_KINDS, MATTER_LABELS, entryLabel } from '@/lib/print/matter';
 import { runningOrderActions } from '@/hooks/use-volumes';
+import { END_SLOT, RUNNING_ORDER_ID, isUnplaced, landing, runningOrderCollisions, runningOrderKeys, sayPlace, sayWhat } from './running-order-moves';
 
-function Row({ entry, index, canEdit, onRemove }: { entry: EntryDto; index: number; canEdit: boolean; onRemove: () => void }) {
+/** A thin ink line above the page a dragged gag would go in front of (a shadow: no change of layout while dragging). */
+const INSERT_MARK = 'shadow-[0_-3px_0_0_#1d4e6e]';
+
+function Row({
+  entry,
+  index,
+  canEdit,
+  onRemove,
+  insertHere,
+  focusHandle,
+}: {
+  entry: EntryDto;
+  index: number;
+  canEdit: boolean;
+  onRemove: () => void;
+  insertHere: boolean;
+  /** Just placed from the unplaced list by keyboard: its handle takes the focus. */
+  focusHandle: boolean;
+}) {
   const { attributes, listeners, setNodeRef, transform, transition, isDragging } = useSortable({ id: entry.id, disabled: !canEdit });
+  const handle = useRef<HTMLButtonElement>(null);
+  useEffect(() => {
+    if (focusHandle) handle.current?.focus();
+  }, [focusHandle]);
   return (
     <li
       ref={setNodeRef}
       style={{ transform: CSS.Transform.toString(transform), transition }}
-      className={`flex items-center gap-2 rounded-md border bg-white px-2 py-1.5 ${isDragging ? 'border-ink shadow-card' : 'border-paper-edge'}`}
+      className={`flex items-center gap-2 rounded-md border bg-white px-2 py-1.5 ${isDragging ? 'border-ink shadow-card' : 'border-paper-edge'} ${insertHere ? INSERT_MARK : ''}`}
       data-testid="running-order-entry"
       data-entry-id={entry.id}
     >
       {canEdit && (
         <button
+          ref={handle}
           type="button"
           className="cursor-grab rounded p-1 text-graphite-faint hover:bg-paper-deep"
           aria-label={`Move page ${index + 1}, ${entryLabel(entry)}`}
@@ -50,6 +75,22 @@ function Row({ entry, index, canEdit, onRemove }: { entry: EntryDto; index: numb
         </button>
       )}
     </li>
+  );
+}
+
+/** The place after the last page, where a gag dropped is added at the end. */
+function EndSlot({ canEdit, active }: { canEdit: boolean; active: boolean }) {
+  const { setNodeRef } = useDroppable({ id: END_SLOT, disabled: !canEdit });
+  if (!canEdit) return null;
+  return (
+    <div
+      ref={setNodeRef}
+      aria-hidden
+      data-testid="running-order-end"
+      className={`rounded-md border border-dashed px-2 py-1.5 text-center text-xs ${active ? `border-ink text-ink ${INSERT_MARK}` : 'border-paper-edge text-graphite-faint'}`}
+    >
+      Drop a gag here to add it after the last page
+    </div>
   );
 }
 
@@ -95,14 +136,13 @@ export function RunningOrder({
   const order = runningOrderActions(volumeId);
   const sensors = useSensors(
     useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
-    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
+    useSensor(KeyboardSensor, { coordinateGetter: runningOrderKeys }),
   );
-  const label = (id: string | number) => {
-    const i = entries.findIndex((e) => e.id === id);
-    if (i >= 0) return `page ${i + 1}, ${entryLabel(entries[i]!)}`;
-    const g = unplaced.find((x) => `gag:${x.id}` === id);
-    return g ? `the gag ${g.title}` : 'the item';
-  };
+  const [dragging, setDragging] = useState<{ active: string; over: string | null } | null>(null);
+  const [focusEntry, setFocusEntry] = useState<string | null>(null);
+  const what = (id: string | number) => sayWhat(String(id), entries, unplaced);
+  const where = (active: string | number, over: string | number | null | undefined) =>
+    landing(String(active), over == null ? null : String(over), entries);
 
   const run = async (fn: () => Promise<unknown>) => {
     setError(null);
@@ -115,42 +155,58 @@ export function RunningOrder({
   };
 
   const onDragEnd = async ({ active, over }: DragEndEvent) => {
-    if (!over) return;
+    setDragging(null);
     const activeId = String(active.id);
-    if (activeId.startsWith('gag:')) {
-      // Dropped from the unplaced list: append, then move next to where it was dropped.
+    const to = where(activeId, over?.id);
+    if (!to || to.request === 'none') return;
+    const request = to.request;
+    if (isUnplaced(activeId)) {
+      // From the unplaced list: append, then move next to where it was dropped.
+      let placed: string | null = null;
       await run(async () => {
         const e = await order.addGag(activeId.slice(4));
-        if (over.id !== 'running-order' && over.id !== e.id) {
-          await order.move(e.id, { before: String(over.id) });
-        }
+        placed = e.id;
+        if (request !== 'append') await order.move(e.id, request);
       });
+      // The row it was picked from is gone: keep the keyboard on the gag, now a page.
+      setFocusEntry(placed);
       return;
     }
-    if (active.id === over.id) return;
-    const from = entries.findIndex((e) => e.id === active.id);
-    const to = entries.findIndex((e) => e.id === over.id);
-    if (from < 0 || to < 0) return;
-    const next = arrayMove(entries, from, to);
-    await onChanged(next); // show the new order at once
-    await run(() => order.move(activeId, to > from ? { after: String(over.id) } : { before: String(over.id) }));
+    const from = entries.findIndex((e) => e.id === activeId);
+    await onChanged(arrayMove(entries, from, to.page - 1)); // show the new order at once
+    await run(() => order.move(activeId, request === 'append' ? { after: entries[entries.length - 1]!.id } : request));
   };
 
   return (
     <DndContext
       sensors={sensors}
-      collisionDetection={closestCenter}
+      collisionDetection={runningOrderCollisions}
+      onDragStart={({ active }) => {
+        setFocusEntry(null);
+        setDragging({ active: String(active.id), over: null });
+      }}
+      onDragOver={({ active, over }) => setDragging({ active: String(active.id), over: over ? String(over.id) : null })}
+      onDragCancel={() => setDragging(null)}
       onDragEnd={(e) => void onDragEnd(e)}
       accessibility={{
         announcements: {
-          onDragStart: ({ active }) => `Picked up ${label(active.id)}.`,
-          onDragOver: ({ active, over }) =>
-            over ? `${label(active.id)} is over ${label(over.id)}.` : `${label(active.id)} is no longer over a page.`,
-          onDragEnd: ({ active, over }) => (over ? `${label(active.id)} was dropped at ${label(over.id)}.` : `${label(active.id)} was dropped.`),
-          onDragCancel: ({ active }) => `Moving ${label(active.id)} was cancelled.`,
+          onDragStart: ({ active }) => `Picked up: ${what(active.id)}.`,
+          onDragOver: ({ active, over }) => {
+            const to = where(active.id, over?.id);
+            if (!to) return `${what(active.id)} is not over the running order; dropping it now changes nothing.`;
+            if (to.request === 'none') return `${what(active.id)} would stay at ${sayPlace(to)}.`;
+            return `${what(active.id)} would go to ${sayPlace(to)}.`;
+          },
+          onDragEnd: ({ active, over }) => {
+            const to = where(active.id, over?.id);
+            if (!to || to.request === 'none') return `${what(active.id)} was dropped where it was; nothing changed.`;
+            return `${what(active.id)} was dropped at ${sayPlace(to)}.`;
+          },
+          onDragCancel: ({ active }) => `Moving ${what(active.id).replace(/^[A-Z]/, (c) => c.toLowerCase())} was cancelled; nothing changed.`,
         },
         screenReaderInstructions: {
-          draggable: 'To pick up a page, press space or enter. Use the arrow keys to move it, space or enter to drop it, escape to cancel.',
+          draggable:
+            'To pick up a page or an unplaced gag, press space or enter. The up and down arrow keys move it one place at a time through the running order; space or enter drops it there, escape cancels.',
         },
       }}
     >
@@ -164,13 +220,22 @@ export function RunningOrder({
               {error}
             </p>
           )}
-          <SortableContext items={entries.map((e) => e.id)} strategy={verticalListSortingStrategy} id="running-order">
+          <SortableContext items={entries.map((e) => e.id)} strategy={verticalListSortingStrategy} id={RUNNING_ORDER_ID}>
             <ol className="space-y-1" aria-label="Running order">
               {entries.map((e, i) => (
-                <Row key={e.id} entry={e} index={i} canEdit={canEdit} onRemove={() => void run(() => order.remove(e.id))} />
+                <Row
+                  key={e.id}
+                  entry={e}
+                  index={i}
+                  canEdit={canEdit}
+                  onRemove={() => void run(() => order.remove(e.id))}
+                  insertHere={!!dragging && isUnplaced(dragging.active) && dragging.over === e.id}
+                  focusHandle={focusEntry === e.id}
+                />
               ))}
             </ol>
           </SortableContext>
+          <EndSlot canEdit={canEdit} active={!!dragging && dragging.over === END_SLOT && dragging.active !== entries[entries.length - 1]?.id} />
           {canEdit && (
             <div className="flex flex-wrap items-end gap-2">
               <label className="text-sm font-bold text-graphite-soft">

@@ -1,12 +1,12 @@
 // Gags with their four beats. Every write that touches a beat also bumps the
 // gag's updatedAt, so "last change" on the board means any change.
 import type { Kysely, Selectable, Transaction } from 'kysely';
-import { BEAT_KINDS, type BeatKind, type GagStatus, checkManualMove } from '@/lib/gags/status';
+import { BEAT_KINDS, type BeatKind, type GagStatus, STATUS_LABELS, checkManualMove } from '@/lib/gags/status';
 import { Refused } from '@/lib/refused';
 import type { BeatsTable, Database, GagsTable } from '../database';
 import { lockPassesOf, lockRow } from '../dialect';
 import { recordActivity } from './activity';
-import { clearReadyStamps, readyStampStands } from './stamps';
+import { type StampMark, clearReadyStamps, readyStampStands, stampMarks } from './stamps';
 
 export type BeatDto = Pick<Selectable<BeatsTable>, 'kind' | 'note' | 'updatedAt'>;
 /** A gag as the app shows it: its row (but who started it), its beats, and its newest pass. */
@@ -15,6 +15,8 @@ export type GagDto = Omit<Selectable<GagsTable>, 'createdBy'> & {
   beatsWritten: number;
   /** The newest pass, for the board's thumbnail. */
   latestPass: { id: string; number: number; seq: number } | null;
+  /** The newest stamp: which pass was approved ("ready", standing or cleared) or sent back ("again"). */
+  stamp: StampMark | null;
 };
 
 type Db = Kysely<Database> | Transaction<Database>;
@@ -23,7 +25,7 @@ function beatOrder(kind: BeatKind): number {
   return BEAT_KINDS.indexOf(kind);
 }
 
-async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten' | 'latestPass'>[]): Promise<GagDto[]> {
+async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten' | 'latestPass' | 'stamp'>[]): Promise<GagDto[]> {
   if (gags.length === 0) return [];
   const passes = await db
     .selectFrom('passes')
@@ -48,6 +50,10 @@ async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten' |
       gags.map((g) => g.id),
     )
     .execute();
+  const marks = await stampMarks(
+    db,
+    gags.map((g) => g.id),
+  );
   const byGag = new Map<string, BeatDto[]>();
   for (const b of beats) {
     const list = byGag.get(b.gagId) ?? [];
@@ -56,7 +62,13 @@ async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten' |
   }
   return gags.map((g) => {
     const list = (byGag.get(g.id) ?? []).sort((a, b) => beatOrder(a.kind) - beatOrder(b.kind));
-    return { ...g, beats: list, beatsWritten: list.filter((b) => b.note.trim() !== '').length, latestPass: latest.get(g.id) ?? null };
+    return {
+      ...g,
+      beats: list,
+      beatsWritten: list.filter((b) => b.note.trim() !== '').length,
+      latestPass: latest.get(g.id) ?? null,
+      stamp: marks.get(g.id) ?? null,
+    };
   });
 }
 
@@ -159,18 +171,37 @@ export async function updateGag(
 
 export type GagPatch = Parameters<typeof updateGag>[2];
 
-/** A person's edit of a gag: a status moved by hand must follow lib/gags/status (422 otherwise). */
-export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPatch): Promise<void> {
-  await db.transaction().execute(async (trx) => {
+/**
+ * A person's edit of a gag: a status moved by hand must follow lib/gags/status (422 otherwise),
+ * and the move is told in the series' activity. Returns whether the status changed.
+ */
+export async function patchGag(
+  db: Kysely<Database>,
+  gagId: string,
+  patch: GagPatch,
+  userId: string | null = null,
+): Promise<{ statusChanged: boolean }> {
+  return db.transaction().execute(async (trx) => {
     // Two edits at once: the second checks its status move against the first's result.
     await lockRow(trx, 'gags', gagId);
-    const current = await trx.selectFrom('gags').select('status').where('id', '=', gagId).executeTakeFirst();
+    const current = await trx.selectFrom('gags').select(['status', 'seriesId', 'title']).where('id', '=', gagId).executeTakeFirst();
     if (!current) throw new Refused(404, 'Not found.');
+    const moved = !!patch.status && patch.status !== current.status;
     if (patch.status) {
       const check = checkManualMove(current.status, patch.status, { readyStampStands: await readyStampStands(trx, gagId) });
       if (!check.ok) throw new Refused(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
     }
     await updateGag(trx, gagId, patch);
+    if (moved) {
+      await recordActivity(trx, {
+        seriesId: current.seriesId,
+        gagId,
+        userId,
+        kind: 'gag.status',
+        summary: `moved “${patch.title ?? current.title}” from ${STATUS_LABELS[current.status]} to ${STATUS_LABELS[patch.status!]}`,
+      });
+    }
+    return { statusChanged: moved };
   });
 }
 

@@ -27,6 +27,35 @@ export type StampDto = {
 
 const STAMPABLE = new Set(['idea', 'thumbnailing', 'in_review', 'ready_to_ink']);
 
+/**
+ * The newest stamp of each gag, for its card on the board: which pass it names,
+ * "ready" or "again", and whether a "ready" stamp still stands.
+ */
+export type StampMark = { passId: string; passNumber: number; decision: StampDecision; standing: boolean };
+
+export async function stampMarks(db: Db, gagIds: string[]): Promise<Map<string, StampMark>> {
+  const marks = new Map<string, StampMark>();
+  if (gagIds.length === 0) return marks;
+  const rows = await db
+    .selectFrom('stamps as s')
+    .innerJoin('passes as p', 'p.id', 's.passId')
+    .select(['s.gagId', 's.passId', 'p.number as passNumber', 's.decision', 's.clearedAt', 's.createdAt'])
+    .where('s.gagId', 'in', gagIds)
+    .orderBy('s.createdAt', 'desc')
+    .orderBy('s.id', 'desc')
+    .execute();
+  for (const r of rows) {
+    if (marks.has(r.gagId)) continue;
+    marks.set(r.gagId, {
+      passId: r.passId,
+      passNumber: r.passNumber,
+      decision: r.decision,
+      standing: r.decision === 'ready' && r.clearedAt === null,
+    });
+  }
+  return marks;
+}
+
 /** A gag's "ready to ink" stamp that still stands, if any. */
 export async function readyStampStands(db: Db, gagId: string): Promise<boolean> {
   const row = await db

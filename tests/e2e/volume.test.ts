@@ -1,6 +1,6 @@
 // The volume page in Chromium: reorder with the mouse and the keyboard (kept
-// after a reload), the flatplan's blank-page warning, an export with its
-// progress bar that downloads a PDF.
+// after a reload), an unplaced gag placed by keyboard alone and by mouse, the
+// flatplan's blank-page warning, an export with its progress bar that downloads a PDF.
 import fs from 'node:fs';
 import type { Page } from 'playwright-core';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
@@ -11,6 +11,8 @@ const baseUrl = inject('baseUrl');
 const page = usePage();
 const VOLUME = `${baseUrl}/series/demo-kettle-crab/volumes/demo-volume-low-tide`;
 
+/** What dnd-kit's live region (role status) last said to screen readers. */
+const said = (p: Page) => p.locator('[id^="DndLiveRegion"]').textContent();
 const names = (p: Page) => p.getByTestId('running-order-entry').evaluateAll((els) => els.map((e) => e.querySelector('span.flex-1')!.textContent));
 
 beforeAll(async () => {
@@ -43,10 +45,13 @@ describe('volume "Low Tide"', () => {
     const target = page.getByTestId('running-order-entry').nth(4);
     const a = (await handle.boundingBox())!;
     const b = (await target.boundingBox())!;
+    // The reload below waits for the move to be stored, not for a fixed time.
+    const stored = page.waitForResponse((r) => r.url().endsWith('/position') && r.request().method() === 'PUT');
     await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
     await page.mouse.down();
     for (let i = 1; i <= 12; i++) await page.mouse.move(a.x + a.width / 2, a.y + ((b.y + b.height / 2 + 4 - a.y) * i) / 12);
     await page.mouse.up();
+    expect((await stored).status()).toBe(200);
     const want = [
       'Cover',
       'Title page',
@@ -88,6 +93,77 @@ describe('volume "Low Tide"', () => {
     await page.reload();
     await page.getByRole('heading', { name: 'Low Tide' }).waitFor();
     expect(await names(page)).toEqual(want);
+  });
+
+  it('places an unplaced gag by keyboard alone: each arrow moves it one place, and it lands where announced', async () => {
+    const before = await names(page);
+    expect(before).toHaveLength(9);
+    await page.getByRole('button', { name: 'Drag Handle Swing into the volume' }).focus();
+    const heard: string[] = [];
+    for (const key of ['Space', 'ArrowUp', 'ArrowUp', 'ArrowUp', 'ArrowUp', 'ArrowUp', 'ArrowUp', 'ArrowDown', 'ArrowUp', 'ArrowUp']) {
+      await page.keyboard.press(key);
+      await page.waitForTimeout(150);
+      heard.push((await said(page)) ?? '');
+    }
+    // Picked up over the end (where "add" puts it), then one place per key, both ways.
+    expect(heard).toEqual([
+      'The gag Handle Swing would go to page 10, after Finders Keepers.',
+      'The gag Handle Swing would go to page 9, after Moving Day.',
+      'The gag Handle Swing would go to page 8, after Afterword.',
+      'The gag Handle Swing would go to page 7, after Whistle Alarm.',
+      'The gag Handle Swing would go to page 6, after Low Tide Lunch.',
+      'The gag Handle Swing would go to page 5, after Lid Umbrella.',
+      'The gag Handle Swing would go to page 4, after Spout Periscope.',
+      'The gag Handle Swing would go to page 5, after Lid Umbrella.',
+      'The gag Handle Swing would go to page 4, after Spout Periscope.',
+      'The gag Handle Swing would go to page 3, after Title page.',
+    ]);
+    await page.keyboard.press('Space');
+    await expect.poll(() => said(page)).toBe('The gag Handle Swing was dropped at page 3, after Title page.');
+    const want = [...before.slice(0, 2), 'Handle Swing', ...before.slice(2)];
+    await expect.poll(() => names(page)).toEqual(want);
+    // The keyboard stays on the gag, now page 3 of the running order.
+    await expect.poll(() => page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toBe('Move page 3, Handle Swing');
+    await page.reload();
+    await page.getByRole('heading', { name: 'Low Tide' }).waitFor();
+    expect(await names(page)).toEqual(want);
+  });
+
+  it('escape puts a picked-up gag back; the first page and the end are reachable by keyboard', async () => {
+    const before = await names(page);
+    const grip = page.getByRole('button', { name: 'Drag Sideways Race into the volume' });
+    await grip.focus();
+    await page.keyboard.press('Space');
+    await page.waitForTimeout(150);
+    for (let i = 0; i < before.length + 3; i++) await page.keyboard.press('ArrowUp');
+    await page.waitForTimeout(150);
+    expect(await said(page)).toBe('The gag Sideways Race would go to page 1, before Cover.');
+    await page.keyboard.press('Escape');
+    await expect.poll(() => said(page)).toBe('Moving the gag Sideways Race was cancelled; nothing changed.');
+    await page.waitForTimeout(300);
+    expect(await names(page)).toEqual(before);
+    // Picked up again and dropped at once: added after the last page.
+    await grip.focus();
+    await page.keyboard.press('Space');
+    await page.waitForTimeout(150);
+    await page.keyboard.press('Space');
+    await expect.poll(() => names(page)).toEqual([...before, 'Sideways Race']);
+  });
+
+  it('drags an unplaced gag in with the mouse, in front of the page it is dropped on', async () => {
+    const before = await names(page);
+    const grip = page.getByRole('button', { name: 'Drag Sugar Cube into the volume' });
+    const target = page.getByTestId('running-order-entry').nth(1); // "Title page"
+    const a = (await grip.boundingBox())!;
+    const b = (await target.boundingBox())!;
+    await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
+    await page.mouse.down();
+    const steps = 15;
+    for (let i = 1; i <= steps; i++) {
+      await page.mouse.move(a.x + ((b.x + b.width / 2 - a.x) * i) / steps, a.y + ((b.y + b.height / 2 - a.y) * i) / steps);
+    }
+    await page.mouse.up();
+    await expect.poll(() => names(page)).toEqual([before[0], 'Sugar Cube', ...before.slice(1)]);
   });
 
   it('an export shows its progress bar and downloads a PDF', async () => {

@@ -9,6 +9,8 @@ import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as commentsRoute from '@/app/api/gags/[gagId]/comments/route';
 import * as memberRoute from '@/app/api/series/[seriesId]/members/[userId]/route';
 import * as gagsRoute from '@/app/api/series/[seriesId]/gags/route';
+import * as gagRoute from '@/app/api/gags/[gagId]/route';
+import * as stampRoute from '@/app/api/passes/[passId]/stamp/route';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
 import { createGag } from '@/db/queries/gags';
@@ -202,6 +204,40 @@ describe('the series stream', () => {
     const e = await s.waitFor((x) => x.type === 'gags' && (x.ids ?? []).includes(r.body.id));
     expect(e.topic).toBe(`series:${DEMO_SERIES_ID}`);
     await s.close();
+  });
+});
+
+describe('a status that changes reaches every open page', () => {
+  it('a stamp, a clearing and a hand move each tell the board (gags) and the gag page (gag, stamps)', async () => {
+    const { gagId, passId } = await newPass();
+    await callRoute(opsRoute.POST, { method: 'POST', as: 'cocreator', params: { passId }, body: { batchId: randomUUID(), ops: [strokeOp('s1')] } });
+    const board = await open(seriesEventsRoute.GET, { seriesId: DEMO_SERIES_ID }, 'viewer');
+    const page = await open(gagEventsRoute.GET, { gagId }, 'viewer', '?tab=t-status&where=page');
+    await board.waitFor((e) => e.type === 'hello');
+    await page.waitFor((e) => e.type === 'hello');
+    const told = async (from: [number, number]) => {
+      await board.waitFor((e) => e.type === 'gags' && (e.ids ?? []).includes(gagId), 5000, from[0]);
+      await page.waitFor((e) => e.type === 'gag', 5000, from[1]);
+      await page.waitFor((e) => e.type === 'stamps', 5000, from[1]);
+    };
+    const mark = (): [number, number] => [board.events.length, page.events.length];
+
+    let from = mark();
+    const stamped = await callRoute(stampRoute.POST, { method: 'POST', as: 'editor', params: { passId }, body: { decision: 'ready', note: '' } });
+    expect(stamped.status).toBe(201);
+    await told(from);
+
+    from = mark();
+    await callRoute(opsRoute.POST, { method: 'POST', as: 'cocreator', params: { passId }, body: { batchId: randomUUID(), ops: [strokeOp('s2')] } });
+    await told(from);
+
+    from = mark();
+    const moved = await callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { gagId }, body: { status: 'thumbnailing' } });
+    expect(moved.status).toBe(200);
+    await told(from);
+    await board.waitFor((e) => e.type === 'activity', 5000, from[0]);
+    await board.close();
+    await page.close();
   });
 });
 

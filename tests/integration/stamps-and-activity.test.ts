@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as gagRoute from '@/app/api/gags/[gagId]/route';
 import * as passesRoute from '@/app/api/gags/[gagId]/passes/route';
@@ -5,6 +6,8 @@ import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as restoreRoute from '@/app/api/passes/[passId]/revisions/[revisionId]/restore/route';
 import * as stampRoute from '@/app/api/passes/[passId]/stamp/route';
 import * as activityRoute from '@/app/api/series/[seriesId]/activity/route';
+import * as seriesGagsRoute from '@/app/api/series/[seriesId]/gags/route';
+import { createGag } from '@/db/queries/gags';
 import { listRevisions } from '@/db/queries/revisions';
 import { callRoute } from '../support/call-route';
 import { startMailFake } from '../support/mail-fake';
@@ -167,5 +170,63 @@ describe('"ready to ink" comes only from a stamp', () => {
     expect(refused.status).toBe(422);
     expect(refused.body.error).toMatch(/stamp/);
     expect(await gagStatus(gagId)).toBe('inked');
+  });
+});
+
+describe('the stamp marks on the cards', () => {
+  const boardCard = async (gagId: string) =>
+    ((await callRoute(seriesGagsRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } })).body as { id: string; stamp: unknown }[]).find(
+      (g) => g.id === gagId,
+    )!.stamp;
+  async function newGagWithPass(title: string) {
+    const gagId = randomUUID();
+    await createGag(db, { id: gagId, seriesId: DEMO_SERIES_ID, title, premise: '' });
+    return { gagId, passId: await gagWithPass(gagId) };
+  }
+
+  it('a gag never stamped has no mark; "ready" names the pass and stands until a change clears it', async () => {
+    const { gagId, passId } = await newGagWithPass('Marked gag');
+    expect(await boardCard(gagId)).toBeNull();
+    await stamp(passId, 'editor', 'ready');
+    expect(await boardCard(gagId)).toEqual({ passId, passNumber: 1, decision: 'ready', standing: true });
+    await callRoute(opsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { passId },
+      body: { batchId: `clear-${gagId}`, ops: [{ op: 'add', stroke: line('c') }] },
+    });
+    expect(await boardCard(gagId)).toEqual({ passId, passNumber: 1, decision: 'ready', standing: false });
+  });
+
+  it('"needs another pass" marks the pass sent back; a newer stamp on another pass takes over the card', async () => {
+    const { gagId, passId } = await newGagWithPass('Sent-back gag');
+    await stamp(passId, 'editor', 'again', 'Turn is lost.');
+    expect(await boardCard(gagId)).toMatchObject({ passId, passNumber: 1, decision: 'again', standing: false });
+    const second = await callRoute(passesRoute.POST, { method: 'POST', as: 'cocreator', params: { gagId }, body: { copyFrom: 1 } });
+    // Stamps are ordered by their time: keep the second a millisecond later on any clock.
+    await new Promise((r) => setTimeout(r, 5));
+    await stamp(second.body.id, 'owner', 'ready');
+    expect(await boardCard(gagId)).toMatchObject({ passId: second.body.id, passNumber: 2, decision: 'ready', standing: true });
+  });
+});
+
+describe('hand status moves', () => {
+  it('are told in the activity, with who moved what from where to where; a refused move tells nothing', async () => {
+    const gagId = randomUUID();
+    await createGag(db, { id: gagId, seriesId: DEMO_SERIES_ID, title: 'Moved by hand', premise: '' });
+    const patch = (body: object) => callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { gagId }, body });
+    expect((await patch({ status: 'thumbnailing' })).status).toBe(200);
+    const feed = async () => (await callRoute(activityRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } })).body.items;
+    expect((await feed())[0]).toMatchObject({
+      kind: 'gag.status',
+      gagId,
+      by: 'Tam Quill',
+      summary: 'moved “Moved by hand” from Idea to Thumbnailing',
+    });
+    const top = (await feed())[0].id;
+    expect((await patch({ status: 'ready_to_ink' })).status).toBe(422);
+    expect((await patch({ premise: 'A premise, no move.' })).status).toBe(200);
+    expect((await patch({ status: 'thumbnailing' })).status).toBe(200); // the same status: no move
+    expect((await feed())[0].id).toBe(top);
   });
 });

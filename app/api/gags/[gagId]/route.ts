@@ -14,9 +14,11 @@ export const PATCH = withSeriesRole<Params, typeof updateGagSchema>(
   'edit',
   seriesOf,
   { body: updateGagSchema },
-  async ({ db, params, seriesId, body }) => {
-    await patchGag(db, params.gagId, body);
-    await gagChanged(seriesId, params.gagId, ['gag'], ['gags']);
+  async ({ db, params, seriesId, user, body }) => {
+    const { statusChanged } = await patchGag(db, params.gagId, body, user.id);
+    // A hand move may clear a "ready" stamp (its mark on the pass cards) and is told in the activity.
+    if (statusChanged) await gagChanged(seriesId, params.gagId, ['gag', 'stamps'], ['gags', 'activity']);
+    else await gagChanged(seriesId, params.gagId, ['gag'], ['gags']);
     return Response.json(await findGag(db, params.gagId));
   },
 );

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { LiveProvider } from '@/components/live/live-provider';
 import { VolumePage } from '@/components/volume/volume-page';
 import { loadVolume } from '@/lib/data/studio';
 
@@ -8,5 +9,10 @@ export const dynamic = 'force-dynamic';
 export default async function Volume({ params }: { params: Promise<{ seriesId: string; volumeId: string }> }) {
   const { seriesId, volumeId } = await params;
   const { series, role, volume } = await loadVolume(seriesId, volumeId);
-  return <VolumePage seriesId={series.id} seriesTitle={series.title} role={role} initial={volume} />;
+  // The series' stream: gags' status moves reach the running order's badges and the flatplan.
+  return (
+    <LiveProvider url={`/api/series/${series.id}/events`}>
+      <VolumePage seriesId={series.id} seriesTitle={series.title} role={role} initial={volume} />
+    </LiveProvider>
+  );
 }
