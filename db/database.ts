@@ -216,6 +216,15 @@ export interface ChecklistTicksTable {
   tickedAt: Timestamp;
 }
 
+/** An item ticked on an earlier pass, carried to this one as "to re-check" until it is ticked here. */
+export interface ChecklistRechecksTable {
+  passId: string;
+  itemId: string;
+  fromPassId: string;
+  carriedBy: string;
+  carriedAt: Timestamp;
+}
+
 export type { StampDecision } from '@/lib/review/words';
 import type { CommentTarget, StampDecision } from '@/lib/review/words';
 import type { EntryKind } from '@/lib/print/matter';
@@ -364,6 +373,7 @@ export interface Database {
   revisions: RevisionsTable;
   checklistItems: ChecklistItemsTable;
   checklistTicks: ChecklistTicksTable;
+  checklistRechecks: ChecklistRechecksTable;
   stamps: StampsTable;
   comments: CommentsTable;
   activity: ActivityTable;

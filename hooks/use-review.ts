@@ -14,11 +14,19 @@ import type { StampDecision } from '@/lib/review/words';
 
 export function useChecklist(passId: string | null) {
   const swr = useLiveSWR<ChecklistItemDto[]>(passId ? `/api/passes/${passId}/checklist` : null, fetcher, { types: ['checklist'], pollMs: 2000 });
-  async function setTicked(ids: string[]) {
-    const next = await api<ChecklistItemDto[]>(`/api/passes/${passId}/checklist`, { method: 'PUT', json: { ticked: ids } });
+  async function setTicked(ids: string[], recheck?: string[]) {
+    const next = await api<ChecklistItemDto[]>(`/api/passes/${passId}/checklist`, {
+      method: 'PUT',
+      json: { ticked: ids, ...(recheck ? { recheck } : {}) },
+    });
     await swr.mutate(next, { revalidate: false });
   }
-  return { ...swr, setTicked };
+  /** Marks the earlier pass's ticks "to re-check" here. */
+  async function carry(from: number) {
+    const next = await api<ChecklistItemDto[]>(`/api/passes/${passId}/checklist/carry`, { method: 'POST', json: { from } });
+    await swr.mutate(next, { revalidate: false });
+  }
+  return { ...swr, setTicked, carry };
 }
 
 export function useFindings(passId: string | null, seq?: number) {

@@ -18,6 +18,7 @@ import * as thumbRoute from '@/app/api/passes/[passId]/thumbnail.svg/route';
 import * as stampRoute from '@/app/api/passes/[passId]/stamp/route';
 import * as activityRoute from '@/app/api/series/[seriesId]/activity/route';
 import * as checklistRoute from '@/app/api/passes/[passId]/checklist/route';
+import * as carryRoute from '@/app/api/passes/[passId]/checklist/carry/route';
 import * as findingsRoute from '@/app/api/passes/[passId]/findings/route';
 import * as itemsRoute from '@/app/api/series/[seriesId]/checklist/route';
 import * as commentsRoute from '@/app/api/gags/[gagId]/comments/route';
@@ -282,6 +283,24 @@ const ROUTES: RouteCase[] = [
       const { passId } = await newPass();
       const [item] = await checklistItems(db, DEMO_SERIES_ID);
       return { params: { passId }, body: { ticked: [item!.id] } };
+    },
+    expected: row(401, 403, 200, 200, 200, 404),
+  },
+  {
+    // The ticks of the pass before, carried as "to re-check".
+    route: 'POST /api/passes/:passId/checklist/carry',
+    handler: carryRoute.POST,
+    method: 'POST',
+    prepare: async () => {
+      const { passId } = await newPass();
+      const [item] = await checklistItems(db, DEMO_SERIES_ID);
+      const gagId = (await db.selectFrom('passes').select('gagId').where('id', '=', passId).executeTakeFirstOrThrow()).gagId;
+      await db
+        .insertInto('checklistTicks')
+        .values({ passId, itemId: item!.id, userId: 'demo-user-editor', tickedAt: new Date().toISOString() })
+        .execute();
+      const next = await createPass(db, { gagId, userId: 'demo-user-owner' });
+      return { params: { passId: next.id }, body: {} };
     },
     expected: row(401, 403, 200, 200, 200, 404),
   },
@@ -628,6 +647,7 @@ async function snapshot() {
     revisions: await db.selectFrom('revisions').selectAll().orderBy('id').execute(),
     stamps: await db.selectFrom('stamps').selectAll().orderBy('id').execute(),
     ticks: await db.selectFrom('checklistTicks').selectAll().orderBy('passId').orderBy('itemId').execute(),
+    rechecks: await db.selectFrom('checklistRechecks').selectAll().orderBy('passId').orderBy('itemId').execute(),
     items: await db.selectFrom('checklistItems').selectAll().orderBy('id').execute(),
     comments: await db.selectFrom('comments').selectAll().orderBy('id').execute(),
     invitations: await db.selectFrom('invitations').selectAll().orderBy('id').execute(),
