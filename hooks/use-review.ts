@@ -10,6 +10,7 @@ import type { StampDto } from '@/db/queries/stamps';
 import type { ActivityDto } from '@/db/queries/activity';
 import { api, fetcher } from '@/lib/http/client';
 import type { Findings } from '@/lib/review/findings';
+import type { Mentions } from '@/lib/review/mentions';
 import type { StampDecision } from '@/lib/review/words';
 
 export function useChecklist(passId: string | null) {
@@ -46,10 +47,13 @@ export function useStamps(gagId: string | null) {
   return { ...swr, stamp };
 }
 
+export type PostedComment = CommentDto & { mentioned: string[]; mentions: Mentions; notified: { userId: string; name: string }[] };
+
 export function useComments(gagId: string | null) {
   const swr = useLiveSWR<ThreadDto[]>(gagId ? `/api/gags/${gagId}/comments` : null, fetcher, { types: ['comments'], pollMs: 2000 });
+  /** Posts; the answer also says what the mentions matched and whom an e-mail went to. */
   async function post(body: Record<string, unknown>) {
-    const c = await api<CommentDto>(`/api/gags/${gagId}/comments`, { method: 'POST', json: body });
+    const c = await api<PostedComment>(`/api/gags/${gagId}/comments`, { method: 'POST', json: body });
     await swr.mutate();
     return c;
   }

@@ -161,7 +161,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
         </section>
       )}
 
-      <section className="panel p-4" aria-labelledby="notify-title">
+      <section id="notifications" className="panel scroll-mt-4 p-4" aria-labelledby="notify-title">
         <h2 id="notify-title" className="text-xl font-extrabold">
           Notifications
         </h2>

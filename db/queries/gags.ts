@@ -6,6 +6,7 @@ import { Refused } from '@/lib/refused';
 import type { BeatsTable, Database, GagsTable } from '../database';
 import { lockPassesOf, lockRow } from '../dialect';
 import { recordActivity } from './activity';
+import { setGagStatus } from './gag-status';
 import { clearReadyStamps, readyStampStands } from './stamps';
 
 export type BeatDto = Pick<Selectable<BeatsTable>, 'kind' | 'note' | 'updatedAt'>;
@@ -140,16 +141,19 @@ export async function updateGag(
   trx: Transaction<Database>,
   gagId: string,
   patch: { title?: string; premise?: string; status?: GagStatus; beats?: { kind: BeatKind; note: string }[] },
+  userId: string | null,
 ): Promise<void> {
   const now = new Date().toISOString();
   if (patch.status && ['idea', 'thumbnailing', 'in_review'].includes(patch.status)) {
     // Pulled back to drafting by hand: a standing "ready to ink" stamp no longer holds.
     await clearReadyStamps(trx, gagId, now);
   }
-  const { beats, ...fields } = patch;
+  const { beats, status, ...fields } = patch;
   for (const beat of beats ?? []) {
     await trx.updateTable('beats').set({ note: beat.note, updatedAt: now }).where('gagId', '=', gagId).where('kind', '=', beat.kind).execute();
   }
+  // A move by hand is told in the activity, as every status change is (gag-status.ts).
+  if (status) await setGagStatus(trx, { gagId, to: status, userId, now });
   await trx
     .updateTable('gags')
     .set({ ...fields, updatedAt: now })
@@ -159,9 +163,12 @@ export async function updateGag(
 
 export type GagPatch = Parameters<typeof updateGag>[2];
 
-/** A person's edit of a gag: a status moved by hand must follow lib/gags/status (422 otherwise). */
-export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPatch): Promise<void> {
-  await db.transaction().execute(async (trx) => {
+/**
+ * A person's edit of a gag: a status moved by hand must follow lib/gags/status (422 otherwise), and is
+ * told in the activity as theirs. Returns whether the status changed.
+ */
+export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPatch, userId: string): Promise<{ moved: boolean }> {
+  return db.transaction().execute(async (trx) => {
     // Two edits at once: the second checks its status move against the first's result.
     await lockRow(trx, 'gags', gagId);
     const current = await trx.selectFrom('gags').select('status').where('id', '=', gagId).executeTakeFirst();
@@ -170,7 +177,8 @@ export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPa
       const check = checkManualMove(current.status, patch.status, { readyStampStands: await readyStampStands(trx, gagId) });
       if (!check.ok) throw new Refused(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
     }
-    await updateGag(trx, gagId, patch);
+    await updateGag(trx, gagId, patch, userId);
+    return { moved: !!patch.status && patch.status !== current.status };
   });
 }
 

@@ -9,6 +9,7 @@ import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as commentsRoute from '@/app/api/gags/[gagId]/comments/route';
 import * as memberRoute from '@/app/api/series/[seriesId]/members/[userId]/route';
 import * as gagsRoute from '@/app/api/series/[seriesId]/gags/route';
+import * as gagRoute from '@/app/api/gags/[gagId]/route';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
 import { createGag } from '@/db/queries/gags';
@@ -201,6 +202,32 @@ describe('the series stream', () => {
     expect(r.status).toBe(201);
     const e = await s.waitFor((x) => x.type === 'gags' && (x.ids ?? []).includes(r.body.id));
     expect(e.topic).toBe(`series:${DEMO_SERIES_ID}`);
+    await s.close();
+  });
+});
+
+describe('the board’s activity panel', () => {
+  it('hears of a status moved by hand (the move is in the activity), and of a comment', async () => {
+    const s = await open(seriesEventsRoute.GET, { seriesId: DEMO_SERIES_ID }, 'viewer');
+    await s.waitFor((e) => e.type === 'hello');
+    const from = s.events.length;
+    const r = await callRoute(gagRoute.PATCH, {
+      method: 'PATCH',
+      as: 'cocreator',
+      params: { gagId: 'demo-gag-11' },
+      body: { status: 'thumbnailing' },
+    });
+    expect(r.status).toBe(200);
+    await s.waitFor((x) => x.type === 'activity' && x.topic === `series:${DEMO_SERIES_ID}`, 5000, from);
+    // A title edit moves nothing and tells the activity nothing (the board still hears of the gag).
+    const mark = s.events.length;
+    await callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { gagId: 'demo-gag-11' }, body: { title: 'Sideways Race' } });
+    await s.waitFor((x) => x.type === 'gags', 5000, mark);
+    expect(s.events.slice(mark).some((x) => x.type === 'activity')).toBe(false);
+    const beforeComment = s.events.length;
+    const c = await callRoute(commentsRoute.POST, { method: 'POST', as: 'editor', params: { gagId: 'demo-gag-11' }, body: { body: 'Faster?' } });
+    expect(c.status).toBe(201);
+    await s.waitFor((x) => x.type === 'activity', 5000, beforeComment);
     await s.close();
   });
 });

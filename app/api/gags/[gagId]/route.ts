@@ -9,14 +9,14 @@ const seriesOf = byGagId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => Response.json(await findGag(db, params.gagId)));
 
-/** Any of title, premise, status, beats. Status moves follow lib/gags/status. */
+/** Any of title, premise, status, beats. Status moves follow lib/gags/status and are told in the activity. */
 export const PATCH = withSeriesRole<Params, typeof updateGagSchema>(
   'edit',
   seriesOf,
   { body: updateGagSchema },
-  async ({ db, params, seriesId, body }) => {
-    await patchGag(db, params.gagId, body);
-    await gagChanged(seriesId, params.gagId, ['gag'], ['gags']);
+  async ({ db, params, seriesId, body, user }) => {
+    const { moved } = await patchGag(db, params.gagId, body, user.id);
+    await gagChanged(seriesId, params.gagId, ['gag'], moved ? ['gags', 'activity'] : ['gags']);
     return Response.json(await findGag(db, params.gagId));
   },
 );
