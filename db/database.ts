@@ -285,6 +285,8 @@ export interface InvitationsTable {
   acceptedAt: Timestamp | null;
   acceptedBy: string | null;
   revokedAt: Timestamp | null;
+  /** The invitation sent again in its place (revokedAt is set too); null otherwise. */
+  replacedBy: ColumnType<string | null, string | null | undefined, string | null>;
   /** 0: only the account with `email` may accept; 1: anyone with the link (the owner chose it). */
   anyoneWithLink: ColumnType<number, number | undefined, number>;
 }

@@ -4,7 +4,9 @@ import 'server-only';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
 import { notifiableAddress, stampNotice } from '@/db/queries/mail';
-import { type Mail, mentionMail, stampMail } from './templates';
+import { findSeries } from '@/db/queries/series';
+import type { Role } from '@/lib/auth/permissions';
+import { type Mail, invitationMail, mentionMail, stampMail } from './templates';
 import { sendMail } from './transport';
 
 /** The address links in e-mails point to. */
@@ -72,4 +74,25 @@ export async function notifyMentions(
     if (sent) told.push({ userId: m.userId, name: m.name });
   }
   return told;
+}
+
+/** An invitation's e-mail with its one-time link (sent whatever the person's settings: they are not a member yet). */
+export async function sendInvitation(
+  db: Kysely<Database>,
+  inv: { seriesId: string; inviter: string; email: string; role: Role; token: string; expiresAt: Date; anyoneWithLink: boolean },
+): Promise<{ ok: boolean }> {
+  const series = await findSeries(db, inv.seriesId);
+  return sendMail(
+    db,
+    inv.email,
+    'invitation',
+    invitationMail({
+      seriesTitle: series!.title,
+      inviter: inv.inviter,
+      role: inv.role,
+      link: `${appUrl()}/invite/${inv.token}`,
+      expiresAt: inv.expiresAt,
+      forAddress: inv.anyoneWithLink ? null : inv.email,
+    }),
+  );
 }

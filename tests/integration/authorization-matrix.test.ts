@@ -25,6 +25,8 @@ import * as commentsRoute from '@/app/api/gags/[gagId]/comments/route';
 import * as commentRoute from '@/app/api/comments/[commentId]/route';
 import { createComment } from '@/db/queries/comments';
 import * as invitationsRoute from '@/app/api/series/[seriesId]/invitations/route';
+import * as invitationRoute from '@/app/api/series/[seriesId]/invitations/[invitationId]/route';
+import * as resendRoute from '@/app/api/series/[seriesId]/invitations/[invitationId]/resend/route';
 import * as membersRoute from '@/app/api/series/[seriesId]/members/route';
 import * as memberRoute from '@/app/api/series/[seriesId]/members/[userId]/route';
 import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
@@ -145,6 +147,12 @@ async function newInvitationToken(): Promise<string> {
   const { id } = await createSeries(db, { id: randomUUID(), title: 'Elsewhere', ownerId });
   const input = { seriesId: id, email: `${randomUUID()}@pier.test`, role: 'viewer' as const, invitedBy: ownerId, anyoneWithLink: true };
   return (await createInvitation(db, input)).token;
+}
+
+/** A pending invitation to Kettle Crab, for the owner to withdraw or send again. */
+async function demoInvitation(): Promise<string> {
+  const input = { seriesId: DEMO_SERIES_ID, email: `${randomUUID()}@pier.test`, role: 'viewer' as const, invitedBy: 'demo-user-owner' };
+  return (await createInvitation(db, input)).id;
 }
 
 /** A volume with two gag pages. */
@@ -384,6 +392,20 @@ const ROUTES: RouteCase[] = [
     handler: invitationsRoute.POST,
     method: 'POST',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { email: `${randomUUID()}@pier.test`, role: 'viewer' } }),
+    expected: row(401, 403, 403, 403, 201, 404),
+  },
+  {
+    route: 'DELETE /api/series/:seriesId/invitations/:invitationId',
+    handler: invitationRoute.DELETE,
+    method: 'DELETE',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID, invitationId: await demoInvitation() } }),
+    expected: row(401, 403, 403, 403, 204, 404),
+  },
+  {
+    route: 'POST /api/series/:seriesId/invitations/:invitationId/resend',
+    handler: resendRoute.POST,
+    method: 'POST',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID, invitationId: await demoInvitation() } }),
     expected: row(401, 403, 403, 403, 201, 404),
   },
   {
