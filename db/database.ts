@@ -216,6 +216,15 @@ export interface ChecklistTicksTable {
   tickedAt: Timestamp;
 }
 
+/** An item ticked on an earlier pass, carried to this one as "to re-check" until it is ticked here. */
+export interface ChecklistRechecksTable {
+  passId: string;
+  itemId: string;
+  fromPassId: string;
+  carriedBy: string;
+  carriedAt: Timestamp;
+}
+
 export type { StampDecision } from '@/lib/review/words';
 import type { CommentTarget, StampDecision } from '@/lib/review/words';
 import type { EntryKind } from '@/lib/print/matter';
@@ -276,6 +285,8 @@ export interface InvitationsTable {
   acceptedAt: Timestamp | null;
   acceptedBy: string | null;
   revokedAt: Timestamp | null;
+  /** The invitation sent again in its place (revokedAt is set too); null otherwise. */
+  replacedBy: ColumnType<string | null, string | null | undefined, string | null>;
   /** 0: only the account with `email` may accept; 1: anyone with the link (the owner chose it). */
   anyoneWithLink: ColumnType<number, number | undefined, number>;
 }
@@ -364,6 +375,7 @@ export interface Database {
   revisions: RevisionsTable;
   checklistItems: ChecklistItemsTable;
   checklistTicks: ChecklistTicksTable;
+  checklistRechecks: ChecklistRechecksTable;
   stamps: StampsTable;
   comments: CommentsTable;
   activity: ActivityTable;

@@ -5,7 +5,16 @@ import type { MemberDto } from '@/db/queries/members';
 import type { Role } from '@/lib/auth/permissions';
 import { api, fetcher } from '@/lib/http/client';
 
-export type InvitationDto = { id: string; email: string; role: Role; anyoneWithLink: boolean; expiresAt: string; invitedBy: string };
+export type InvitationDto = {
+  id: string;
+  email: string;
+  role: Role;
+  anyoneWithLink: boolean;
+  expiresAt: string;
+  invitedBy: string;
+  /** Past its 7 days: it can still be sent again (or withdrawn). */
+  expired: boolean;
+};
 
 export function useMembers(seriesId: string | null) {
   return useSWR<MemberDto[]>(seriesId ? `/api/series/${seriesId}/members` : null, fetcher);
@@ -32,6 +41,11 @@ export function memberActions(seriesId: string) {
       api(`/api/series/${seriesId}/invitations`, { method: 'POST', json: input }),
     changeRole: (userId: string, role: Role) => api(`/api/series/${seriesId}/members/${userId}`, { method: 'PATCH', json: { role } }),
     remove: (userId: string) => api(`/api/series/${seriesId}/members/${userId}`, { method: 'DELETE' }),
+    /** Withdraws an invitation: its link stops working. */
+    revoke: (invitationId: string) => api(`/api/series/${seriesId}/invitations/${invitationId}`, { method: 'DELETE' }),
+    /** Sends it again with a fresh link, valid 7 days from now; the old link stops working. */
+    resend: (invitationId: string) =>
+      api<{ email: string; mailed: boolean }>(`/api/series/${seriesId}/invitations/${invitationId}/resend`, { method: 'POST' }),
   };
 }
 

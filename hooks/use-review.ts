@@ -10,15 +10,24 @@ import type { StampDto } from '@/db/queries/stamps';
 import type { ActivityDto } from '@/db/queries/activity';
 import { api, fetcher } from '@/lib/http/client';
 import type { Findings } from '@/lib/review/findings';
+import type { Mentions } from '@/lib/review/mentions';
 import type { StampDecision } from '@/lib/review/words';
 
 export function useChecklist(passId: string | null) {
   const swr = useLiveSWR<ChecklistItemDto[]>(passId ? `/api/passes/${passId}/checklist` : null, fetcher, { types: ['checklist'], pollMs: 2000 });
-  async function setTicked(ids: string[]) {
-    const next = await api<ChecklistItemDto[]>(`/api/passes/${passId}/checklist`, { method: 'PUT', json: { ticked: ids } });
+  async function setTicked(ids: string[], recheck?: string[]) {
+    const next = await api<ChecklistItemDto[]>(`/api/passes/${passId}/checklist`, {
+      method: 'PUT',
+      json: { ticked: ids, ...(recheck ? { recheck } : {}) },
+    });
     await swr.mutate(next, { revalidate: false });
   }
-  return { ...swr, setTicked };
+  /** Marks the earlier pass's ticks "to re-check" here. */
+  async function carry(from: number) {
+    const next = await api<ChecklistItemDto[]>(`/api/passes/${passId}/checklist/carry`, { method: 'POST', json: { from } });
+    await swr.mutate(next, { revalidate: false });
+  }
+  return { ...swr, setTicked, carry };
 }
 
 export function useFindings(passId: string | null, seq?: number) {
@@ -38,10 +47,13 @@ export function useStamps(gagId: string | null) {
   return { ...swr, stamp };
 }
 
+export type PostedComment = CommentDto & { mentioned: string[]; mentions: Mentions; notified: { userId: string; name: string }[] };
+
 export function useComments(gagId: string | null) {
   const swr = useLiveSWR<ThreadDto[]>(gagId ? `/api/gags/${gagId}/comments` : null, fetcher, { types: ['comments'], pollMs: 2000 });
+  /** Posts; the answer also says what the mentions matched and whom an e-mail went to. */
   async function post(body: Record<string, unknown>) {
-    const c = await api<CommentDto>(`/api/gags/${gagId}/comments`, { method: 'POST', json: body });
+    const c = await api<PostedComment>(`/api/gags/${gagId}/comments`, { method: 'POST', json: body });
     await swr.mutate();
     return c;
   }

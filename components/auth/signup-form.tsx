@@ -3,7 +3,7 @@ import { signIn } from 'next-auth/react';
 import Link from 'next/link';
 import { useRouter } from 'next/navigation';
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { type Resolver, useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { api, messageOf } from '@/lib/http/client';
@@ -11,22 +11,34 @@ import type { SignUpInput } from '@/lib/validation/account';
 import { PASSWORD_MIN } from '@/lib/validation/password-limits';
 import { lazyZodResolver } from '@/lib/forms/lazy-resolver';
 
-export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
+const checkOwn = lazyZodResolver<SignUpInput>(() => import('@/lib/validation/account').then((m) => m.signUpSchema));
+const checkInvited = lazyZodResolver<SignUpInput>(() => import('@/lib/validation/account').then((m) => m.invitedSignUpSchema));
+/** Without an e-mail field (never shown: the address comes from the invitation), the fields but the address are checked. */
+const checkSignUp: Resolver<SignUpInput> = (values, context, options) =>
+  (values.email === undefined ? checkInvited : checkOwn)(values, context, options);
+
+/**
+ * `invited`: the person came from an invitation tied to one address. The account then takes that address
+ * from the invitation (shown partly masked, as the invitation page shows it), unless they choose another.
+ */
+export function SignUpForm({ callbackUrl, invited }: { callbackUrl?: string; invited?: { token: string; masked: string } | null }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
-  const { register, handleSubmit, formState } = useForm<SignUpInput>({
-    resolver: lazyZodResolver(() => import('@/lib/validation/account').then((m) => m.signUpSchema)),
-  });
+  const [ownAddress, setOwnAddress] = useState(!invited);
+  const fromInvitation = !!invited && !ownAddress;
+  const { register, handleSubmit, formState } = useForm<SignUpInput>({ resolver: checkSignUp });
 
   const onSubmit = handleSubmit(async (values) => {
     setError(null);
+    let email = values.email;
     try {
-      await api('/api/users', { method: 'POST', json: values });
+      const body = fromInvitation ? { name: values.name, password: values.password, invitation: invited!.token } : values;
+      email = (await api<{ email: string }>('/api/users', { method: 'POST', json: body })).email;
     } catch (err) {
       setError(messageOf(err, 'Could not create the account.'));
       return;
     }
-    const res = await signIn('credentials', { email: values.email, password: values.password, redirect: false });
+    const res = await signIn('credentials', { email, password: values.password, redirect: false });
     if (!res?.ok) {
       router.push('/signin');
       return;
@@ -48,9 +60,22 @@ export function SignUpForm({ callbackUrl }: { callbackUrl?: string }) {
       <Field id="name" label="Your name" error={formState.errors.name?.message}>
         <input id="name" autoComplete="name" className="field" {...register('name')} />
       </Field>
-      <Field id="email" label="E-mail" error={formState.errors.email?.message}>
-        <input id="email" type="email" autoComplete="email" className="field" {...register('email')} />
-      </Field>
+      {fromInvitation ? (
+        <div className="space-y-1">
+          <p className="text-sm font-bold text-graphite-soft">E-mail</p>
+          <p className="rounded-md border border-paper-edge bg-paper-deep/60 px-3 py-2" data-testid="invited-address">
+            <strong>{invited!.masked}</strong>
+            <span className="block text-xs text-graphite-faint">the address your invitation was sent to: your account takes it</span>
+          </p>
+          <button type="button" className="text-sm font-bold text-ink underline" onClick={() => setOwnAddress(true)}>
+            Use another address
+          </button>
+        </div>
+      ) : (
+        <Field id="email" label="E-mail" error={formState.errors.email?.message}>
+          <input id="email" type="email" autoComplete="email" className="field" {...register('email')} />
+        </Field>
+      )}
       <Field
         id="password"
         label="Password"

@@ -1,5 +1,6 @@
 'use client';
 // Members, roles and invitations of a series. Owners manage; others see who is in.
+import { useRouter } from 'next/navigation';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
@@ -11,6 +12,11 @@ import { ROLES, ROLE_HINT, ROLE_LABELS, type Role } from '@/lib/auth/permissions
 import { messageOf } from '@/lib/http/client';
 import { lazyZodResolver } from '@/lib/forms/lazy-resolver';
 import type { inviteSchema } from '@/lib/validation/members';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { InvitationsList } from './invitations-list';
+
+/** Why a member cannot be removed or stop being an owner: the series keeps at least one owner. */
+const LAST_OWNER = 'The series keeps at least one owner: make another member owner first.';
 
 export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { seriesId: string; seriesTitle: string; canManage: boolean; meId: string }) {
   const { data: members, mutate } = useMembers(seriesId);
@@ -18,6 +24,10 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
   const me = useMe();
   const actions = memberActions(seriesId);
   const [message, setMessage] = useState<string | null>(null);
+  const [removing, setRemoving] = useState<MemberDto | null>(null);
+  const router = useRouter();
+  const owners = (members ?? []).filter((m) => m.role === 'owner').length;
+  const lastOwner = (m: MemberDto) => m.role === 'owner' && owners <= 1;
   const form = useForm<z.input<typeof inviteSchema>>({
     resolver: lazyZodResolver(() => import('@/lib/validation/members').then((m) => m.inviteSchema)),
     defaultValues: { email: '', role: 'viewer', anyoneWithLink: false },
@@ -90,7 +100,7 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
                       }
                     >
                       {ROLES.map((r) => (
-                        <option key={r} value={r}>
+                        <option key={r} value={r} disabled={lastOwner(m) && r !== 'owner'}>
                           {ROLE_LABELS[r]}
                         </option>
                       ))}
@@ -101,15 +111,44 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
                 </td>
                 {canManage && (
                   <td className="px-3 py-2 text-right">
-                    <Button variant="ghost" className="text-stamp" onClick={() => void act(() => actions.remove(m.userId), `${m.name} was removed.`)}>
-                      Remove
+                    <Button
+                      variant="ghost"
+                      className="text-stamp"
+                      disabled={lastOwner(m)}
+                      aria-describedby={lastOwner(m) ? `last-owner-${m.userId}` : undefined}
+                      onClick={() => setRemoving(m)}
+                    >
+                      Remove{m.userId === meId ? ' me' : ''}
                     </Button>
+                    {lastOwner(m) && (
+                      <span id={`last-owner-${m.userId}`} className="block text-xs text-graphite-faint">
+                        {m.userId === meId ? 'You are the last owner. ' : 'The last owner. '}
+                        {LAST_OWNER}
+                      </span>
+                    )}
                   </td>
                 )}
               </tr>
             ))}
           </tbody>
         </table>
+        <ConfirmDialog
+          open={removing !== null}
+          title={removing?.userId === meId ? `Leave “${seriesTitle}”?` : `Remove ${removing?.name ?? ''} from “${seriesTitle}”?`}
+          body={<p>{removing?.userId === meId ? 'You will no longer see this series.' : 'They will no longer see this series.'}</p>}
+          confirmLabel={removing?.userId === meId ? 'Leave the series' : 'Remove'}
+          onCancel={() => setRemoving(null)}
+          onConfirm={() => {
+            const m = removing!;
+            setRemoving(null);
+            if (m.userId !== meId) return void act(() => actions.remove(m.userId), `${m.name} was removed.`);
+            // Leaving: nothing of this series is mine to see any more.
+            actions.remove(m.userId).then(
+              () => router.push('/series'),
+              (err: unknown) => setMessage(messageOf(err, 'That did not work.')),
+            );
+          }}
+        />
       </section>
 
       {canManage && (
@@ -147,21 +186,11 @@ export function MembersPage({ seriesId, seriesTitle, canManage, meId }: { series
             {ROLE_HINT}
           </p>
           <p className="text-xs text-graphite-faint">The link works once and for 7 days.</p>
-          {(invitations.data ?? []).length > 0 && (
-            <ul className="space-y-1 text-sm">
-              {invitations.data!.map((i) => (
-                <li key={i.id}>
-                  {i.email}
-                  {i.anyoneWithLink ? ' (open link: anyone who has it)' : ''} as {ROLE_LABELS[i.role]} — invited by {i.invitedBy}, until{' '}
-                  <span suppressHydrationWarning>{new Date(i.expiresAt).toLocaleDateString()}</span>
-                </li>
-              ))}
-            </ul>
-          )}
+          <InvitationsList invitations={invitations.data ?? []} act={act} resend={actions.resend} revoke={actions.revoke} />
         </section>
       )}
 
-      <section className="panel p-4" aria-labelledby="notify-title">
+      <section id="notifications" className="panel scroll-mt-4 p-4" aria-labelledby="notify-title">
         <h2 id="notify-title" className="text-xl font-extrabold">
           Notifications
         </h2>

@@ -6,10 +6,34 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import type { ThreadDto } from '@/db/queries/comments';
 import { useMembers } from '@/hooks/use-members';
-import { useComments } from '@/hooks/use-review';
+import { type PostedComment, useComments } from '@/hooks/use-review';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
 import { pointWhere } from '@/lib/review/words';
+import { type MentionMember, findMentions, mentionOutcome, mentionWarning } from '@/lib/review/mentions';
+import { MentionField } from './mention-field';
+
+/**
+ * Posting with mentions: a draft whose mentions match nobody (or several) is held once, with the
+ * warning in an alert, and goes on the second press; after posting, what the server says it did.
+ */
+function useMentionPost(members: MentionMember[] | null, post: (b: Record<string, unknown>) => Promise<PostedComment>) {
+  const [heldFor, setHeldFor] = useState<string | null>(null);
+  const [notice, setNotice] = useState<string | null>(null);
+  const send = async (body: Record<string, unknown> & { body: string }): Promise<boolean> => {
+    const warning = members ? mentionWarning(findMentions(body.body, members)) : null;
+    if (warning && heldFor !== body.body) {
+      setHeldFor(body.body);
+      setNotice(null);
+      return false;
+    }
+    const answer = await post(body);
+    setHeldFor(null);
+    setNotice(mentionOutcome(answer));
+    return true;
+  };
+  return { send, held: (draft: string) => heldFor === draft, notice, clearNotice: () => setNotice(null) };
+}
 
 export function pinLabel(c: Pick<ThreadDto, 'target' | 'passNumber' | 'panel' | 'beat' | 'x' | 'y'>): string {
   const panel = c.panel !== null ? `panel ${c.panel + 1} (${BEAT_LABELS[BEAT_KINDS[c.panel]!]})` : '';
@@ -51,7 +75,9 @@ export function CommentsPanel({
   onPosted?: () => void;
 }) {
   const { data, post, patch } = useComments(gagId);
-  const { data: members } = useMembers(seriesId);
+  const { data: memberList } = useMembers(seriesId);
+  const members = memberList ?? null;
+  const mention = useMentionPost(members, post);
   const [pinKey, setPinKey] = useState(onlyPassId ? `pass:${onlyPassId}` : 'gag');
   const [body, setBody] = useState('');
   const [error, setError] = useState<string | null>(null);
@@ -95,7 +121,7 @@ export function CommentsPanel({
     setError(null);
     const pin = pinOptions.find((o) => o.key === pinKey)?.pin ?? { target: 'gag' };
     try {
-      await post({ body, ...pin });
+      if (!(await mention.send({ body, ...pin }))) return;
       setBody('');
       if (pin.target === 'point') {
         setPinKey(onlyPassId ? `pass:${onlyPassId}` : 'gag');
@@ -128,22 +154,35 @@ export function CommentsPanel({
               ))}
             </select>
           </label>
-          <label className="block text-sm font-bold text-graphite-soft">
-            Comment
-            <textarea
-              className="field mt-1"
-              rows={3}
+          <div>
+            <label htmlFor={`comment-body-${gagId}`} className="block text-sm font-bold text-graphite-soft">
+              Comment
+            </label>
+            <MentionField
+              id={`comment-body-${gagId}`}
               value={body}
-              onChange={(e) => setBody(e.target.value)}
-              placeholder={`Type @ and a name to mention: ${(members ?? [])
-                .map((m) => `@${m.name}`)
-                .slice(0, 3)
-                .join(', ')}`}
+              onChange={(v) => {
+                setBody(v);
+                mention.clearNotice();
+              }}
+              members={members}
+              meId={meId}
+              placeholder="Type @ to mention a member"
             />
-          </label>
+          </div>
           <Button onClick={() => void submit()} disabled={!body.trim()}>
-            Post comment
+            {mention.held(body) ? 'Post anyway' : 'Post comment'}
           </Button>
+          {mention.held(body) && (
+            <p role="alert" className="text-sm text-stamp">
+              Not posted yet: {mentionWarning(findMentions(body, members ?? []))} Press “Post anyway” to post it as it is.
+            </p>
+          )}
+          {mention.notice && (
+            <p role="status" className="text-sm text-graphite-soft" data-testid="mention-outcome">
+              {mention.notice}
+            </p>
+          )}
           {error && (
             <p role="alert" className="text-sm text-stamp">
               {error}
@@ -156,7 +195,7 @@ export function CommentsPanel({
       ) : (
         <ol className="space-y-3">
           {threads.map((t) => (
-            <Thread key={t.id} t={t} meId={meId} canComment={canComment} patch={patch} post={post} />
+            <Thread key={t.id} t={t} meId={meId} canComment={canComment} patch={patch} post={post} members={members} />
           ))}
         </ol>
       )}
@@ -170,14 +209,17 @@ function Thread({
   canComment,
   patch,
   post,
+  members,
 }: {
   t: ThreadDto;
   meId: string;
   canComment: boolean;
   patch: (id: string, b: { body?: string; resolved?: boolean }) => Promise<void>;
-  post: (b: Record<string, unknown>) => Promise<unknown>;
+  post: (b: Record<string, unknown>) => Promise<PostedComment>;
+  members: MentionMember[] | null;
 }) {
   const [reply, setReply] = useState('');
+  const mention = useMentionPost(members, post);
   const [editing, setEditing] = useState<string | null>(null);
   const [draft, setDraft] = useState('');
   const all = [t, ...t.replies];
@@ -234,22 +276,29 @@ function Thread({
         <div className="mt-2 flex flex-wrap items-center gap-2">
           {!t.resolvedAt && (
             <>
-              <input
-                className="field flex-1 py-1 text-sm"
-                value={reply}
-                onChange={(e) => setReply(e.target.value)}
-                placeholder="Reply…"
-                aria-label="Reply"
-              />
+              <div className="min-w-0 flex-1">
+                <MentionField
+                  value={reply}
+                  onChange={(v) => {
+                    setReply(v);
+                    mention.clearNotice();
+                  }}
+                  members={members}
+                  meId={meId}
+                  label="Reply"
+                  rows={1}
+                  placeholder="Reply…"
+                  className="field py-1 text-sm"
+                />
+              </div>
               <Button
                 variant="secondary"
                 disabled={!reply.trim()}
                 onClick={async () => {
-                  await post({ body: reply, parentId: t.id });
-                  setReply('');
+                  if (await mention.send({ body: reply, parentId: t.id })) setReply('');
                 }}
               >
-                Reply
+                {mention.held(reply) ? 'Reply anyway' : 'Reply'}
               </Button>
             </>
           )}
@@ -257,6 +306,16 @@ function Thread({
             {t.resolvedAt ? 'Reopen' : 'Resolve'}
           </Button>
         </div>
+      )}
+      {mention.held(reply) && (
+        <p role="alert" className="mt-1 text-xs text-stamp">
+          Not sent yet: {mentionWarning(findMentions(reply, members ?? []))} Press “Reply anyway” to send it as it is.
+        </p>
+      )}
+      {mention.notice && (
+        <p role="status" className="mt-1 text-xs text-graphite-soft">
+          {mention.notice}
+        </p>
       )}
       {t.resolvedAt && <p className="mt-1 text-xs text-graphite-faint">Resolved by {t.resolvedBy}</p>}
     </li>

@@ -1,65 +1,14 @@
 'use client';
-// The silent-read checklist, the computed findings and the stamp for one pass.
+// The computed findings and the stamp for one pass (the checklist: checklist-card.tsx).
 import { AlertTriangle, CheckCircle2, Stamp } from 'lucide-react';
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { useChecklist, useFindings, useStamps } from '@/hooks/use-review';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { useFindings, useStamps } from '@/hooks/use-review';
 import { BEAT_KINDS, BEAT_LABELS } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
+import { redFindings } from '@/lib/review/finding-words';
 import type { StampDecision } from '@/lib/review/words';
-
-export function ChecklistCard({ passId, canTick }: { passId: string; canTick: boolean }) {
-  const { data, setTicked } = useChecklist(passId);
-  const [error, setError] = useState<string | null>(null);
-  const items = data ?? [];
-  const toggle = async (id: string, on: boolean) => {
-    setError(null);
-    const next = items.filter((i) => (i.id === id ? on : i.ticked)).map((i) => i.id);
-    try {
-      await setTicked(next);
-    } catch (err) {
-      setError(messageOf(err, 'Could not save the tick.'));
-    }
-  };
-  return (
-    <section className="panel p-4" aria-labelledby={`checklist-${passId}`}>
-      <h3 id={`checklist-${passId}`} className="mb-2 text-lg font-extrabold">
-        Silent-read checklist
-      </h3>
-      {error && (
-        <p role="alert" className="text-sm text-stamp">
-          {error}
-        </p>
-      )}
-      <ul className="space-y-1.5">
-        {items.map((i) => (
-          <li key={i.id}>
-            <label className="flex items-start gap-2 text-sm">
-              <input
-                type="checkbox"
-                className="mt-0.5"
-                checked={i.ticked}
-                disabled={!canTick}
-                onChange={(e) => void toggle(i.id, e.target.checked)}
-              />
-              <span>
-                {i.text}
-                {i.ticked && (
-                  <span className="block text-xs text-graphite-faint" suppressHydrationWarning>
-                    ✓ {i.by}, {i.at ? new Date(i.at).toLocaleString() : ''}
-                  </span>
-                )}
-              </span>
-            </label>
-          </li>
-        ))}
-      </ul>
-      <p className="mt-2 text-xs text-graphite-faint">
-        {items.filter((i) => i.ticked).length} of {items.length} ticked
-      </p>
-    </section>
-  );
-}
 
 export function FindingsCard({ passId, seq }: { passId: string; seq?: number }) {
   const { data } = useFindings(passId, seq);
@@ -113,11 +62,32 @@ export function FindingsCard({ passId, seq }: { passId: string; seq?: number }) 
   );
 }
 
-export function StampCard({ gagId, passId, passNumber, canStamp }: { gagId: string; passId: string; passNumber: number; canStamp: boolean }) {
+/**
+ * The stamp. "Ready to ink" while findings show in red asks first, naming them: the findings are
+ * advice (an empty panel may be meant), the stamp is the editor's call — but not by a slip.
+ */
+export function StampCard({
+  gagId,
+  passId,
+  passNumber,
+  seq,
+  canStamp,
+}: {
+  gagId: string;
+  passId: string;
+  passNumber: number;
+  seq?: number;
+  canStamp: boolean;
+}) {
   const { data, stamp } = useStamps(gagId);
+  const { data: findings, error: findingsError } = useFindings(canStamp ? passId : null, seq);
+  // Until the findings are measured there is nothing to confirm against: wait for them (not if they failed).
+  const measuring = canStamp && !findings && !findingsError;
   const [note, setNote] = useState('');
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
+  const [asking, setAsking] = useState<string[] | null>(null);
+  const red = findings ? redFindings(findings) : [];
   const mine = (data ?? []).filter((s) => s.passId === passId);
   const current = mine[0];
   const act = async (decision: StampDecision) => {
@@ -161,7 +131,7 @@ export function StampCard({ gagId, passId, passNumber, canStamp }: { gagId: stri
             <textarea className="field mt-1" rows={2} value={note} onChange={(e) => setNote(e.target.value)} maxLength={1000} />
           </label>
           <div className="flex flex-wrap gap-2">
-            <Button variant="stamp" disabled={busy} onClick={() => void act('ready')}>
+            <Button variant="stamp" disabled={busy || measuring} onClick={() => (red.length ? setAsking(red) : void act('ready'))}>
               Stamp “ready to ink”
             </Button>
             <Button variant="secondary" disabled={busy} onClick={() => void act('again')}>
@@ -173,6 +143,27 @@ export function StampCard({ gagId, passId, passNumber, canStamp }: { gagId: stri
               {error}
             </p>
           )}
+          <ConfirmDialog
+            open={asking !== null}
+            title={`Stamp pass ${passNumber} “ready to ink” over ${asking?.length === 1 ? 'a finding' : `${asking?.length ?? 0} findings`}?`}
+            body={
+              <>
+                <ul className="list-disc space-y-1 pl-5 text-sm" data-testid="stamp-findings">
+                  {(asking ?? []).map((f) => (
+                    <li key={f}>{f}</li>
+                  ))}
+                </ul>
+                <p className="mt-2 text-sm">The findings are advice; the stamp is yours to give.</p>
+              </>
+            }
+            confirmLabel="Stamp “ready to ink” anyway"
+            busy={busy}
+            onCancel={() => setAsking(null)}
+            onConfirm={() => {
+              setAsking(null);
+              void act('ready');
+            }}
+          />
         </div>
       )}
     </section>

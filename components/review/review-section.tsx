@@ -6,7 +6,8 @@ import { useState } from 'react';
 import { type Role, can } from '@/lib/auth/permissions';
 import { CommentsPanel } from './comments-panel';
 import { PresenceBar } from './presence-bar';
-import { ChecklistCard, FindingsCard, StampCard } from './review-cards';
+import { ChecklistCard } from './checklist-card';
+import { FindingsCard, StampCard } from './review-cards';
 import { PassPicker } from './pass-picker';
 
 export function ReviewSection({
@@ -24,6 +25,7 @@ export function ReviewSection({
 }) {
   const [passId, setPassId] = useState(passes[passes.length - 1]?.id ?? '');
   const pass = passes.find((p) => p.id === passId);
+  const previous = pass ? passes.filter((p) => p.number < pass.number).sort((a, b) => b.number - a.number)[0] : undefined;
   return (
     <section aria-labelledby="review-title" className="space-y-3">
       <div className="flex flex-wrap items-end justify-between gap-3">
@@ -49,9 +51,10 @@ export function ReviewSection({
         <div className="space-y-4">
           {pass ? (
             <>
-              <StampCard gagId={gagId} passId={pass.id} passNumber={pass.number} canStamp={can(role, 'stamp')} />
+              {/* What the pass shows and what people checked come first; the stamp is decided after reading them. */}
               <FindingsCard passId={pass.id} seq={pass.seq} />
-              <ChecklistCard passId={pass.id} canTick={can(role, 'comment')} />
+              <ChecklistCard passId={pass.id} canTick={can(role, 'comment')} previous={previous} />
+              <StampCard gagId={gagId} passId={pass.id} passNumber={pass.number} seq={pass.seq} canStamp={can(role, 'stamp')} />
             </>
           ) : (
             <p className="panel p-4 text-sm text-graphite-soft">The checklist, findings and stamp come with the first pass.</p>

@@ -7,7 +7,7 @@ type Db = Kysely<Database> | Transaction<Database>;
 export type ActivityKind =
   | 'gag.created'
   | 'gag.deleted'
-  | 'gag.status'
+  | 'gag.moved'
   | 'pass.created'
   | 'pass.restored'
   | 'stamp.ready'

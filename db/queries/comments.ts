@@ -3,6 +3,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Kysely, Selectable } from 'kysely';
 import type { BeatKind } from '@/lib/gags/status';
+import { type Mentions, findMentions } from '@/lib/review/mentions';
 import type { CommentTarget, CommentsTable, Database } from '../database';
 import { recordActivity } from './activity';
 import { Refused } from '@/lib/refused';
@@ -60,27 +61,16 @@ export async function listThreads(db: Kysely<Database>, gagId: string): Promise<
   return [...threads.values()];
 }
 
-/** Members whose name or e-mail name follows an "@" in the text. */
-export async function mentionedMembers(db: Kysely<Database>, seriesId: string, body: string): Promise<string[]> {
+/** The "@" mentions of a text, resolved against the series' members (lib/review/mentions: the form reads them the same way). */
+export async function mentionsIn(db: Kysely<Database>, seriesId: string, body: string): Promise<Mentions> {
   const members = await db
     .selectFrom('memberships as m')
     .innerJoin('users as u', 'u.id', 'm.userId')
-    .select(['u.id', 'u.name', 'u.email'])
+    .select(['u.id as userId', 'u.name', 'u.email'])
     .where('m.seriesId', '=', seriesId)
+    .orderBy('m.createdAt')
     .execute();
-  const text = body.toLowerCase();
-  return members
-    .filter(
-      (m) =>
-        text.includes(`@${m.name.toLowerCase()}`) ||
-        new RegExp(
-          `@${m.email
-            .split('@')[0]!
-            .toLowerCase()
-            .replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\b`,
-        ).test(text),
-    )
-    .map((m) => m.id);
+  return findMentions(body, members);
 }
 
 export async function createComment(

@@ -1,11 +1,12 @@
 // Gags with their four beats. Every write that touches a beat also bumps the
 // gag's updatedAt, so "last change" on the board means any change.
 import type { Kysely, Selectable, Transaction } from 'kysely';
-import { BEAT_KINDS, type BeatKind, type GagStatus, STATUS_LABELS, checkManualMove } from '@/lib/gags/status';
+import { BEAT_KINDS, type BeatKind, type GagStatus, checkManualMove } from '@/lib/gags/status';
 import { Refused } from '@/lib/refused';
 import type { BeatsTable, Database, GagsTable } from '../database';
 import { lockPassesOf, lockRow } from '../dialect';
 import { recordActivity } from './activity';
+import { setGagStatus } from './gag-status';
 import { type StampMark, clearReadyStamps, readyStampStands, stampMarks } from './stamps';
 
 export type BeatDto = Pick<Selectable<BeatsTable>, 'kind' | 'note' | 'updatedAt'>;
@@ -152,16 +153,19 @@ export async function updateGag(
   trx: Transaction<Database>,
   gagId: string,
   patch: { title?: string; premise?: string; status?: GagStatus; beats?: { kind: BeatKind; note: string }[] },
+  userId: string | null,
 ): Promise<void> {
   const now = new Date().toISOString();
   if (patch.status && ['idea', 'thumbnailing', 'in_review'].includes(patch.status)) {
     // Pulled back to drafting by hand: a standing "ready to ink" stamp no longer holds.
     await clearReadyStamps(trx, gagId, now);
   }
-  const { beats, ...fields } = patch;
+  const { beats, status, ...fields } = patch;
   for (const beat of beats ?? []) {
     await trx.updateTable('beats').set({ note: beat.note, updatedAt: now }).where('gagId', '=', gagId).where('kind', '=', beat.kind).execute();
   }
+  // A move by hand is told in the activity, as every status change is (gag-status.ts).
+  if (status) await setGagStatus(trx, { gagId, to: status, userId, now });
   await trx
     .updateTable('gags')
     .set({ ...fields, updatedAt: now })
@@ -172,36 +176,22 @@ export async function updateGag(
 export type GagPatch = Parameters<typeof updateGag>[2];
 
 /**
- * A person's edit of a gag: a status moved by hand must follow lib/gags/status (422 otherwise),
- * and the move is told in the series' activity. Returns whether the status changed.
+ * A person's edit of a gag: a status moved by hand must follow lib/gags/status (422 otherwise), and is
+ * told in the activity as theirs. Returns whether the status changed.
  */
-export async function patchGag(
-  db: Kysely<Database>,
-  gagId: string,
-  patch: GagPatch,
-  userId: string | null = null,
-): Promise<{ statusChanged: boolean }> {
+export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPatch, userId: string): Promise<{ moved: boolean }> {
   return db.transaction().execute(async (trx) => {
     // Two edits at once: the second checks its status move against the first's result.
     await lockRow(trx, 'gags', gagId);
-    const current = await trx.selectFrom('gags').select(['status', 'seriesId', 'title']).where('id', '=', gagId).executeTakeFirst();
+    const current = await trx.selectFrom('gags').select('status').where('id', '=', gagId).executeTakeFirst();
     if (!current) throw new Refused(404, 'Not found.');
     const moved = !!patch.status && patch.status !== current.status;
     if (patch.status) {
       const check = checkManualMove(current.status, patch.status, { readyStampStands: await readyStampStands(trx, gagId) });
       if (!check.ok) throw new Refused(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
     }
-    await updateGag(trx, gagId, patch);
-    if (moved) {
-      await recordActivity(trx, {
-        seriesId: current.seriesId,
-        gagId,
-        userId,
-        kind: 'gag.status',
-        summary: `moved “${patch.title ?? current.title}” from ${STATUS_LABELS[current.status]} to ${STATUS_LABELS[patch.status!]}`,
-      });
-    }
-    return { statusChanged: moved };
+    await updateGag(trx, gagId, patch, userId);
+    return { moved };
   });
 }
 

@@ -26,6 +26,7 @@ export async function listMembers(db: Kysely<Database>, seriesId: string): Promi
     .execute();
 }
 
+/** Invitations neither accepted nor withdrawn, newest first; expired ones too (flagged), so they can be sent again. */
 export async function listInvitations(db: Kysely<Database>, seriesId: string, now = new Date()) {
   return db
     .selectFrom('invitations as i')
@@ -34,10 +35,21 @@ export async function listInvitations(db: Kysely<Database>, seriesId: string, no
     .where('i.seriesId', '=', seriesId)
     .where('i.acceptedAt', 'is', null)
     .where('i.revokedAt', 'is', null)
-    .where('i.expiresAt', '>', now.toISOString())
     .orderBy('i.createdAt', 'desc')
     .execute()
-    .then((rows) => rows.map((r) => ({ ...r, anyoneWithLink: r.anyoneWithLink === 1 })));
+    .then((rows) => rows.map((r) => ({ ...r, anyoneWithLink: r.anyoneWithLink === 1, expired: Date.parse(r.expiresAt) <= now.getTime() })));
+}
+
+/** Why an invitation link no longer works, in words (null while it does). */
+export function invitationGone(
+  inv: { acceptedAt: string | null; revokedAt: string | null; replacedBy: string | null; expiresAt: string },
+  now: number,
+) {
+  if (inv.acceptedAt) return 'This invitation has already been used.';
+  if (inv.replacedBy) return 'This invitation was sent again with a new link: use the one in the latest e-mail.';
+  if (inv.revokedAt) return 'This invitation was withdrawn by the series’ owner.';
+  if (Date.parse(inv.expiresAt) <= now) return 'This invitation has expired. Ask the owner for a new one.';
+  return null;
 }
 
 export async function createInvitation(
@@ -91,6 +103,7 @@ export async function invitationByToken(db: Kysely<Database>, token: string) {
       'i.expiresAt',
       'i.acceptedAt',
       'i.revokedAt',
+      'i.replacedBy',
       'i.anyoneWithLink',
       'u.name as invitedBy',
     ])
@@ -124,9 +137,10 @@ export async function acceptInvitation(db: Kysely<Database>, token: string, user
   return db.transaction().execute(async (trx) => {
     // Locked: two accepts of one link at once → one membership, one 410.
     const inv = await forUpdate(trx, trx.selectFrom('invitations').selectAll().where('tokenHash', '=', hashToken(token))).executeTakeFirst();
-    if (!inv || inv.revokedAt) throw new Refused(404, 'This invitation does not exist.');
-    if (inv.acceptedAt) throw new Refused(410, 'This invitation has already been used.');
-    if (Date.parse(inv.expiresAt) <= now.getTime()) throw new Refused(410, 'This invitation has expired. Ask the owner for a new one.');
+    if (!inv) throw new Refused(404, 'This invitation does not exist.');
+    // Used, withdrawn, sent again with a new link, or expired: gone, and the answer says which.
+    const gone = invitationGone(inv, now.getTime());
+    if (gone) throw new Refused(410, gone);
     const u = await trx.selectFrom('users').select(['name', 'email']).where('id', '=', userId).executeTakeFirstOrThrow();
     const refusal = invitationRefusal(inv, u.email);
     if (refusal) throw new Refused(403, refusal);
@@ -182,7 +196,7 @@ async function removeMemberLocked(db: Transaction<Database>, seriesId: string, u
   const m = await db.selectFrom('memberships').select('role').where('seriesId', '=', seriesId).where('userId', '=', userId).executeTakeFirst();
   if (!m) throw new Refused(404, 'Not a member of this series.');
   if (m.role === 'owner' && (await ownerCount(db, seriesId)) <= 1) {
-    throw new Refused(409, 'The last owner cannot be removed.');
+    throw new Refused(409, 'The last owner cannot be removed: make another member owner first, so someone can still manage the series.');
   }
   await db.deleteFrom('memberships').where('seriesId', '=', seriesId).where('userId', '=', userId).execute();
   // Removed from their last series: nothing left to see, and their sessions end (issue 13, sessions end on the server).

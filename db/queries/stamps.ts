@@ -5,7 +5,7 @@ import { randomUUID } from 'node:crypto';
 import type { Kysely, Transaction } from 'kysely';
 import type { Database, StampDecision } from '../database';
 import { lockRow } from '../dialect';
-import { recordActivity } from './activity';
+import { setGagStatus } from './gag-status';
 import { passWithGag } from './pass-info';
 import { afterStampCleared } from '@/lib/gags/status';
 import { Refused } from '@/lib/refused';
@@ -134,21 +134,19 @@ export async function stampPass(
         clearedSeq: null,
       })
       .execute();
-    await trx
-      .updateTable('gags')
-      .set({ status: input.decision === 'ready' ? 'ready_to_ink' : 'thumbnailing', updatedAt: now })
-      .where('id', '=', pass.gagId)
-      .execute();
-    await recordActivity(trx, {
-      seriesId: pass.seriesId,
+    await setGagStatus(trx, {
       gagId: pass.gagId,
-      passId: pass.id,
+      to: input.decision === 'ready' ? 'ready_to_ink' : 'thumbnailing',
       userId: input.userId,
-      kind: input.decision === 'ready' ? 'stamp.ready' : 'stamp.again',
-      summary:
-        input.decision === 'ready'
-          ? `stamped pass ${pass.number} of “${pass.title}” ready to ink`
-          : `asked for another pass of “${pass.title}” (after pass ${pass.number})`,
+      now,
+      activity: {
+        kind: input.decision === 'ready' ? 'stamp.ready' : 'stamp.again',
+        passId: pass.id,
+        summary:
+          input.decision === 'ready'
+            ? `stamped pass ${pass.number} of “${pass.title}” ready to ink`
+            : `asked for another pass of “${pass.title}” (after pass ${pass.number})`,
+      },
     });
     return stampId;
   });
@@ -206,16 +204,16 @@ export async function clearStampOnChange(trx: Transaction<Database>, passId: str
     .where('p.id', '=', passId)
     .executeTakeFirstOrThrow();
   const after = afterStampCleared(gag.status);
-  if (after.status !== gag.status) {
-    await trx.updateTable('gags').set({ status: after.status, updatedAt: now }).where('id', '=', gag.id).execute();
-  }
-  await recordActivity(trx, {
-    seriesId: gag.seriesId,
+  await setGagStatus(trx, {
     gagId: gag.id,
-    passId,
+    to: after.status,
     userId,
-    kind: 'stamp.cleared',
-    summary: `changed pass ${gag.number} of “${gag.title}” after its “ready to ink” stamp: the stamp is cleared and ${after.says}`,
+    now,
+    activity: {
+      kind: 'stamp.cleared',
+      passId,
+      summary: `changed pass ${gag.number} of “${gag.title}” after its “ready to ink” stamp: the stamp is cleared and ${after.says}`,
+    },
   });
   return true;
 }

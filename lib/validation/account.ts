@@ -44,6 +44,23 @@ export const signUpSchema = z.object({
 });
 export type SignUpInput = z.input<typeof signUpSchema>;
 
+/** Signing up from an invitation tied to one address: that address is the account's, so the form sends the link's token instead. */
+export const invitedSignUpSchema = z.object({ name: personName, password: newPassword });
+
+/** `POST /api/users`: `{ name, email, password }`, or `{ name, invitation, password }` to take the invitation's address. */
+export const signUpBodySchema = z
+  .object({
+    name: personName,
+    email: email.optional(),
+    invitation: oneLine('The invitation').min(1).max(200).optional(),
+    password: newPassword,
+  })
+  .superRefine((v, ctx) => {
+    if ((v.email === undefined) === (v.invitation === undefined)) {
+      ctx.addIssue({ code: 'custom', path: ['email'], message: 'Enter your e-mail address (or sign up from an invitation, not both).' });
+    }
+  });
+
 export const signInSchema = z.object({
   email,
   // Any stored password is at most 200 characters (128 since ASVS); a longer one cannot match.

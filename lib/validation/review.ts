@@ -17,6 +17,15 @@ export const checklistPutSchema = z
   .object({
     /** Items ticked on this pass; anything not listed is unticked. */
     ticked: z.array(id('A checklist item id')).max(100),
+    /** Items that keep their "to re-check" mark; absent: every mark stays except on items now ticked. */
+    recheck: z.array(id('A checklist item id')).max(100).optional(),
+  })
+  .strict();
+
+export const checklistCarrySchema = z
+  .object({
+    /** The number of the pass whose ticks to carry; by default the pass just before. */
+    from: z.number().int('A pass number is a whole number.').min(1).max(100_000).optional(),
   })
   .strict();
 

@@ -58,6 +58,11 @@ describe('review loop', () => {
     expect(await thread.textContent()).toContain('Pass 2, panel 3 (Turn)');
     await page.getByLabel('Note for the stamp').fill('Reads without a word.');
     await page.getByRole('button', { name: 'Stamp “ready to ink”' }).click();
+    // Sugar Cube's payoff has no note yet: the stamp asks first, naming that finding.
+    const ask = page.getByRole('dialog');
+    await ask.waitFor();
+    expect(await ask.getByTestId('stamp-findings').textContent()).toContain('Beats without a note: Payoff.');
+    await ask.getByRole('button', { name: 'Stamp “ready to ink” anyway' }).click();
     await expect.poll(async () => page.getByTestId('current-stamp').textContent()).toContain('Ready to ink');
     await expect.poll(async () => page.getByText('Ready to ink', { exact: true }).first().isVisible()).toBe(true);
   });

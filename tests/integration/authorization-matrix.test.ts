@@ -18,12 +18,15 @@ import * as thumbRoute from '@/app/api/passes/[passId]/thumbnail.svg/route';
 import * as stampRoute from '@/app/api/passes/[passId]/stamp/route';
 import * as activityRoute from '@/app/api/series/[seriesId]/activity/route';
 import * as checklistRoute from '@/app/api/passes/[passId]/checklist/route';
+import * as carryRoute from '@/app/api/passes/[passId]/checklist/carry/route';
 import * as findingsRoute from '@/app/api/passes/[passId]/findings/route';
 import * as itemsRoute from '@/app/api/series/[seriesId]/checklist/route';
 import * as commentsRoute from '@/app/api/gags/[gagId]/comments/route';
 import * as commentRoute from '@/app/api/comments/[commentId]/route';
 import { createComment } from '@/db/queries/comments';
 import * as invitationsRoute from '@/app/api/series/[seriesId]/invitations/route';
+import * as invitationRoute from '@/app/api/series/[seriesId]/invitations/[invitationId]/route';
+import * as resendRoute from '@/app/api/series/[seriesId]/invitations/[invitationId]/resend/route';
 import * as membersRoute from '@/app/api/series/[seriesId]/members/route';
 import * as memberRoute from '@/app/api/series/[seriesId]/members/[userId]/route';
 import * as acceptRoute from '@/app/api/invitations/[token]/accept/route';
@@ -145,6 +148,12 @@ async function newInvitationToken(): Promise<string> {
   const { id } = await createSeries(db, { id: randomUUID(), title: 'Elsewhere', ownerId });
   const input = { seriesId: id, email: `${randomUUID()}@pier.test`, role: 'viewer' as const, invitedBy: ownerId, anyoneWithLink: true };
   return (await createInvitation(db, input)).token;
+}
+
+/** A pending invitation to Kettle Crab, for the owner to withdraw or send again. */
+async function demoInvitation(): Promise<string> {
+  const input = { seriesId: DEMO_SERIES_ID, email: `${randomUUID()}@pier.test`, role: 'viewer' as const, invitedBy: 'demo-user-owner' };
+  return (await createInvitation(db, input)).id;
 }
 
 /** A volume with two gag pages. */
@@ -287,6 +296,24 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 200, 200, 200, 404),
   },
   {
+    // The ticks of the pass before, carried as "to re-check".
+    route: 'POST /api/passes/:passId/checklist/carry',
+    handler: carryRoute.POST,
+    method: 'POST',
+    prepare: async () => {
+      const { passId } = await newPass();
+      const [item] = await checklistItems(db, DEMO_SERIES_ID);
+      const gagId = (await db.selectFrom('passes').select('gagId').where('id', '=', passId).executeTakeFirstOrThrow()).gagId;
+      await db
+        .insertInto('checklistTicks')
+        .values({ passId, itemId: item!.id, userId: 'demo-user-editor', tickedAt: new Date().toISOString() })
+        .execute();
+      const next = await createPass(db, { gagId, userId: 'demo-user-owner' });
+      return { params: { passId: next.id }, body: {} };
+    },
+    expected: row(401, 403, 200, 200, 200, 404),
+  },
+  {
     route: 'GET /api/passes/:passId/findings',
     handler: findingsRoute.GET,
     method: 'GET',
@@ -366,6 +393,20 @@ const ROUTES: RouteCase[] = [
     handler: invitationsRoute.POST,
     method: 'POST',
     prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID }, body: { email: `${randomUUID()}@pier.test`, role: 'viewer' } }),
+    expected: row(401, 403, 403, 403, 201, 404),
+  },
+  {
+    route: 'DELETE /api/series/:seriesId/invitations/:invitationId',
+    handler: invitationRoute.DELETE,
+    method: 'DELETE',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID, invitationId: await demoInvitation() } }),
+    expected: row(401, 403, 403, 403, 204, 404),
+  },
+  {
+    route: 'POST /api/series/:seriesId/invitations/:invitationId/resend',
+    handler: resendRoute.POST,
+    method: 'POST',
+    prepare: async () => ({ params: { seriesId: DEMO_SERIES_ID, invitationId: await demoInvitation() } }),
     expected: row(401, 403, 403, 403, 201, 404),
   },
   {
@@ -636,6 +677,7 @@ async function snapshot() {
     revisions: await db.selectFrom('revisions').selectAll().orderBy('id').execute(),
     stamps: await db.selectFrom('stamps').selectAll().orderBy('id').execute(),
     ticks: await db.selectFrom('checklistTicks').selectAll().orderBy('passId').orderBy('itemId').execute(),
+    rechecks: await db.selectFrom('checklistRechecks').selectAll().orderBy('passId').orderBy('itemId').execute(),
     items: await db.selectFrom('checklistItems').selectAll().orderBy('id').execute(),
     comments: await db.selectFrom('comments').selectAll().orderBy('id').execute(),
     invitations: await db.selectFrom('invitations').selectAll().orderBy('id').execute(),

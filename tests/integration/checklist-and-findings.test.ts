@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import * as passesRoute from '@/app/api/gags/[gagId]/passes/route';
 import * as checklistRoute from '@/app/api/passes/[passId]/checklist/route';
+import * as carryRoute from '@/app/api/passes/[passId]/checklist/carry/route';
 import * as findingsRoute from '@/app/api/passes/[passId]/findings/route';
 import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as itemsRoute from '@/app/api/series/[seriesId]/checklist/route';
@@ -49,6 +50,88 @@ describe('silent-read checklist', () => {
     ).toBe(403);
     const onPass = (await callRoute(checklistRoute.GET, { as: 'viewer', params: { passId } })).body;
     expect(onPass).toHaveLength(2);
+  });
+});
+
+describe('ticks carried to the next pass as "to re-check"', () => {
+  type Item = { id: string; text: string; ticked: boolean; recheck: { fromPass: number; carriedBy: string } | null };
+  const carry = (as: 'viewer' | 'editor' | 'owner', pass: string, body: Record<string, unknown> = {}) =>
+    callRoute(carryRoute.POST, { method: 'POST', as, params: { passId: pass }, body });
+  const put = (pass: string, body: Record<string, unknown>) =>
+    callRoute(checklistRoute.PUT, { method: 'PUT', as: 'editor', params: { passId: pass }, body });
+
+  it('marks the earlier pass’s ticks on the new pass; ticking one clears its mark; the rest can be dropped', async () => {
+    await callRoute(itemsRoute.PUT, {
+      method: 'PUT',
+      as: 'owner',
+      params: { seriesId: DEMO_SERIES_ID },
+      body: { items: [{ text: 'Reads left to right.' }, { text: 'The turn is a surprise.' }, { text: 'Kettle is always recognisable.' }] },
+    });
+    const first: Item[] = (await callRoute(checklistRoute.GET, { as: 'editor', params: { passId } })).body;
+    await put(passId, { ticked: [first[0]!.id, first[2]!.id] });
+    const next = await callRoute(passesRoute.POST, { method: 'POST', as: 'owner', params: { gagId: 'demo-gag-09' }, body: {} });
+    const fresh: Item[] = (await callRoute(checklistRoute.GET, { as: 'viewer', params: { passId: next.body.id } })).body;
+    // A new pass starts empty: nothing ticked, nothing marked.
+    expect(fresh.map((i) => [i.ticked, i.recheck])).toEqual([
+      [false, null],
+      [false, null],
+      [false, null],
+    ]);
+    const from = (await callRoute(passesRoute.GET, { as: 'viewer', params: { gagId: 'demo-gag-09' } })).body.find(
+      (p: { id: string }) => p.id === passId,
+    ).number;
+
+    const r = await carry('editor', next.body.id);
+    expect(r.status).toBe(200);
+    const carried: Item[] = r.body;
+    expect(carried.map((i) => (i.recheck ? `${i.recheck.fromPass} ${i.recheck.carriedBy}` : null))).toEqual([
+      `${from} Ivo Sand`,
+      null,
+      `${from} Ivo Sand`,
+    ]);
+    expect(carried.every((i) => !i.ticked)).toBe(true);
+
+    // Ticking an item on this pass is the re-check: its mark goes, the other stays.
+    const ticked: Item[] = (await put(next.body.id, { ticked: [carried[0]!.id] })).body;
+    expect(ticked.map((i) => [i.ticked, !!i.recheck])).toEqual([
+      [true, false],
+      [false, false],
+      [false, true],
+    ]);
+    // Carrying again changes nothing: a ticked item is not marked, a marked one stays marked once.
+    expect((await carry('editor', next.body.id)).body).toEqual(ticked);
+    // Keeping no marks drops them; the ticks stay.
+    const dropped: Item[] = (await put(next.body.id, { ticked: [carried[0]!.id], recheck: [] })).body;
+    expect(dropped.map((i) => [i.ticked, !!i.recheck])).toEqual([
+      [true, false],
+      [false, false],
+      [false, false],
+    ]);
+    // Only a marked item can keep a mark.
+    const bad = await put(next.body.id, { ticked: [], recheck: [carried[1]!.id] });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error).toMatch(/not marked "to re-check"/);
+  });
+
+  it('refuses what cannot be carried, and viewers', async () => {
+    const passes = (await callRoute(passesRoute.GET, { as: 'viewer', params: { gagId: 'demo-gag-09' } })).body as { id: string; number: number }[];
+    const firstPass = passes.reduce((a, b) => (a.number < b.number ? a : b));
+    const last = passes.reduce((a, b) => (a.number > b.number ? a : b));
+    const before = (await callRoute(checklistRoute.GET, { as: 'viewer', params: { passId: last.id } })).body;
+    const first = await carry('editor', firstPass.id);
+    expect(first.status).toBe(409);
+    expect(first.body.error).toMatch(/first pass/);
+    expect((await carry('editor', last.id, { from: 99 })).status).toBe(422);
+    expect((await carry('editor', last.id, { from: last.number })).status).toBe(422);
+    expect((await carry('editor', last.id, { from: 'one' })).status).toBe(422);
+    expect((await carry('viewer', last.id)).status).toBe(403);
+    // A pass before it with no ticks has nothing to carry.
+    await callRoute(passesRoute.POST, { method: 'POST', as: 'owner', params: { gagId: 'demo-gag-09' }, body: {} });
+    const after = await callRoute(passesRoute.POST, { method: 'POST', as: 'owner', params: { gagId: 'demo-gag-09' }, body: {} });
+    const none = await carry('owner', after.body.id);
+    expect(none.status).toBe(409);
+    expect(none.body.error).toMatch(/no ticks to carry/);
+    expect((await callRoute(checklistRoute.GET, { as: 'viewer', params: { passId: last.id } })).body).toEqual(before);
   });
 });
 

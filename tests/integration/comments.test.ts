@@ -3,7 +3,7 @@ import * as commentRoute from '@/app/api/comments/[commentId]/route';
 import * as commentsRoute from '@/app/api/gags/[gagId]/comments/route';
 import { callRoute } from '../support/call-route';
 import { startMailFake } from '../support/mail-fake';
-import { freshDb } from '../support/test-db';
+import { DEMO_SERIES_ID, freshDb } from '../support/test-db';
 
 let db: Awaited<ReturnType<typeof freshDb>>;
 let mail: Awaited<ReturnType<typeof startMailFake>>;
@@ -86,6 +86,55 @@ describe('comments', () => {
       body: { resolved: false },
     });
     expect(reopened.body.resolvedAt).toBeNull();
+  });
+});
+
+describe('mentions: the answer says whom they reached and what matched nobody', () => {
+  it('"@Nell" is the member whose first name is Nell: she is told, and the answer says so', async () => {
+    await db.updateTable('users').set({ notifyEmail: 1 }).execute();
+    const before = (await mail.read()).length;
+    const r = await post('editor', { body: '@Nell the payoff needs Kettle’s face.' });
+    expect(r.status).toBe(201);
+    expect(r.body.mentions).toEqual({
+      matched: [{ mention: '@Nell', userId: 'demo-user-owner', name: 'Nell Harrow' }],
+      unmatched: [],
+      ambiguous: [],
+    });
+    expect(r.body.notified).toEqual([{ userId: 'demo-user-owner', name: 'Nell Harrow' }]);
+    expect(r.body.mentioned).toEqual(['demo-user-owner']);
+    await expect.poll(async () => (await mail.read()).length).toBe(before + 1);
+    const sent = (await mail.read()).find((m) => m.text.includes('the payoff needs Kettle'))!;
+    expect(sent.to).toBe('owner@quadrille.test');
+    // The mail says where the setting really is: the Notifications section of this series' Members page.
+    expect(sent.text).toContain(`/series/${DEMO_SERIES_ID}/members#notifications`);
+    expect(sent.html).toContain(`/series/${DEMO_SERIES_ID}/members#notifications`);
+  });
+
+  it('a mention that matches nobody, or several members, is listed as such and tells no one', async () => {
+    const now = new Date().toISOString();
+    await db
+      .insertInto('users')
+      .values({ id: 'u-tam-reed', email: 'tam.reed@pier.test', name: 'Tam Reed', passwordHash: 'x', createdAt: now })
+      .execute();
+    await db.insertInto('memberships').values({ seriesId: DEMO_SERIES_ID, userId: 'u-tam-reed', role: 'viewer', createdAt: now }).execute();
+    const before = (await mail.read()).length;
+    const r = await post('editor', { body: '@Nel and @Tam: the horizon. @Tam Reed, you too. Mail me at ivo@pier.test' });
+    expect(r.status).toBe(201);
+    expect(r.body.mentions).toEqual({
+      matched: [{ mention: '@Tam Reed', userId: 'u-tam-reed', name: 'Tam Reed' }],
+      unmatched: ['@Nel'],
+      ambiguous: [{ mention: '@Tam', names: ['Tam Quill', 'Tam Reed'] }],
+    });
+    expect(r.body.notified).toEqual([{ userId: 'u-tam-reed', name: 'Tam Reed' }]);
+    await expect.poll(async () => (await mail.read()).length).toBe(before + 1);
+    expect((await mail.read()).filter((m) => m.text.includes('the horizon')).map((m) => m.to)).toEqual(['tam.reed@pier.test']);
+  });
+
+  it('the author and people with notifications off are matched but not listed as told', async () => {
+    await db.updateTable('users').set({ notifyEmail: 0 }).where('id', '=', 'demo-user-cocreator').execute();
+    const r = await post('editor', { body: '@Ivo note to self; @Tam Quill see above' });
+    expect(r.body.mentions.matched.map((m: { userId: string }) => m.userId)).toEqual(['demo-user-editor', 'demo-user-cocreator']);
+    expect(r.body.notified).toEqual([]);
   });
 });
 

@@ -241,6 +241,32 @@ describe('a status that changes reaches every open page', () => {
   });
 });
 
+describe('the board’s activity panel', () => {
+  it('hears of a status moved by hand (the move is in the activity), and of a comment', async () => {
+    const s = await open(seriesEventsRoute.GET, { seriesId: DEMO_SERIES_ID }, 'viewer');
+    await s.waitFor((e) => e.type === 'hello');
+    const from = s.events.length;
+    const r = await callRoute(gagRoute.PATCH, {
+      method: 'PATCH',
+      as: 'cocreator',
+      params: { gagId: 'demo-gag-11' },
+      body: { status: 'thumbnailing' },
+    });
+    expect(r.status).toBe(200);
+    await s.waitFor((x) => x.type === 'activity' && x.topic === `series:${DEMO_SERIES_ID}`, 5000, from);
+    // A title edit moves nothing and tells the activity nothing (the board still hears of the gag).
+    const mark = s.events.length;
+    await callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { gagId: 'demo-gag-11' }, body: { title: 'Sideways Race' } });
+    await s.waitFor((x) => x.type === 'gags', 5000, mark);
+    expect(s.events.slice(mark).some((x) => x.type === 'activity')).toBe(false);
+    const beforeComment = s.events.length;
+    const c = await callRoute(commentsRoute.POST, { method: 'POST', as: 'editor', params: { gagId: 'demo-gag-11' }, body: { body: 'Faster?' } });
+    expect(c.status).toBe(201);
+    await s.waitFor((x) => x.type === 'activity', 5000, beforeComment);
+    await s.close();
+  });
+});
+
 describe('a session ended while its stream is open', () => {
   it('stops within one heartbeat (signed out elsewhere, or the password changed)', async () => {
     const { passId } = await newPass();

@@ -218,7 +218,7 @@ describe('hand status moves', () => {
     expect((await patch({ status: 'thumbnailing' })).status).toBe(200);
     const feed = async () => (await callRoute(activityRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } })).body.items;
     expect((await feed())[0]).toMatchObject({
-      kind: 'gag.status',
+      kind: 'gag.moved',
       gagId,
       by: 'Tam Quill',
       summary: 'moved “Moved by hand” from Idea to Thumbnailing',
@@ -228,5 +228,50 @@ describe('hand status moves', () => {
     expect((await patch({ premise: 'A premise, no move.' })).status).toBe(200);
     expect((await patch({ status: 'thumbnailing' })).status).toBe(200); // the same status: no move
     expect((await feed())[0].id).toBe(top);
+  });
+});
+
+describe('every status change is told in the activity, once', () => {
+  type Item = { kind: string; summary: string; gagId: string | null; by: string | null };
+  const latest = async (n = 5): Promise<Item[]> =>
+    (await callRoute(activityRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID }, url: `/x?limit=${n}` })).body.items;
+  const patch = (gagId: string, body: Record<string, unknown>) =>
+    callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { gagId }, body });
+
+  it('a move by hand names who moved which gag from where to where', async () => {
+    const gagId = 'demo-gag-12'; // "Moon Steep", an idea
+    expect((await patch(gagId, { status: 'thumbnailing' })).status).toBe(200);
+    const [top] = await latest(1);
+    expect(top).toMatchObject({ kind: 'gag.moved', gagId, by: 'Tam Quill', summary: 'moved “Moon Steep” from Idea to Thumbnailing' });
+  });
+
+  it('an edit that moves nothing, a "move" to where it is and a refused move add no entry', async () => {
+    const gagId = 'demo-gag-12';
+    const before = await latest();
+    expect((await patch(gagId, { title: 'Moon Steep' })).status).toBe(200);
+    expect((await patch(gagId, { status: 'thumbnailing' })).status).toBe(200);
+    expect((await patch(gagId, { status: 'placed' })).status).toBe(422);
+    expect(await latest()).toEqual(before);
+  });
+
+  it('a stamp and its clearing are one entry each, and the status agrees with them', async () => {
+    const gagId = 'demo-gag-12';
+    const passId = await gagWithPass(gagId);
+    const before = (await latest(1))[0];
+    expect((await stamp(passId, 'editor', 'ready')).status).toBe(201);
+    const afterStamp = await latest(3);
+    expect(afterStamp.map((i) => i.kind)).toEqual(['stamp.ready', before!.kind, expect.any(String)]);
+    expect(await gagStatus(gagId)).toBe('ready_to_ink');
+    await callRoute(opsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { passId },
+      body: { batchId: 'moon-after', ops: [{ op: 'add', stroke: line('moon') }] },
+    });
+    expect((await latest(2)).map((i) => i.kind)).toEqual(['stamp.cleared', 'stamp.ready']);
+    expect(await gagStatus(gagId)).toBe('in_review');
+    // Back to drafting by hand: told too.
+    expect((await patch(gagId, { status: 'thumbnailing' })).status).toBe(200);
+    expect((await latest(1))[0]).toMatchObject({ kind: 'gag.moved', summary: 'moved “Moon Steep” from In review to Thumbnailing' });
   });
 });

@@ -51,6 +51,7 @@ function importedFrom(file: string, source: string, name: string): string | null
 export const BODYLESS: Record<string, string> = {
   'POST /api/series/:seriesId/uploads': 'multipart upload',
   'POST /api/invitations/:token/accept': 'the token is the whole request',
+  'POST /api/series/:seriesId/invitations/:invitationId/resend': 'the invitation is in the path',
   'POST /api/passes/:passId/revisions/:revisionId/restore': 'the revision is in the path',
   'POST /api/auth/:...nextauth': "next-auth's own form endpoints",
 };

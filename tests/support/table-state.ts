@@ -60,6 +60,8 @@ const LEAKS = {
   'checklist tick → item of another series': sql<{ n: number }>`select count(*) as n from checklist_ticks t
     join checklist_items i on i.id = t.item_id join passes p on p.id = t.pass_id join gags g on g.id = p.gag_id
     where i.series_id <> g.series_id`,
+  'checklist re-check → pass of another gag': sql<{ n: number }>`select count(*) as n from checklist_rechecks r
+    join passes p on p.id = r.pass_id join passes f on f.id = r.from_pass_id where f.gag_id <> p.gag_id`,
   'lightbox → upload of another series': sql<{ n: number }>`select count(*) as n from lightboxes l
     join uploads u on u.id = l.upload_id join passes p on p.id = l.pass_id join gags g on g.id = p.gag_id
     where u.series_id <> g.series_id`,

@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { AcceptInvitation } from '@/components/members/accept-invitation';
 import { getDb } from '@/db/client';
-import { invitationByToken, invitationRefusal, maskEmail } from '@/db/queries/members';
+import { invitationByToken, invitationGone, invitationRefusal, maskEmail } from '@/db/queries/members';
 import { ROLE_LABELS } from '@/lib/auth/permissions';
 import { currentUser } from '@/lib/auth/session';
 
@@ -12,16 +12,13 @@ export const dynamic = 'force-dynamic';
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const inv = await invitationByToken(await getDb(), token);
-  if (!inv || inv.revokedAt) notFound();
+  if (!inv) notFound();
   const user = await currentUser();
   const wrongAccount = user ? invitationRefusal(inv, user.email) : null;
-  const problem = inv.acceptedAt
-    ? 'This invitation has already been used.'
-    : // A server component renders once per request: "now" is that request's time.
-      // eslint-disable-next-line react-hooks/purity -- the check belongs to this request, not to a re-render
-      Date.parse(inv.expiresAt) <= Date.now()
-      ? 'This invitation has expired. Ask the owner for a new one.'
-      : wrongAccount;
+  // Used, withdrawn, sent again or expired: the page says which (accepting it answers 410).
+  // A server component renders once per request: "now" is that request's time.
+  // eslint-disable-next-line react-hooks/purity -- the check belongs to this request, not to a re-render
+  const problem = invitationGone(inv, Date.now()) ?? wrongAccount;
   return (
     <AcceptInvitation
       token={token}

@@ -9,15 +9,15 @@ const seriesOf = byGagId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => Response.json(await findGag(db, params.gagId)));
 
-/** Any of title, premise, status, beats. Status moves follow lib/gags/status. */
+/** Any of title, premise, status, beats. Status moves follow lib/gags/status and are told in the activity. */
 export const PATCH = withSeriesRole<Params, typeof updateGagSchema>(
   'edit',
   seriesOf,
   { body: updateGagSchema },
   async ({ db, params, seriesId, user, body }) => {
-    const { statusChanged } = await patchGag(db, params.gagId, body, user.id);
+    const { moved } = await patchGag(db, params.gagId, body, user.id);
     // A hand move may clear a "ready" stamp (its mark on the pass cards) and is told in the activity.
-    if (statusChanged) await gagChanged(seriesId, params.gagId, ['gag', 'stamps'], ['gags', 'activity']);
+    if (moved) await gagChanged(seriesId, params.gagId, ['gag', 'stamps'], ['gags', 'activity']);
     else await gagChanged(seriesId, params.gagId, ['gag'], ['gags']);
     return Response.json(await findGag(db, params.gagId));
   },

@@ -13,14 +13,17 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params,
   Response.json(await passChecklist(db, seriesId, params.passId)),
 );
 
-/** `{ ticked: [itemId] }`: exactly these items are ticked on this pass. Anyone who may comment. */
+/**
+ * `{ ticked: [itemId], recheck?: [itemId] }`: exactly these items are ticked on this pass (a tick clears
+ * the item's "to re-check" mark); with `recheck`, exactly those keep their mark. Anyone who may comment.
+ */
 export const PUT = withSeriesRole<Params, typeof checklistPutSchema>(
   'comment',
   seriesOf,
   { body: checklistPutSchema },
   async ({ db, params, seriesId, user, body }) => {
     const input = body;
-    const problem = await setTicks(db, seriesId, params.passId, user.id, input.ticked);
+    const problem = await setTicks(db, seriesId, params.passId, user.id, input.ticked, input.recheck);
     if (problem) throw new Refused(422, problem);
     await gagChanged(seriesId, (await passWithGag(db, params.passId))!.gagId, ['checklist']);
     return Response.json(await passChecklist(db, seriesId, params.passId));

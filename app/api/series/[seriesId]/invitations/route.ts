@@ -1,8 +1,5 @@
 import { createInvitation, listInvitations } from '@/db/queries/members';
-import { findSeries } from '@/db/queries/series';
-import { invitationMail } from '@/lib/mail/templates';
-import { appUrl } from '@/lib/mail/notify';
-import { sendMail } from '@/lib/mail/transport';
+import { sendInvitation } from '@/lib/mail/notify';
 import { withSeriesRole } from '@/lib/http/route';
 import { inviteSchema } from '@/lib/validation/members';
 import { bySeriesId } from '@/lib/http/series-of';
@@ -10,7 +7,7 @@ import { bySeriesId } from '@/lib/http/series-of';
 type Params = { seriesId: string };
 const seriesOf = bySeriesId;
 
-/** Pending invitations (owners). */
+/** Invitations not yet accepted nor withdrawn, expired ones flagged (owners). */
 export const GET = withSeriesRole<Params>('manage', seriesOf, async ({ db, seriesId }) => Response.json(await listInvitations(db, seriesId)));
 
 /**
@@ -26,20 +23,15 @@ export const POST = withSeriesRole<Params, typeof inviteSchema>('manage', series
     invitedBy: user.id,
     anyoneWithLink: input.anyoneWithLink,
   });
-  const series = await findSeries(db, seriesId);
-  const sent = await sendMail(
-    db,
-    input.email,
-    'invitation',
-    invitationMail({
-      seriesTitle: series!.title,
-      inviter: user.name,
-      role: input.role,
-      link: `${appUrl()}/invite/${inv.token}`,
-      expiresAt: inv.expiresAt,
-      forAddress: input.anyoneWithLink ? null : input.email,
-    }),
-  );
+  const sent = await sendInvitation(db, {
+    seriesId,
+    inviter: user.name,
+    email: input.email,
+    role: input.role,
+    token: inv.token,
+    expiresAt: inv.expiresAt,
+    anyoneWithLink: input.anyoneWithLink,
+  });
   return Response.json(
     {
       id: inv.id,
