@@ -56,6 +56,7 @@ export default function Editor(props: EditorProps) {
   const [toneGrey, setToneGrey] = useState<number>(40);
   const [roomShape, setRoomShape] = useState<RoomShape>('ellipse');
   const [penOnly, setPenOnly] = useState(false);
+  const [eraserCuts, setEraserCuts] = useState(false);
   const [guides, setGuides] = useState<Guides>(ALL_GUIDES);
   const [helpOpen, setHelpOpen] = useState(false);
   const [pointPin, setPointPin] = useState<PointPin | null>(null);
@@ -85,7 +86,7 @@ export default function Editor(props: EditorProps) {
     if (t !== 'lasso') selection.setIds([]);
   };
 
-  const settings: Settings = { tool, canDraw, penOnly, penSize, toneSize, toneGrey, roomShape };
+  const settings: Settings = { tool, canDraw, penOnly, penSize, toneSize, toneGrey, roomShape, eraserCuts };
   const scene = (): Scene => ({
     spec,
     strokes: () => session.syncRef.current?.doc.strokes.values() ?? [],
@@ -210,6 +211,8 @@ export default function Editor(props: EditorProps) {
             setRoomShape={setRoomShape}
             penOnly={penOnly}
             setPenOnly={setPenOnly}
+            eraserCuts={eraserCuts}
+            setEraserCuts={setEraserCuts}
             guides={guides}
             setGuides={setGuides}
             onUndo={() => session.runUndo('undo')}

@@ -6,14 +6,17 @@
 // Point arrays grow in place: a stroke of thousands of samples is not copied per event.
 import { type PageSpec, type Rect, bleedBox, panelAt, panelRects } from '@/lib/print/geometry';
 import { pointsBounds, rectsOverlap, strokeInLasso, strokeTouches } from '@/lib/strokes/hit';
+import { eraseAlong } from '@/lib/strokes/erase';
 import { simplifyPoints } from '@/lib/strokes/simplify';
 import type { Op, Point, Room, RoomShape, Stroke } from '@/lib/strokes/types';
 import type { Tool } from './tools';
-import { type UndoEntry, addedStrokes, movedStrokes, removedStrokes, roomChanged } from './undo';
+import { type UndoEntry, addedStrokes, cutStrokes, movedStrokes, removedStrokes, roomChanged } from './undo';
 
 export type Gesture =
   | { kind: 'draw'; pointerId: number; panel: number; points: Point[]; tool: 'pen' | 'tone' }
   | { kind: 'erase'; pointerId: number; removed: Stroke[] }
+  /** The cutting eraser: `removed` are the pass's strokes it cut, `pieces` what is left of them now. */
+  | { kind: 'cut'; pointerId: number; last: { x: number; y: number }; removed: Stroke[]; pieces: Stroke[] }
   | { kind: 'lasso'; pointerId: number; path: [number, number][] }
   | { kind: 'drag-selection'; pointerId: number; start: { x: number; y: number }; dx: number; dy: number; bounds: Rect }
   | { kind: 'room'; pointerId: number; panel: number; start: { x: number; y: number }; end: { x: number; y: number } }
@@ -44,6 +47,8 @@ export type Settings = {
   toneSize: number;
   toneGrey: number;
   roomShape: RoomShape;
+  /** The eraser cuts strokes where it passes (true) or takes whole strokes away (false). */
+  eraserCuts?: boolean;
 };
 
 export type Scene = {
@@ -124,6 +129,34 @@ function eraseAt(scene: Scene, g: Extract<Gesture, { kind: 'erase' }>, x: number
   return { ops: hits.map((s) => ({ op: 'remove', strokeId: s.id })), erased: hits };
 }
 
+/** The cutting eraser from its last place to (x, y): each stroke it meets is removed and its pieces added. */
+function cutAlong(scene: Scene, g: Extract<Gesture, { kind: 'cut' }>, x: number, y: number): Effects {
+  const ops = eraseAlong(
+    [...scene.strokes()],
+    [
+      [g.last.x, g.last.y],
+      [x, y],
+    ],
+    scene.eraserRadius,
+    scene.newId,
+  );
+  g.last = { x, y };
+  if (ops.length === 0) return {};
+  const byId = new Map<string, Stroke>();
+  for (const s of scene.strokes()) byId.set(s.id, s);
+  const cut: Stroke[] = [];
+  for (const op of ops) {
+    if (op.op === 'remove') {
+      const i = g.pieces.findIndex((p) => p.id === op.strokeId);
+      // A piece this same gesture made and now cuts again is not one of the pass's own strokes.
+      if (i >= 0) g.pieces.splice(i, 1);
+      else if (byId.has(op.strokeId)) g.removed.push(byId.get(op.strokeId)!);
+      if (byId.has(op.strokeId)) cut.push(byId.get(op.strokeId)!);
+    } else if (op.op === 'add') g.pieces.push(op.stroke);
+  }
+  return { ops, erased: cut };
+}
+
 const pressureOf = (pointerType: string, pressure: number) => (pointerType === 'mouse' ? 0.5 : pressure || 0.5);
 
 export function pointerDown(settings: Settings, scene: Scene, e: PointerInput): Step {
@@ -159,6 +192,10 @@ export function pointerDown(settings: Settings, scene: Scene, e: PointerInput): 
         effects: { capture: true },
       };
     case 'eraser': {
+      if (settings.eraserCuts) {
+        const g: Gesture = { kind: 'cut', pointerId: e.pointerId, last: { x: e.x, y: e.y }, removed: [], pieces: [] };
+        return { gesture: g, effects: { ...cutAlong(scene, g, e.x, e.y), capture: true } };
+      }
       const g: Gesture = { kind: 'erase', pointerId: e.pointerId, removed: [] };
       return { gesture: g, effects: { ...eraseAt(scene, g, e.x, e.y), capture: true } };
     }
@@ -199,6 +236,8 @@ export function pointerMove(g: Gesture | null, scene: Scene, e: PointerInput): S
       return { gesture: g, effects: {} };
     case 'erase':
       return { gesture: g, effects: eraseAt(scene, g, e.x, e.y) };
+    case 'cut':
+      return { gesture: g, effects: cutAlong(scene, g, e.x, e.y) };
     case 'lasso':
       g.path.push([e.x, e.y]);
       return { gesture: g, effects: {} };
@@ -231,6 +270,8 @@ export function pointerUp(g: Gesture | null, settings: Settings, scene: Scene, e
     }
     case 'erase':
       return { gesture: null, effects: g.removed.length ? { undo: removedStrokes(g.removed) } : {} };
+    case 'cut':
+      return { gesture: null, effects: g.removed.length ? { undo: cutStrokes(g.removed, g.pieces) } : {} };
     case 'lasso': {
       const picked: string[] = [];
       if (g.path.length > 2) for (const s of scene.strokes()) if (strokeInLasso(s.points, g.path)) picked.push(s.id);

@@ -10,8 +10,10 @@ import {
   MapPin,
   PenLine,
   Redo2,
+  Scissors,
   Square,
   SquareDashed,
+  Trash2,
   Undo2,
   ZoomIn,
   ZoomOut,
@@ -78,6 +80,8 @@ export function EditorToolbar(p: {
   setRoomShape: (s: RoomShape) => void;
   penOnly: boolean;
   setPenOnly: (b: boolean) => void;
+  eraserCuts: boolean;
+  setEraserCuts: (b: boolean) => void;
   guides: Guides;
   setGuides: (g: Guides) => void;
   onUndo: () => void;
@@ -155,6 +159,16 @@ export function EditorToolbar(p: {
               ))}
             </select>
           </label>
+        </div>
+      )}
+      {p.canDraw && p.tool === 'eraser' && (
+        <div className="flex gap-1" role="group" aria-label="Eraser">
+          <IconButton label="Take whole strokes" pressed={!p.eraserCuts} onClick={() => p.setEraserCuts(false)}>
+            <Trash2 aria-hidden className="h-5 w-5" />
+          </IconButton>
+          <IconButton label="Cut strokes where it passes" pressed={p.eraserCuts} onClick={() => p.setEraserCuts(true)}>
+            <Scissors aria-hidden className="h-5 w-5" />
+          </IconButton>
         </div>
       )}
       {p.canDraw && p.tool === 'room' && (

@@ -22,6 +22,28 @@ export function removedStrokes(strokes: Stroke[]): UndoEntry {
   return { undo: inverse.redo, redo: inverse.undo };
 }
 
+/**
+ * A cut by the eraser: undo takes the pieces away and puts the cut strokes back; redo cuts again.
+ * Each way adds under fresh ids (a removed id never comes back: the pass log's rule).
+ */
+export function cutStrokes(cut: Stroke[], pieces: Stroke[]): UndoEntry {
+  let whole = cut;
+  let left = pieces;
+  const again = (list: Stroke[]) => list.map((s) => ({ ...s, id: nanoid() }));
+  return {
+    undo: () => {
+      const ops: Op[] = left.map((s) => ({ op: 'remove', strokeId: s.id }));
+      whole = again(whole);
+      return [...ops, ...whole.map((s): Op => ({ op: 'add', stroke: s }))];
+    },
+    redo: () => {
+      const ops: Op[] = whole.map((s) => ({ op: 'remove', strokeId: s.id }));
+      left = again(left);
+      return [...ops, ...left.map((s): Op => ({ op: 'add', stroke: s }))];
+    },
+  };
+}
+
 export function movedStrokes(ids: string[], dx: number, dy: number): UndoEntry {
   return {
     undo: () => [{ op: 'move', strokeIds: ids, dx: -dx, dy: -dy }],

@@ -175,6 +175,53 @@ describe('eraser', () => {
   });
 });
 
+describe('cutting eraser', () => {
+  it('cuts a stroke where it passes (remove it, add its pieces); a second pass cuts a piece; undo puts the stroke back whole', () => {
+    // A long line along y = 20 and the eraser crossing it twice, at x = 30 and x = 50.
+    const long: Stroke = { ...line('long', 10, 20, 70, 20), points: [10, 20, 30, 40, 50, 60, 70].map((x) => [x, 20, 0.5]) };
+    const live = new Map<string, Stroke>([[long.id, long]]);
+    const sc: Scene = { ...scene(), strokes: () => live.values() };
+    const s = settings({ tool: 'eraser', eraserCuts: true });
+    const commit = (ops: { op: string; strokeId?: string; stroke?: Stroke }[] = []) => {
+      for (const op of ops) {
+        if (op.op === 'remove') live.delete(op.strokeId!);
+        if (op.op === 'add') live.set(op.stroke!.id, op.stroke!);
+      }
+    };
+    let step = pointerDown(s, sc, at(30, 15));
+    commit(step.effects.ops);
+    for (const [x, y] of [
+      [30, 25],
+      [40, 25],
+      [50, 25],
+      [50, 15],
+    ] as [number, number][]) {
+      step = pointerMove(step.gesture, sc, at(x, y));
+      commit(step.effects.ops);
+    }
+    const end = pointerUp(step.gesture, s, sc, at(50, 15)).effects;
+    // Three pieces are left: left of x≈30, between the cuts, right of x≈50; none reaches into a cut.
+    const pieces = [...live.values()];
+    expect(pieces).toHaveLength(3);
+    expect(live.has('long')).toBe(false);
+    const xs = pieces.map((p) => p.points.map(([x]) => x)).sort((a, b) => a[0]! - b[0]!);
+    expect(Math.max(...xs[0]!)).toBeLessThan(30 - 2);
+    expect(Math.min(...xs[1]!)).toBeGreaterThan(30 + 2);
+    expect(Math.max(...xs[1]!)).toBeLessThan(50 - 2);
+    expect(Math.min(...xs[2]!)).toBeGreaterThan(50 + 2);
+    for (const p of pieces)
+      expect({ tool: p.tool, size: p.size, grey: p.grey, panel: p.panel }).toEqual({ tool: 'pen', size: 0.5, grey: 100, panel: 0 });
+
+    const back = end.undo!.undo();
+    commit(back);
+    expect([...live.values()]).toHaveLength(1);
+    expect([...live.values()][0]!.points).toEqual(long.points);
+    expect([...live.values()][0]!.id).not.toBe('long'); // a removed id never comes back
+    commit(end.undo!.redo());
+    expect([...live.values()]).toHaveLength(3);
+  });
+});
+
 describe('lasso', () => {
   it('selects the strokes inside the loop', () => {
     const inside = line('in', 22, 22, 28, 28);
