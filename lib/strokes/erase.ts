@@ -189,14 +189,19 @@ export function eraseAlong(
   }
   for (const s of strokes) {
     const reach = eraserReach(s, radius) + CUT_MARGIN_MM;
-    // Cheap first: the stroke's bounds against the path's, grown by the reach.
-    let near = false;
+    // Cheap first: the stroke's bounds against the path's, grown by the reach. (The bounds, not the
+    // points one by one: a straight line stored as its two ends passes right under the eraser.)
+    let sx0 = Infinity;
+    let sy0 = Infinity;
+    let sx1 = -Infinity;
+    let sy1 = -Infinity;
     for (const [x, y] of s.points) {
-      if (x >= minX - reach && x <= maxX + reach && y >= minY - reach && y <= maxY + reach) {
-        near = true;
-        break;
-      }
+      sx0 = Math.min(sx0, x);
+      sy0 = Math.min(sy0, y);
+      sx1 = Math.max(sx1, x);
+      sy1 = Math.max(sy1, y);
     }
+    const near = sx1 >= minX - reach && sx0 <= maxX + reach && sy1 >= minY - reach && sy0 <= maxY + reach;
     if (!near) continue;
     const pieces = piecesLeft(s.points, path, reach);
     if (!pieces) continue;

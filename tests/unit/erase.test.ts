@@ -253,3 +253,33 @@ describe('property: pieces keep out of the eraser and keep everything else', () 
     );
   }, 60_000);
 });
+
+describe('eraseAlong on a straight line stored as its two ends', () => {
+  it('cuts it where the eraser crosses between the ends (no point of the line lies near the eraser)', () => {
+    const two: Stroke = {
+      id: 'two',
+      panel: 0,
+      tool: 'pen',
+      grey: 100,
+      size: 0.5,
+      points: [
+        [10, 20, 0.5],
+        [70, 20, 0.5],
+      ],
+    };
+    let n = 0;
+    const ops = eraseAlong(
+      [two],
+      [
+        [40, 10],
+        [40, 30],
+      ],
+      2,
+      () => `p${++n}`,
+    );
+    expect(ops.map((o) => o.op)).toEqual(['remove', 'add', 'add']);
+    const pieces = ops.flatMap((o) => (o.op === 'add' ? [o.stroke] : []));
+    expect(Math.max(...pieces[0]!.points.map(([x]) => x))).toBeLessThan(40 - 2);
+    expect(Math.min(...pieces[1]!.points.map(([x]) => x))).toBeGreaterThan(40 + 2);
+  });
+});
