@@ -2,9 +2,9 @@
 // The board's status columns and gag cards as they look, with or without dragging:
 // components/board/board-dnd.tsx gives them their drag handles (loaded only for people
 // who may move gags, after the board is shown, so the board's first load stays light).
-import { GripVertical } from 'lucide-react';
 import Link from 'next/link';
 import { BeatGridMark } from '@/components/ui/beat-grid-mark';
+import { GripGlyph } from '@/components/ui/board-glyphs';
 import { StampMark } from '@/components/ui/stamp-mark';
 import { StatusBadge } from '@/components/ui/status-badge';
 import { When } from '@/components/ui/when';
@@ -98,7 +98,7 @@ export function GagCard({
           aria-label={`Move “${gag.title}” to another status`}
           className="absolute right-1.5 top-1.5 z-10 rounded bg-white/80 p-1 text-graphite-faint hover:bg-paper-deep hover:text-graphite"
         >
-          <GripVertical aria-hidden className="h-4 w-4" />
+          <GripGlyph className="h-4 w-4" />
         </button>
       )}
       {gag.latestPass && (

@@ -1,4 +1,4 @@
-// The board's three small glyphs, drawn here rather than taken from an icon
+// The board's small glyphs, drawn here rather than taken from an icon
 // library: the board page is the most visited, and its first load stays light.
 type GlyphProps = { className?: string };
 
@@ -39,6 +39,20 @@ export function LoupeGlyph({ className }: GlyphProps) {
     <svg {...common} className={className} aria-hidden="true">
       <circle cx="7" cy="7" r="4.2" />
       <path d="M10.2 10.2 14 14" />
+    </svg>
+  );
+}
+
+/** Two rows of dots: a grip to pick a card up by. */
+export function GripGlyph({ className }: GlyphProps) {
+  return (
+    <svg viewBox="0 0 16 16" fill="currentColor" className={className} aria-hidden="true">
+      {[3.5, 8, 12.5].map((y) => (
+        <g key={y}>
+          <circle cx="5.5" cy={y} r="1.3" />
+          <circle cx="10.5" cy={y} r="1.3" />
+        </g>
+      ))}
     </svg>
   );
 }

@@ -1,7 +1,7 @@
 // The mark a stamp leaves on a pass card (the gag page) and a gag card (the board):
 // "ready to ink" while it stands, "sent back" for "needs another pass", and a quiet
 // note once a "ready" stamp was cleared. Words always say it; colour only repeats it.
-import { Check, Undo2 } from 'lucide-react';
+// Text marks rather than icons: it shows on the board, whose first load stays light.
 import type { StampDecision } from '@/lib/review/words';
 
 export function StampMark({
@@ -25,7 +25,7 @@ export function StampMark({
         data-stamp="ready"
         className={`inline-flex -rotate-2 items-center gap-1 rounded border-2 border-ready bg-ready-light px-1.5 py-0.5 text-xs font-extrabold uppercase tracking-wide text-ready ${className}`}
       >
-        <Check aria-hidden className="h-3.5 w-3.5" strokeWidth={3} />
+        <span aria-hidden>✓</span>
         Ready to ink{ofPass}
       </span>
     );
@@ -37,7 +37,7 @@ export function StampMark({
         data-stamp="again"
         className={`inline-flex items-center gap-1 rounded border border-dashed border-marker-60 bg-marker-10 px-1.5 py-0.5 text-xs font-bold text-graphite-soft ${className}`}
       >
-        <Undo2 aria-hidden className="h-3.5 w-3.5" />
+        <span aria-hidden>↩</span>
         Sent back{ofPass}
       </span>
     );

@@ -118,19 +118,18 @@ describe('moving a gag between columns', () => {
 
   it('by keyboard: the grip, arrows through the columns with each one announced, space to drop', async () => {
     await page.getByRole('button', { name: 'Move “Rope Swing” to another status' }).focus();
-    const heard: string[] = [];
-    for (const key of ['Space', 'ArrowRight', 'ArrowRight', 'ArrowRight', 'ArrowLeft']) {
+    // Each key, then what a screen reader hears (waited for, as a person would listen before the next key).
+    const steps: [string, string][] = [
+      ['Space', '“Rope Swing” is over its own column, Idea.'],
+      ['ArrowRight', '“Rope Swing” would move to Thumbnailing.'],
+      ['ArrowRight', '“Rope Swing” would move to In review.'],
+      ['ArrowRight', `“Rope Swing” cannot go to Ready to ink: ${STAMP_ONLY}`],
+      ['ArrowLeft', '“Rope Swing” would move to In review.'],
+    ];
+    for (const [key, heard] of steps) {
       await page.keyboard.press(key);
-      await page.waitForTimeout(200);
-      heard.push((await said()) ?? '');
+      await expect.poll(said).toBe(heard);
     }
-    expect(heard).toEqual([
-      '“Rope Swing” is over its own column, Idea.',
-      '“Rope Swing” would move to Thumbnailing.',
-      '“Rope Swing” would move to In review.',
-      `“Rope Swing” cannot go to Ready to ink: ${STAMP_ONLY}`,
-      '“Rope Swing” would move to In review.',
-    ]);
     await page.keyboard.press('Space');
     await expect.poll(said).toBe('“Rope Swing” was moved to In review.');
     await expect.poll(() => columnOf('Rope Swing')).toBe('In review');
@@ -138,11 +137,10 @@ describe('moving a gag between columns', () => {
 
   it('by keyboard onto "ready to ink": refused, said and shown, and it stays', async () => {
     await page.getByRole('button', { name: 'Move “Rope Swing” to another status' }).focus();
-    for (const key of ['Space', 'ArrowRight']) {
-      await page.keyboard.press(key);
-      await page.waitForTimeout(200);
-    }
-    expect(await said()).toBe(`“Rope Swing” cannot go to Ready to ink: ${STAMP_ONLY}`);
+    await page.keyboard.press('Space');
+    await expect.poll(said).toBe('“Rope Swing” is over its own column, In review.');
+    await page.keyboard.press('ArrowRight');
+    await expect.poll(said).toBe(`“Rope Swing” cannot go to Ready to ink: ${STAMP_ONLY}`);
     // The column itself says why while the card is over it.
     expect(await page.getByRole('region', { name: 'Ready to ink', exact: true }).textContent()).toContain(STAMP_ONLY);
     await page.keyboard.press('Space');

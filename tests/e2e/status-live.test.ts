@@ -72,7 +72,7 @@ describe('status and stamp marks, live on every open page', () => {
     const passMark = page.getByTestId('pass-card-1').getByTestId('stamp-mark');
     await expect.poll(() => passMark.getAttribute('data-stamp'), { timeout: 10_000 }).toBe('ready');
     await expect.poll(() => badge().textContent()).toBe('✓Ready to ink');
-    await expect.poll(() => card().getByTestId('stamp-mark').textContent(), { timeout: 10_000 }).toBe('Ready to ink · pass 1');
+    await expect.poll(() => card().getByTestId('stamp-mark').textContent(), { timeout: 10_000 }).toBe('✓Ready to ink · pass 1');
     await expect.poll(columnOf).toBe('Ready to ink');
     await expect.poll(() => unplacedBadge().textContent(), { timeout: 10_000 }).toBe('✓Ready to ink');
 
@@ -112,7 +112,7 @@ describe('status and stamp marks, live on every open page', () => {
   it('"needs another pass" marks the pass sent back; a hand move reaches the board and the volume', async () => {
     await editorPage.getByRole('button', { name: 'Needs another pass' }).click();
     await expect.poll(() => page.getByTestId('pass-card-1').getByTestId('stamp-mark').getAttribute('data-stamp'), { timeout: 10_000 }).toBe('again');
-    await expect.poll(() => card().getByTestId('stamp-mark').textContent(), { timeout: 10_000 }).toBe('Sent back · pass 1');
+    await expect.poll(() => card().getByTestId('stamp-mark').textContent(), { timeout: 10_000 }).toBe('↩Sent back · pass 1');
     await expect.poll(columnOf).toBe('Thumbnailing');
     // The owner moves it by hand on the gag page; the other tabs follow.
     await page.getByLabel('Status', { exact: true }).selectOption({ label: 'Move to In review' });

@@ -99,25 +99,24 @@ describe('volume "Low Tide"', () => {
     const before = await names(page);
     expect(before).toHaveLength(9);
     await page.getByRole('button', { name: 'Drag Handle Swing into the volume' }).focus();
-    const heard: string[] = [];
-    for (const key of ['Space', 'ArrowUp', 'ArrowUp', 'ArrowUp', 'ArrowUp', 'ArrowUp', 'ArrowUp', 'ArrowDown', 'ArrowUp', 'ArrowUp']) {
+    // Picked up over the end (where "add" puts it), then one place per key, both ways: each key, then
+    // what a screen reader hears (waited for, as a person listens before the next key).
+    const steps: [string, string][] = [
+      ['Space', 'The gag Handle Swing would go to page 10, after Finders Keepers.'],
+      ['ArrowUp', 'The gag Handle Swing would go to page 9, after Moving Day.'],
+      ['ArrowUp', 'The gag Handle Swing would go to page 8, after Afterword.'],
+      ['ArrowUp', 'The gag Handle Swing would go to page 7, after Whistle Alarm.'],
+      ['ArrowUp', 'The gag Handle Swing would go to page 6, after Low Tide Lunch.'],
+      ['ArrowUp', 'The gag Handle Swing would go to page 5, after Lid Umbrella.'],
+      ['ArrowUp', 'The gag Handle Swing would go to page 4, after Spout Periscope.'],
+      ['ArrowDown', 'The gag Handle Swing would go to page 5, after Lid Umbrella.'],
+      ['ArrowUp', 'The gag Handle Swing would go to page 4, after Spout Periscope.'],
+      ['ArrowUp', 'The gag Handle Swing would go to page 3, after Title page.'],
+    ];
+    for (const [key, heard] of steps) {
       await page.keyboard.press(key);
-      await page.waitForTimeout(150);
-      heard.push((await said(page)) ?? '');
+      await expect.poll(() => said(page)).toBe(heard);
     }
-    // Picked up over the end (where "add" puts it), then one place per key, both ways.
-    expect(heard).toEqual([
-      'The gag Handle Swing would go to page 10, after Finders Keepers.',
-      'The gag Handle Swing would go to page 9, after Moving Day.',
-      'The gag Handle Swing would go to page 8, after Afterword.',
-      'The gag Handle Swing would go to page 7, after Whistle Alarm.',
-      'The gag Handle Swing would go to page 6, after Low Tide Lunch.',
-      'The gag Handle Swing would go to page 5, after Lid Umbrella.',
-      'The gag Handle Swing would go to page 4, after Spout Periscope.',
-      'The gag Handle Swing would go to page 5, after Lid Umbrella.',
-      'The gag Handle Swing would go to page 4, after Spout Periscope.',
-      'The gag Handle Swing would go to page 3, after Title page.',
-    ]);
     await page.keyboard.press('Space');
     await expect.poll(() => said(page)).toBe('The gag Handle Swing was dropped at page 3, after Title page.');
     const want = [...before.slice(0, 2), 'Handle Swing', ...before.slice(2)];
@@ -134,10 +133,10 @@ describe('volume "Low Tide"', () => {
     const grip = page.getByRole('button', { name: 'Drag Sideways Race into the volume' });
     await grip.focus();
     await page.keyboard.press('Space');
-    await page.waitForTimeout(150);
+    await expect.poll(() => said(page)).toBe(`The gag Sideways Race would go to page ${before.length + 1}, after ${before.at(-1)}.`);
+    // Quick presses, as a held-down key repeats: each still moves it one place, and the top stops it.
     for (let i = 0; i < before.length + 3; i++) await page.keyboard.press('ArrowUp');
-    await page.waitForTimeout(150);
-    expect(await said(page)).toBe('The gag Sideways Race would go to page 1, before Cover.');
+    await expect.poll(() => said(page)).toBe('The gag Sideways Race would go to page 1, before Cover.');
     await page.keyboard.press('Escape');
     await expect.poll(() => said(page)).toBe('Moving the gag Sideways Race was cancelled; nothing changed.');
     await page.waitForTimeout(300);
@@ -145,7 +144,7 @@ describe('volume "Low Tide"', () => {
     // Picked up again and dropped at once: added after the last page.
     await grip.focus();
     await page.keyboard.press('Space');
-    await page.waitForTimeout(150);
+    await expect.poll(() => said(page)).toBe(`The gag Sideways Race would go to page ${before.length + 1}, after ${before.at(-1)}.`);
     await page.keyboard.press('Space');
     await expect.poll(() => names(page)).toEqual([...before, 'Sideways Race']);
   });
