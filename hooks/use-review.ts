@@ -15,12 +15,23 @@ import type { StampDecision } from '@/lib/review/words';
 
 export function useChecklist(passId: string | null) {
   const swr = useLiveSWR<ChecklistItemDto[]>(passId ? `/api/passes/${passId}/checklist` : null, fetcher, { types: ['checklist'], pollMs: 2000 });
+  /** Shown at once (a tick clears its item's mark), then as the server answers; undone if it refuses. */
   async function setTicked(ids: string[], recheck?: string[]) {
-    const next = await api<ChecklistItemDto[]>(`/api/passes/${passId}/checklist`, {
+    const save = api<ChecklistItemDto[]>(`/api/passes/${passId}/checklist`, {
       method: 'PUT',
       json: { ticked: ids, ...(recheck ? { recheck } : {}) },
     });
-    await swr.mutate(next, { revalidate: false });
+    await swr.mutate(save, {
+      optimisticData: (current) =>
+        (current ?? []).map((i) => {
+          const ticked = ids.includes(i.id);
+          const kept = ticked ? null : recheck && !recheck.includes(i.id) ? null : i.recheck;
+          return { ...i, ticked, by: ticked ? i.by : null, at: ticked ? i.at : null, recheck: kept };
+        }),
+      populateCache: true,
+      rollbackOnError: true,
+      revalidate: false,
+    });
   }
   /** Marks the earlier pass's ticks "to re-check" here. */
   async function carry(from: number) {

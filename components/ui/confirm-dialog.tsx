@@ -1,4 +1,5 @@
 'use client';
+import { useId } from 'react';
 import { Button } from './button';
 import { Modal } from './modal';
 
@@ -19,9 +20,11 @@ export function ConfirmDialog({
   onCancel: () => void;
   busy?: boolean;
 }) {
+  // Its own id: a page may hold several of these (closed ones stay in the document).
+  const titleId = useId();
   return (
-    <Modal open={open} onClose={onCancel} labelledBy="confirm-title">
-      <h2 id="confirm-title" className="text-xl font-extrabold">
+    <Modal open={open} onClose={onCancel} labelledBy={titleId}>
+      <h2 id={titleId} className="text-xl font-extrabold">
         {title}
       </h2>
       <div className="text-graphite-soft">{body}</div>
