@@ -13,7 +13,7 @@ import {
   printerSpreads,
   readerSpreads,
   sheetsNeeded,
-  spineMm,
+  bookSpineMm,
 } from '@/lib/print/book';
 import { DEFAULT_HOURS, type Stage, plan } from '@/lib/planning/plan';
 import type { Database, EntryKind, VolumesTable } from '../database';
@@ -244,7 +244,8 @@ export type Flatplan = {
   pageCountValid: boolean;
   blanksNeeded: number;
   blanksAt: number;
-  spineMm: number;
+  /** Perfect binding only: a saddle-stitched book has no spine (null). */
+  spineMm: number | null;
   sheets: number;
   printerSpreads: Spread[];
   notReady: { gagId: string; title: string; status: GagStatus }[];
@@ -267,9 +268,9 @@ export function flatplanOf(volume: VolumeDto, entries: EntryDto[]): Flatplan {
     pageCountValid: pageCountValid(n, volume.spec.binding),
     blanksNeeded: blanksNeeded(n, volume.spec.binding),
     blanksAt: blankSuggestion(entries.map((e) => e.kind)),
-    spineMm: spineMm(n, volume.spec.caliperUm),
+    spineMm: bookSpineMm(n, volume.spec.binding, volume.spec.caliperUm),
     sheets: sheetsNeeded(n, volume.spec.binding),
-    printerSpreads: volume.spec.binding === 'saddle' ? printerSpreads(n) : [],
+    printerSpreads: volume.spec.binding === 'saddle' ? printerSpreads(n, volume.spec.direction) : [],
     notReady: entries
       .filter((e) => e.gagId && e.status && !READY_OR_LATER.includes(e.status))
       .map((e) => ({ gagId: e.gagId!, title: e.title!, status: e.status! })),
