@@ -343,6 +343,48 @@ export interface UploadsTable {
   createdAt: Timestamp;
 }
 
+export type FinalPageColour = 'grey' | 'line' | 'rgb';
+
+/** A scan of an inked page (a gag's or a matter page's); see db/queries/final-pages.ts. */
+export interface FinalPagesTable {
+  id: string;
+  seriesId: string;
+  /** Exactly one of gagId and entryId (a matter page) is set. */
+  gagId: string | null;
+  entryId: string | null;
+  sha256: string;
+  name: string;
+  /** The file as uploaded. */
+  mime: 'image/tiff' | 'image/png' | 'image/jpeg';
+  bytes: number;
+  width: number;
+  height: number;
+  bitsPerPixel: number;
+  colour: FinalPageColour;
+  /** The resolution the file records, if any (pixels per inch). */
+  ppi: number | null;
+  /** The file kept for printing: the same pixels, upright, private metadata gone. */
+  keptKey: string;
+  keptMime: string;
+  /** A copy at most 2,048 px for the screen, and a 320 px preview. */
+  displayKey: string;
+  previewKey: string;
+  fitTo: 'trim' | 'bleed';
+  fitX: number;
+  fitY: number;
+  fitScale: number;
+  fitRotation: number;
+  /** Set when a person fitted it (PUT …/fit); null while it has the fit it got on upload. */
+  fittedAt: Timestamp | null;
+  fittedBy: string | null;
+  /** 1 for the current final page of its gag or matter page. */
+  current: number;
+  madeCurrentAt: Timestamp;
+  madeCurrentBy: string;
+  createdBy: string;
+  createdAt: Timestamp;
+}
+
 export interface Database {
   users: UsersTable;
   series: SeriesTable;
@@ -373,6 +415,7 @@ export interface Database {
   volumes: VolumesTable;
   volumeEntries: VolumeEntriesTable;
   uploads: UploadsTable;
+  finalPages: FinalPagesTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -1,11 +1,12 @@
 // Gags with their four beats. Every write that touches a beat also bumps the
 // gag's updatedAt, so "last change" on the board means any change.
 import type { Kysely, Selectable, Transaction } from 'kysely';
-import { BEAT_KINDS, type BeatKind, type GagStatus, checkManualMove } from '@/lib/gags/status';
+import { BEAT_KINDS, type BeatKind, type GagStatus, checkArtMove, checkManualMove } from '@/lib/gags/status';
 import { Refused } from '@/lib/refused';
 import type { BeatsTable, Database, GagsTable } from '../database';
 import { lockPassesOf, lockRow } from '../dialect';
 import { recordActivity } from './activity';
+import { artFacts } from './art-status';
 import { clearReadyStamps, readyStampStands } from './stamps';
 
 export type BeatDto = Pick<Selectable<BeatsTable>, 'kind' | 'note' | 'updatedAt'>;
@@ -167,7 +168,8 @@ export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPa
     const current = await trx.selectFrom('gags').select('status').where('id', '=', gagId).executeTakeFirst();
     if (!current) throw new Refused(404, 'Not found.');
     if (patch.status) {
-      const check = checkManualMove(current.status, patch.status, { readyStampStands: await readyStampStands(trx, gagId) });
+      let check = checkManualMove(current.status, patch.status, { readyStampStands: await readyStampStands(trx, gagId) });
+      if (check.ok && current.status !== patch.status) check = checkArtMove(patch.status, await artFacts(trx, gagId));
       if (!check.ok) throw new Refused(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
     }
     await updateGag(trx, gagId, patch);

@@ -19,6 +19,7 @@ import { DEFAULT_HOURS, type Stage, plan } from '@/lib/planning/plan';
 import type { Database, EntryKind, VolumesTable } from '../database';
 import { lockRow } from '../dialect';
 import { Refused } from '@/lib/refused';
+import { syncArtStatus } from './art-status';
 
 export type VolumeDto = {
   id: string;
@@ -171,11 +172,20 @@ async function addEntryLocked(
     .insertInto('volumeEntries')
     .values({ id, volumeId, kind: input.gagId ? 'gag' : input.kind!, gagId: input.gagId ?? null, position, createdAt: new Date().toISOString() })
     .execute();
+  if (input.gagId) await syncArtStatus(db, input.gagId);
 }
 
+/** Takes a page out of the running order; a gag with a fitted final page goes back to "scanned". */
 export async function removeEntry(db: Kysely<Database>, volumeId: string, entryId: string): Promise<boolean> {
-  const r = await db.deleteFrom('volumeEntries').where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
-  return Number(r.numDeletedRows) > 0;
+  return db.transaction().execute(async (trx) => {
+    await lockRow(trx, 'volumes', volumeId);
+    const entry = await trx.selectFrom('volumeEntries').select('gagId').where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
+    if (!entry) return false;
+    if (entry.gagId) await lockRow(trx, 'gags', entry.gagId);
+    await trx.deleteFrom('volumeEntries').where('id', '=', entryId).execute();
+    if (entry.gagId) await syncArtStatus(trx, entry.gagId);
+    return true;
+  });
 }
 
 /**
@@ -298,4 +308,9 @@ export async function unplacedGags(db: Kysely<Database>, seriesId: string) {
     .where('e.id', 'is', null)
     .orderBy('g.position')
     .execute();
+}
+
+/** A running-order entry of this volume (its kind), or undefined. */
+export async function matterEntry(db: Kysely<Database>, volumeId: string, entryId: string) {
+  return db.selectFrom('volumeEntries').select(['id', 'kind']).where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
 }
