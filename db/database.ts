@@ -4,6 +4,7 @@ import type { ColumnType, Generated, Selectable } from 'kysely';
 import type { BeatKind, GagStatus } from '@/lib/gags/status';
 import type { Role } from '@/lib/auth/permissions';
 import type { RoomShape, StrokeTool } from '@/lib/strokes/types';
+import type { ScanColour } from '@/lib/print/final-fit';
 
 /** ISO-8601 timestamps, stored as TEXT. */
 type Timestamp = string;
@@ -343,7 +344,7 @@ export interface UploadsTable {
   createdAt: Timestamp;
 }
 
-export type FinalPageColour = 'grey' | 'line' | 'rgb';
+export type FinalPageColour = ScanColour;
 
 /** A scan of an inked page (a gag's or a matter page's); see db/queries/final-pages.ts. */
 export interface FinalPagesTable {

@@ -8,6 +8,8 @@
 import { MM_PER_INCH, type PageSpec, type Rect, bleedBox } from './geometry';
 
 export type Quarter = 0 | 90 | 180 | 270;
+/** A scan's kind: line art (1-bit or near), greyscale tone, or a colour file. */
+export type ScanColour = 'grey' | 'line' | 'rgb';
 export type FitTarget = 'trim' | 'bleed';
 export type Fit = { to: FitTarget; x: number; y: number; scale: number; rotation: Quarter };
 /** The scan's box on the page after its turn, and the turn: like a lightbox's x, y, w, h, rotation. */
@@ -77,4 +79,14 @@ export function scanToPage(placed: Placed, scan: ScanSize, px: number, py: numbe
   const sv = py / scan.height;
   const [u, v] = placed.rotation === 0 ? [su, sv] : placed.rotation === 90 ? [1 - sv, su] : placed.rotation === 180 ? [1 - su, 1 - sv] : [sv, 1 - su];
   return { x: placed.x + u * placed.w, y: placed.y + v * placed.h };
+}
+
+/**
+ * The scan's own rectangle before its turn, centred where the placed box is: an SVG
+ * `<image>` or a PDF image matrix draws it this size about (cx, cy), then turns it
+ * clockwise by `rotation` about that centre — the same as a lightbox is drawn.
+ */
+export function imageFrame(p: Placed): { cx: number; cy: number; w: number; h: number; rotation: Quarter } {
+  const t = turnedQ(p.rotation);
+  return { cx: p.x + p.w / 2, cy: p.y + p.h / 2, w: t ? p.h : p.w, h: t ? p.w : p.h, rotation: p.rotation };
 }

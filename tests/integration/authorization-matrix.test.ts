@@ -62,6 +62,7 @@ import * as variantRoute from '@/app/api/uploads/[uploadId]/[variant]/route';
 import * as gagFinalPagesRoute from '@/app/api/gags/[gagId]/final-pages/route';
 import * as entryFinalPagesRoute from '@/app/api/volumes/[volumeId]/entries/[entryId]/final-pages/route';
 import * as finalCurrentRoute from '@/app/api/final-pages/[finalPageId]/current/route';
+import * as finalFitRoute from '@/app/api/final-pages/[finalPageId]/fit/route';
 import * as finalImageRoute from '@/app/api/final-pages/[finalPageId]/image/[variant]/route';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
 
@@ -609,6 +610,13 @@ const ROUTES: RouteCase[] = [
     handler: finalCurrentRoute.POST,
     method: 'POST',
     prepare: async () => ({ params: { finalPageId: (await finalPages()).older } }),
+    expected: row(401, 403, 403, 200, 200, 404),
+  },
+  {
+    route: 'PUT /api/final-pages/:finalPageId/fit',
+    handler: finalFitRoute.PUT,
+    method: 'PUT',
+    prepare: async () => ({ params: { finalPageId: (await finalPages()).newer }, body: { to: 'bleed', x: 1, y: 0, scale: 1, rotation: 90 } }),
     expected: row(401, 403, 403, 200, 200, 404),
   },
   {

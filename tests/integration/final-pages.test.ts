@@ -7,6 +7,8 @@ import { crc32, deflateSync } from 'node:zlib';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
 import * as currentRoute from '@/app/api/final-pages/[finalPageId]/current/route';
+import * as fitRoute from '@/app/api/final-pages/[finalPageId]/fit/route';
+import * as entryRoute from '@/app/api/volumes/[volumeId]/entries/[entryId]/route';
 import * as imageRoute from '@/app/api/final-pages/[finalPageId]/image/[variant]/route';
 import * as gagFinalRoute from '@/app/api/gags/[gagId]/final-pages/route';
 import * as gagRoute from '@/app/api/gags/[gagId]/route';
@@ -226,5 +228,53 @@ describe('matter pages', () => {
       form: scan(),
     });
     expect(elsewhere.status).toBe(404);
+  });
+});
+
+describe('fitting', () => {
+  it('a fit is stored and counts as fitted; in a running order the gag is "placed", taken out it is "scanned" again', async () => {
+    const db = env.db();
+    const gagId = await newGag('inked');
+    const up = await post(gagId, form(await greyTiff({ w: 150, h: 150, ppi: 300, tone: 140 }), 'trim.tif', 'image/tiff'));
+    expect(up.body).toMatchObject({ fitted: false, fit: { to: 'trim' } });
+    const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Fit', deadline: '2027-03-13' });
+    const entry = await addEntry(db, v.id, DEMO_SERIES_ID, { gagId });
+    const status = async () => (await callRoute(gagRoute.GET, { as: 'viewer', params: { gagId } })).body.status;
+    expect(await status()).toBe('scanned'); // not fitted yet
+    const fit = { to: 'bleed', x: 1.5, y: -0.5, scale: 1.02, rotation: 0 };
+    const r = await callRoute(fitRoute.PUT, { method: 'PUT', as: 'cocreator', params: { finalPageId: up.body.id }, body: fit });
+    expect(r.status).toBe(200);
+    expect(r.body).toMatchObject({ fit, fitted: true });
+    expect(await status()).toBe('placed');
+    expect((await callRoute(entryRoute.DELETE, { method: 'DELETE', as: 'owner', params: { volumeId: v.id, entryId: entry.id } })).status).toBe(204);
+    expect(await status()).toBe('scanned');
+    await addEntry(db, v.id, DEMO_SERIES_ID, { gagId });
+    expect(await status()).toBe('placed');
+  });
+  it('a bad fit is 422 and changes nothing; a viewer may not fit (403)', async () => {
+    const gagId = await newGag('inked');
+    const up = await post(gagId, form(await greyTiff({ w: 40, h: 30, ppi: 300, tone: 60 }), 'a.tif', 'image/tiff'));
+    const before = await countRows(env.db(), ['finalPages']);
+    for (const body of [
+      { to: 'trim', x: 0, y: 0, scale: 1, rotation: 45 },
+      { to: 'page', x: 0, y: 0, scale: 1, rotation: 0 },
+      { to: 'trim', x: 0, y: 0, scale: 0, rotation: 0 },
+      { to: 'trim', x: 'left', y: 0, scale: 1, rotation: 0 },
+      { to: 'trim', x: 0, y: 0, scale: 1, rotation: 0, extra: 1 },
+    ]) {
+      const r = await callRoute(fitRoute.PUT, { method: 'PUT', as: 'owner', params: { finalPageId: up.body.id }, body });
+      expect(r.status, JSON.stringify(body)).toBe(422);
+      expect(typeof r.body.error).toBe('string');
+    }
+    const viewer = await callRoute(fitRoute.PUT, {
+      method: 'PUT',
+      as: 'viewer',
+      params: { finalPageId: up.body.id },
+      body: { to: 'trim', x: 0, y: 0, scale: 1, rotation: 0 },
+    });
+    expect(viewer.status).toBe(403);
+    expect(await countRows(env.db(), ['finalPages'])).toEqual(before);
+    const after = (await callRoute(gagFinalRoute.GET, { as: 'viewer', params: { gagId } })).body[0];
+    expect(after).toMatchObject({ fitted: false, fit: up.body.fit });
   });
 });
