@@ -386,6 +386,21 @@ export interface FinalPagesTable {
   createdAt: Timestamp;
 }
 
+/** A final page's measured pixels (lib/print/scan-analysis.ts), one per analysis version. */
+export interface FinalPageAnalysesTable {
+  finalPageId: string;
+  version: number;
+  width: number;
+  height: number;
+  cell: number;
+  cols: number;
+  rows: number;
+  ink: Buffer;
+  colour: Buffer;
+  colourPixels: number;
+  createdAt: Timestamp;
+}
+
 export interface Database {
   users: UsersTable;
   series: SeriesTable;
@@ -417,6 +432,7 @@ export interface Database {
   volumeEntries: VolumeEntriesTable;
   uploads: UploadsTable;
   finalPages: FinalPagesTable;
+  finalPageAnalyses: FinalPageAnalysesTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -3,12 +3,15 @@
 // turned, with the live view and the effective resolution updating as it changes.
 import { RotateCw } from 'lucide-react';
 import { useState } from 'react';
+import useSWR from 'swr';
 import { Button } from '@/components/ui/button';
 import type { FinalPageDto } from '@/db/queries/final-pages';
-import { messageOf } from '@/lib/http/client';
+import { fetcher, messageOf } from '@/lib/http/client';
+import type { PagePreflight } from '@/lib/print/preflight';
 import { type Fit, type Quarter, placedBox, placedPpi } from '@/lib/print/final-fit';
 import type { PageSpec } from '@/lib/print/geometry';
 import { PRINTER_FIRST, resolutionCheck } from '@/lib/print/preflight-rules';
+import { ChecksList } from './checks-list';
 import { FitLegend, FitView } from './fit-view';
 
 const r2 = (n: number) => Math.round(n * 100) / 100;
@@ -58,6 +61,8 @@ export function FitEditor({
   const [fit, setFit] = useState<Fit>(page.fit);
   const [msg, setMsg] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  // The page's preflight at its saved fit (measuring the scan the first time takes a few seconds).
+  const preflight = useSWR<PagePreflight>(`/api/final-pages/${page.id}/preflight`, fetcher);
   const set = (patch: Partial<Fit>) => {
     setMsg(null);
     setFit((f) => ({ ...f, ...patch }));
@@ -124,6 +129,7 @@ export function FitEditor({
               setBusy(true);
               try {
                 await onSave(fit);
+                await preflight.mutate();
                 setMsg('Fit saved.');
               } catch (err) {
                 setMsg(messageOf(err, 'Could not save the fit.'));
@@ -140,6 +146,15 @@ export function FitEditor({
             {msg}
           </p>
         )}
+        <div className="space-y-1" data-testid="page-preflight">
+          <h3 className="text-sm font-bold text-graphite-soft">Preflight at the saved fit</h3>
+          {preflight.data ? (
+            <ChecksList checks={preflight.data.checks} label="Preflight of this page" />
+          ) : (
+            <p className="text-sm text-graphite-faint">{preflight.error ? 'The preflight could not be read.' : 'Measuring the scan…'}</p>
+          )}
+          <p className="text-xs text-graphite-faint">{PRINTER_FIRST}</p>
+        </div>
       </div>
     </div>
   );

@@ -13,6 +13,7 @@ import * as m21000 from './2026_12_02_1000_presence_per_tab';
 import * as m31000 from './2026_12_03_1000_pass_size';
 import * as m31100 from './2026_12_03_1100_sessions_and_sign_in_limits';
 import * as m43000 from './2026_12_04_3000_create_final_pages';
+import * as m43100 from './2026_12_04_3100_final_page_analyses';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_0900_create_users_and_series': m0900,
@@ -27,6 +28,7 @@ export const migrations: Record<string, Migration> = {
   '2026_12_03_1000_pass_size': m31000,
   '2026_12_03_1100_sessions_and_sign_in_limits': m31100,
   '2026_12_04_3000_create_final_pages': m43000,
+  '2026_12_04_3100_final_page_analyses': m43100,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -2,7 +2,8 @@
 // it talks to a real bucket; without, to the local s3rver fake on 127.0.0.1.
 // Objects are never public: the app serves them after checking the role.
 import 'server-only';
-import { createReadStream } from 'node:fs';
+import { createReadStream, createWriteStream } from 'node:fs';
+import { pipeline } from 'node:stream/promises';
 import { stat } from 'node:fs/promises';
 import type { Readable } from 'node:stream';
 import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
@@ -73,6 +74,14 @@ export async function getObjectStream(key: string): Promise<{ body: Readable; by
     if ((err as { name?: string }).name === 'NoSuchKey') return null;
     throw err;
   }
+}
+
+/** Copies an object to a file on disk, streamed; false when there is no such object. */
+export async function getObjectToFile(key: string, file: string): Promise<boolean> {
+  const obj = await getObjectStream(key);
+  if (!obj) return false;
+  await pipeline(obj.body, createWriteStream(file));
+  return true;
 }
 
 export async function deleteObject(key: string): Promise<void> {

@@ -17,6 +17,7 @@ import { reviewPdf as buildReviewPdf, type Paper, templatesPdf as buildTemplates
 import { gagNotes, scanImages, volumePages } from '@/lib/export/volume-export';
 import { computeFindings } from '@/lib/review/findings';
 import { passToSvg } from '@/lib/strokes/svg';
+import { analyseKept } from '@/lib/export/analyse-scan';
 
 let reader: { url: string; db: Kysely<Database> } | undefined;
 
@@ -92,4 +93,9 @@ export async function templatesPdf(args: { volumeId: string; scale: number; pape
   const db = await getDb();
   const { volume, entries } = await volumePages(db, args.volumeId);
   return sent(await buildTemplatesPdf(volume.spec, volume.title, await gagNotes(db, entries), args.scale, args.paper));
+}
+
+/** Measures a final page's scan for the preflight (colour, ink): seconds for a 600 ppi page, in bounded memory. */
+export async function analyseFinalPage(args: { keptKey: string }) {
+  return analyseKept(args.keptKey); // two grids of at most 64 KB each: copied to the request thread
 }

@@ -63,6 +63,8 @@ import * as gagFinalPagesRoute from '@/app/api/gags/[gagId]/final-pages/route';
 import * as entryFinalPagesRoute from '@/app/api/volumes/[volumeId]/entries/[entryId]/final-pages/route';
 import * as finalCurrentRoute from '@/app/api/final-pages/[finalPageId]/current/route';
 import * as finalFitRoute from '@/app/api/final-pages/[finalPageId]/fit/route';
+import * as finalPreflightRoute from '@/app/api/final-pages/[finalPageId]/preflight/route';
+import * as volumePreflightRoute from '@/app/api/volumes/[volumeId]/preflight/route';
 import * as finalImageRoute from '@/app/api/final-pages/[finalPageId]/image/[variant]/route';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
 
@@ -618,6 +620,20 @@ const ROUTES: RouteCase[] = [
     method: 'PUT',
     prepare: async () => ({ params: { finalPageId: (await finalPages()).newer }, body: { to: 'bleed', x: 1, y: 0, scale: 1, rotation: 90 } }),
     expected: row(401, 403, 403, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/final-pages/:finalPageId/preflight',
+    handler: finalPreflightRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { finalPageId: (await finalPages()).newer } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/preflight',
+    handler: volumePreflightRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
   },
   {
     route: 'GET /api/final-pages/:finalPageId/image/:variant',

@@ -6,6 +6,7 @@ import { withSeriesRole } from '@/lib/http/route';
 import { byGagId } from '@/lib/http/series-of';
 import { gagChanged } from '@/lib/live/events';
 import { uploadFinalPage } from '@/lib/uploads/store-final';
+import { measureSoon } from '@/lib/export/final-analyses';
 
 type Params = { gagId: string };
 const seriesOf = byGagId;
@@ -18,5 +19,6 @@ export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, p
   const spec = await pageSpecForGag(db, seriesId, params.gagId);
   const { page, duplicate } = await uploadFinalPage(req, db, { seriesId, userId: user.id, owner: { gagId: params.gagId }, spec });
   await gagChanged(seriesId, params.gagId, ['final', 'gag'], ['gags', 'activity']);
+  measureSoon(db, page.id);
   return Response.json(duplicate ? { ...page, duplicate: true } : page, { status: duplicate ? 200 : 201 });
 });

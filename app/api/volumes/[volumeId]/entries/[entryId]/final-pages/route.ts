@@ -4,6 +4,7 @@ import { findVolume, matterEntry } from '@/db/queries/volumes';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
 import { byVolumeId } from '@/lib/http/series-of';
 import { uploadFinalPage } from '@/lib/uploads/store-final';
+import { measureSoon } from '@/lib/export/final-analyses';
 
 type Params = { volumeId: string; entryId: string };
 const seriesOf = byVolumeId;
@@ -23,5 +24,6 @@ export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, p
   if (entry.kind === 'gag') return jsonError(422, NOT_MATTER);
   const { spec } = (await findVolume(db, params.volumeId))!;
   const { page, duplicate } = await uploadFinalPage(req, db, { seriesId, userId: user.id, owner: { entryId: params.entryId }, spec });
+  measureSoon(db, page.id);
   return Response.json(duplicate ? { ...page, duplicate: true } : page, { status: duplicate ? 200 : 201 });
 });
