@@ -4,6 +4,7 @@ import type { ColumnType, Generated, Selectable } from 'kysely';
 import type { BeatKind, GagStatus } from '@/lib/gags/status';
 import type { Role } from '@/lib/auth/permissions';
 import type { RoomShape, StrokeTool } from '@/lib/strokes/types';
+import type { ScanColour } from '@/lib/print/final-fit';
 
 /** ISO-8601 timestamps, stored as TEXT. */
 type Timestamp = string;
@@ -354,6 +355,63 @@ export interface UploadsTable {
   createdAt: Timestamp;
 }
 
+export type FinalPageColour = ScanColour;
+
+/** A scan of an inked page (a gag's or a matter page's); see db/queries/final-pages.ts. */
+export interface FinalPagesTable {
+  id: string;
+  seriesId: string;
+  /** Exactly one of gagId and entryId (a matter page) is set. */
+  gagId: string | null;
+  entryId: string | null;
+  sha256: string;
+  name: string;
+  /** The file as uploaded. */
+  mime: 'image/tiff' | 'image/png' | 'image/jpeg';
+  bytes: number;
+  width: number;
+  height: number;
+  bitsPerPixel: number;
+  colour: FinalPageColour;
+  /** The resolution the file records, if any (pixels per inch). */
+  ppi: number | null;
+  /** The file kept for printing: the same pixels, upright, private metadata gone. */
+  keptKey: string;
+  keptMime: string;
+  /** A copy at most 2,048 px for the screen, and a 320 px preview. */
+  displayKey: string;
+  previewKey: string;
+  fitTo: 'trim' | 'bleed';
+  fitX: number;
+  fitY: number;
+  fitScale: number;
+  fitRotation: number;
+  /** Set when a person fitted it (PUT …/fit); null while it has the fit it got on upload. */
+  fittedAt: Timestamp | null;
+  fittedBy: string | null;
+  /** 1 for the current final page of its gag or matter page. */
+  current: number;
+  madeCurrentAt: Timestamp;
+  madeCurrentBy: string;
+  createdBy: string;
+  createdAt: Timestamp;
+}
+
+/** A final page's measured pixels (lib/print/scan-analysis.ts), one per analysis version. */
+export interface FinalPageAnalysesTable {
+  finalPageId: string;
+  version: number;
+  width: number;
+  height: number;
+  cell: number;
+  cols: number;
+  rows: number;
+  ink: Buffer;
+  colour: Buffer;
+  colourPixels: number;
+  createdAt: Timestamp;
+}
+
 export interface Database {
   users: UsersTable;
   series: SeriesTable;
@@ -385,6 +443,8 @@ export interface Database {
   volumes: VolumesTable;
   volumeEntries: VolumeEntriesTable;
   uploads: UploadsTable;
+  finalPages: FinalPagesTable;
+  finalPageAnalyses: FinalPageAnalysesTable;
 }
 
 export type User = Selectable<UsersTable>;

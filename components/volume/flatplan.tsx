@@ -4,6 +4,7 @@
 import { AlertTriangle } from 'lucide-react';
 import type { Flatplan as FlatplanData } from '@/db/queries/volumes';
 import { STATUS_LABELS } from '@/lib/gags/status';
+import { CONFIRM_WITH_PRINTER } from '@/lib/print/book';
 import { MATTER_LABELS } from '@/lib/print/matter';
 
 export function FlatplanView({ data, binding }: { data: FlatplanData; binding: 'saddle' | 'perfect' }) {
@@ -43,7 +44,8 @@ export function FlatplanView({ data, binding }: { data: FlatplanData; binding: '
             {data.pages.length} pages cannot be{' '}
             {binding === 'saddle' ? 'saddle stitched (it takes a multiple of 4)' : 'perfect bound (it takes an even count)'}: add {data.blanksNeeded}{' '}
             blank page
-            {data.blanksNeeded === 1 ? '' : 's'}, best after page {data.blanksAt} (after the last gag, before the back matter).
+            {data.blanksNeeded === 1 ? '' : 's'}, best after page {data.blanksAt} (after the last gag, before the back matter). Printers differ on the
+            counts they take: confirm with your printer.
           </p>
         )}
         {data.notReady.length > 0 && (
@@ -61,9 +63,12 @@ export function FlatplanView({ data, binding }: { data: FlatplanData; binding: '
           </div>
         ))}
       </div>
-      <p className="text-sm text-graphite-soft">
-        {data.pages.length} pages · spine {data.spineMm.toFixed(2)} mm · {data.sheets} {binding === 'saddle' ? 'sheets to fold' : 'leaves'}
-        {data.printerSpreads.length > 0 && <> · printer spreads: {data.printerSpreads.map(([a, b]) => `${a}|${b}`).join(', ')}</>}
+      <p className="text-sm text-graphite-soft" data-testid="flatplan-figures">
+        {data.pages.length} pages ·{' '}
+        {data.spineMm === null ? 'saddle stitched, no spine' : `spine ${data.spineMm.toFixed(2)} mm (pages ÷ 2 × paper caliper)`} · {data.sheets}{' '}
+        {binding === 'saddle' ? 'sheets to fold' : 'leaves'}
+        {data.printerSpreads.length > 0 && <> · printer spreads: {data.printerSpreads.map(([a, b]) => `${a}|${b}`).join(', ')}</>}.{' '}
+        {CONFIRM_WITH_PRINTER}
       </p>
     </section>
   );

@@ -6,6 +6,7 @@ import { type Role, can } from '@/lib/auth/permissions';
 import { Exports } from './exports';
 import { FlatplanView } from './flatplan';
 import { Planner } from './planner';
+import { PreflightView } from './preflight-view';
 import { RunningOrder } from './running-order';
 import { VolumeSpecForm } from './volume-spec-form';
 
@@ -27,6 +28,7 @@ export function VolumePage({ seriesId, seriesTitle, role, initial }: { seriesId:
       </div>
       <RunningOrder volumeId={v.id} entries={v.entries} unplaced={v.unplaced} canEdit={can(role, 'edit')} onChanged={refresh} />
       {flatplan && <FlatplanView data={flatplan} binding={v.spec.binding} />}
+      <PreflightView volumeId={v.id} entries={v.entries} />
       {plan && <Planner data={plan} canEdit={can(role, 'manage')} onPatch={patch} />}
       <VolumeSpecForm
         key={JSON.stringify(v.spec)}

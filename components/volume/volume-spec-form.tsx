@@ -2,7 +2,7 @@
 // The volume's print spec: trim (presets or custom), bleed, safe, gutter, binding, caliper, direction.
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { BLEED_PRESETS, TRIM_PRESETS, type VolumeSpec, spineMm } from '@/lib/print/book';
+import { BLEED_PRESETS, CONFIRM_WITH_PRINTER, TRIM_PRESETS, type VolumeSpec, bookSpineMm } from '@/lib/print/book';
 
 function NumberField(p: { label: string; step: string; value: number; onChange: (e: React.ChangeEvent<HTMLInputElement>) => void }) {
   return (
@@ -89,7 +89,10 @@ export function VolumeSpecForm({
         </label>
       </fieldset>
       <p className="text-sm text-graphite-soft">
-        Spine at {pages} pages: {spineMm(pages, s.caliperUm).toFixed(2)} mm. The printer&apos;s own specification takes precedence.
+        {s.binding === 'perfect'
+          ? `Spine at ${pages} pages: ${bookSpineMm(pages, s.binding, s.caliperUm)!.toFixed(2)} mm (pages ÷ 2 × paper caliper).`
+          : 'Saddle stitched: folded and stapled, no spine.'}{' '}
+        {CONFIRM_WITH_PRINTER}
       </p>
       {canEdit && (
         <Button

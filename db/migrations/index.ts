@@ -14,6 +14,8 @@ import * as m31000 from './2026_12_03_1000_pass_size';
 import * as m31100 from './2026_12_03_1100_sessions_and_sign_in_limits';
 import * as m42100 from './2026_12_04_2100_checklist_rechecks';
 import * as m42110 from './2026_12_04_2110_invitation_replaced_by';
+import * as m43000 from './2026_12_04_3000_create_final_pages';
+import * as m43100 from './2026_12_04_3100_final_page_analyses';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_0900_create_users_and_series': m0900,
@@ -29,6 +31,8 @@ export const migrations: Record<string, Migration> = {
   '2026_12_03_1100_sessions_and_sign_in_limits': m31100,
   '2026_12_04_2100_checklist_rechecks': m42100,
   '2026_12_04_2110_invitation_replaced_by': m42110,
+  '2026_12_04_3000_create_final_pages': m43000,
+  '2026_12_04_3100_final_page_analyses': m43100,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -14,7 +14,8 @@ export type ActivityKind =
   | 'stamp.again'
   | 'stamp.cleared'
   | 'comment.created'
-  | 'member.joined';
+  | 'member.joined'
+  | 'final.uploaded';
 
 export async function recordActivity(
   db: Db,

@@ -1,11 +1,12 @@
 // Gags with their four beats. Every write that touches a beat also bumps the
 // gag's updatedAt, so "last change" on the board means any change.
 import type { Kysely, Selectable, Transaction } from 'kysely';
-import { BEAT_KINDS, type BeatKind, type GagStatus, checkManualMove } from '@/lib/gags/status';
+import { BEAT_KINDS, type BeatKind, type GagStatus, checkArtMove, checkManualMove } from '@/lib/gags/status';
 import { Refused } from '@/lib/refused';
 import type { BeatsTable, Database, GagsTable } from '../database';
 import { lockPassesOf, lockRow } from '../dialect';
 import { recordActivity } from './activity';
+import { artFacts } from './art-status';
 import { setGagStatus } from './gag-status';
 import { type StampMark, clearReadyStamps, readyStampStands, stampMarks } from './stamps';
 
@@ -187,7 +188,8 @@ export async function patchGag(db: Kysely<Database>, gagId: string, patch: GagPa
     if (!current) throw new Refused(404, 'Not found.');
     const moved = !!patch.status && patch.status !== current.status;
     if (patch.status) {
-      const check = checkManualMove(current.status, patch.status, { readyStampStands: await readyStampStands(trx, gagId) });
+      let check = checkManualMove(current.status, patch.status, { readyStampStands: await readyStampStands(trx, gagId) });
+      if (check.ok && current.status !== patch.status) check = checkArtMove(patch.status, await artFacts(trx, gagId));
       if (!check.ok) throw new Refused(422, check.reason, [{ path: ['status'], message: check.reason, code: 'invalid_move' }]);
     }
     await updateGag(trx, gagId, patch, userId);

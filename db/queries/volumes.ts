@@ -13,12 +13,13 @@ import {
   printerSpreads,
   readerSpreads,
   sheetsNeeded,
-  spineMm,
+  bookSpineMm,
 } from '@/lib/print/book';
 import { DEFAULT_HOURS, type Stage, plan } from '@/lib/planning/plan';
 import type { Database, EntryKind, VolumesTable } from '../database';
 import { lockRow } from '../dialect';
 import { Refused } from '@/lib/refused';
+import { syncArtStatus } from './art-status';
 
 export type VolumeDto = {
   id: string;
@@ -171,11 +172,20 @@ async function addEntryLocked(
     .insertInto('volumeEntries')
     .values({ id, volumeId, kind: input.gagId ? 'gag' : input.kind!, gagId: input.gagId ?? null, position, createdAt: new Date().toISOString() })
     .execute();
+  if (input.gagId) await syncArtStatus(db, input.gagId);
 }
 
+/** Takes a page out of the running order; a gag with a fitted final page goes back to "scanned". */
 export async function removeEntry(db: Kysely<Database>, volumeId: string, entryId: string): Promise<boolean> {
-  const r = await db.deleteFrom('volumeEntries').where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
-  return Number(r.numDeletedRows) > 0;
+  return db.transaction().execute(async (trx) => {
+    await lockRow(trx, 'volumes', volumeId);
+    const entry = await trx.selectFrom('volumeEntries').select('gagId').where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
+    if (!entry) return false;
+    if (entry.gagId) await lockRow(trx, 'gags', entry.gagId);
+    await trx.deleteFrom('volumeEntries').where('id', '=', entryId).execute();
+    if (entry.gagId) await syncArtStatus(trx, entry.gagId);
+    return true;
+  });
 }
 
 /**
@@ -244,7 +254,8 @@ export type Flatplan = {
   pageCountValid: boolean;
   blanksNeeded: number;
   blanksAt: number;
-  spineMm: number;
+  /** Perfect binding only: a saddle-stitched book has no spine (null). */
+  spineMm: number | null;
   sheets: number;
   printerSpreads: Spread[];
   notReady: { gagId: string; title: string; status: GagStatus }[];
@@ -267,9 +278,9 @@ export function flatplanOf(volume: VolumeDto, entries: EntryDto[]): Flatplan {
     pageCountValid: pageCountValid(n, volume.spec.binding),
     blanksNeeded: blanksNeeded(n, volume.spec.binding),
     blanksAt: blankSuggestion(entries.map((e) => e.kind)),
-    spineMm: spineMm(n, volume.spec.caliperUm),
+    spineMm: bookSpineMm(n, volume.spec.binding, volume.spec.caliperUm),
     sheets: sheetsNeeded(n, volume.spec.binding),
-    printerSpreads: volume.spec.binding === 'saddle' ? printerSpreads(n) : [],
+    printerSpreads: volume.spec.binding === 'saddle' ? printerSpreads(n, volume.spec.direction) : [],
     notReady: entries
       .filter((e) => e.gagId && e.status && !READY_OR_LATER.includes(e.status))
       .map((e) => ({ gagId: e.gagId!, title: e.title!, status: e.status! })),
@@ -297,4 +308,9 @@ export async function unplacedGags(db: Kysely<Database>, seriesId: string) {
     .where('e.id', 'is', null)
     .orderBy('g.position')
     .execute();
+}
+
+/** A running-order entry of this volume (its kind), or undefined. */
+export async function matterEntry(db: Kysely<Database>, volumeId: string, entryId: string) {
+  return db.selectFrom('volumeEntries').select(['id', 'kind']).where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
 }

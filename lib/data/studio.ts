@@ -46,7 +46,7 @@ export async function loadGag(seriesId: string, gagId: string) {
   const db = await getDb();
   const gag = await findGag(db, gagId);
   if (!gag || gag.seriesId !== seriesId) notFound();
-  return { ...base, gag, passes: await listPasses(db, gagId) };
+  return { ...base, gag, passes: await listPasses(db, gagId), spec: await pageSpecForGag(db, seriesId, gagId) };
 }
 
 export async function loadPassEditor(seriesId: string, gagId: string, passNo: number) {

@@ -125,6 +125,33 @@ function centred(sheet: Sheet, font: PDFFont, text: string, size: number, cx: nu
   textAt(sheet, font, text, size, cx - font.widthOfTextAtSize(text, size) / 2, y, color);
 }
 
+/**
+ * The page number, inside the safe area (nothing within the safe margin of the trim risks the knife): its glyphs sit
+ * 1 mm above the safe box's bottom edge, centred, on a white label so it reads over the art of the bottom panels.
+ */
+function pageNumber(sheet: Sheet, font: PDFFont, n: number, cx: number, safeBottom: number) {
+  const size = 7;
+  const text = String(n);
+  const width = font.widthOfTextAtSize(text, size);
+  const baseline = safeBottom + mmToPt(1) + font.heightAtSize(size, { descender: true }) - font.heightAtSize(size, { descender: false });
+  const top = safeBottom + mmToPt(1) + font.heightAtSize(size, { descender: true });
+  sheet.out.text(`q 1 1 1 rg ${rectPath(cx - width / 2 - 1, safeBottom + mmToPt(0.5), width + 2, top - safeBottom - mmToPt(0.5) + 0.5)} f Q\n`);
+  textAt(sheet, font, text, size, cx - width / 2, baseline, [0.16, 0.16, 0.18]);
+}
+
+/**
+ * The slug line's size and baseline so that its whole glyph box (ascender to descender) lies in the bleed below the
+ * trim with a fifth of the bleed to spare on each side: at most 4 pt, and left off the page (the note stays in the
+ * document's Subject) when the bleed is too narrow for 2 pt text — a slug inside the trim would be printed.
+ */
+export function slugFit(font: PDFFont, bleedPt: number): { size: number; y: number } | null {
+  const perPt = font.heightAtSize(1, { descender: true });
+  const size = Math.min(4, (bleedPt * 0.6) / perPt);
+  if (size < 2) return null;
+  const descent = perPt * size - font.heightAtSize(size, { descender: false });
+  return { size, y: (bleedPt - perPt * size) / 2 + descent };
+}
+
 /** A scan's bytes for the PDF: PNG or JPEG (pdf-lib embeds no other kind). */
 export type ScanImage = { bytes: Uint8Array; format: 'png' | 'jpg' };
 
@@ -161,7 +188,6 @@ export async function reviewPdf(
   };
   const boxes = pdfBoxes(spec);
   const [, , w, h] = boxes.media;
-  const safe = safeBox(spec);
   const out = new ContentWriter();
   // The note is the same on every page: laid out once (a space before it, so no glyph joins across).
   const note = font.encodeText(PRINTER_NOTE).asString();
@@ -180,10 +206,11 @@ export async function reviewPdf(
       }
       drawPanels(sheet, spec, p.strokes ?? [], p.rooms ?? [], scans);
     } else centred(sheet, font, p.label, 14, w / 2, h / 2, [0.47, 0.46, 0.49]);
-    centred(sheet, font, String(p.number), 7, w / 2, boxes.trim[1] + mmToPt(safe.y) / 2 - 2.5);
+    pageNumber(sheet, font, p.number, w / 2, boxes.safe[1]);
     // In the bleed, outside the trim: the page's name and the printer note (cut off when trimmed).
-    const line = PDFHexString.of(font.encodeText(`${p.number} · ${p.label} · `).asString() + note);
-    textAt(sheet, font, line, 4, 2, 2, [0.5, 0.5, 0.5]);
+    const slug = slugFit(font, boxes.trim[1]);
+    if (slug)
+      textAt(sheet, font, PDFHexString.of(font.encodeText(`${p.number} · ${p.label} · `).asString() + note), slug.size, 2, slug.y, [0.5, 0.5, 0.5]);
     sheet.out.finish(doc, page);
     opts.onPage?.(p.number);
   }

@@ -83,3 +83,31 @@ export function afterStampCleared(status: GagStatus): { status: GagStatus; says:
   }
   return { status, says: `the gag stays “${STATUS_LABELS[status]}”` };
 }
+
+/** What the final art says about a gag: a current final page, fitted by a person, and the gag in a running order. */
+export type ArtFacts = { hasFinalPage: boolean; fitted: boolean; inRunningOrder: boolean };
+
+/**
+ * The paper stages follow the final art (PRODUCT.md "Gag status"): a gag with a final page is
+ * "scanned", and "placed" once that page is fitted and the gag sits in a volume's running order.
+ * Without a final page the status is whatever people set. Every change to the art (upload,
+ * going back to an earlier scan, a fit, placing in or taking out of a running order) asks this.
+ */
+export function statusFromArt(current: GagStatus, art: ArtFacts): GagStatus {
+  if (!art.hasFinalPage) return current;
+  return art.fitted && art.inRunningOrder ? 'placed' : 'scanned';
+}
+
+/** A move by hand to "scanned" or "placed" must agree with the art, when the art is known. */
+export function checkArtMove(to: GagStatus, art: ArtFacts): StatusCheck {
+  if (to === 'scanned' && !art.hasFinalPage) {
+    return { ok: false, reason: 'A gag is "scanned" once it has a final page: upload the scan of the inked page.' };
+  }
+  if (to === 'placed' && !(art.hasFinalPage && art.fitted && art.inRunningOrder)) {
+    return {
+      ok: false,
+      reason: 'A gag is "placed" once its final page is fitted to the page and it sits in a volume\'s running order.',
+    };
+  }
+  return { ok: true };
+}

@@ -3,6 +3,7 @@
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
 import { seriesOfComment } from '@/db/queries/comments';
+import { seriesOfFinalPage } from '@/db/queries/final-pages';
 import { seriesOfGag } from '@/db/queries/gags';
 import { seriesOfPass } from '@/db/queries/passes';
 import { findSeries } from '@/db/queries/series';
@@ -17,3 +18,4 @@ export const byPassId = (p: { passId: string }, db: Db) => seriesOfPass(db, p.pa
 export const byVolumeId = (p: { volumeId: string }, db: Db) => seriesOfVolume(db, p.volumeId);
 export const byUploadId = (p: { uploadId: string }, db: Db) => seriesOfUpload(db, p.uploadId);
 export const byCommentId = (p: { commentId: string }, db: Db) => seriesOfComment(db, p.commentId);
+export const byFinalPageId = (p: { finalPageId: string }, db: Db) => seriesOfFinalPage(db, p.finalPageId);

@@ -4,7 +4,7 @@ import 'server-only';
 import { publish } from './bus';
 
 /** What changed on a gag's page; clients refetch the matching data. */
-export type GagPart = 'gag' | 'passes' | 'comments' | 'stamps' | 'checklist';
+export type GagPart = 'gag' | 'passes' | 'comments' | 'stamps' | 'checklist' | 'final';
 /** What changed on a series board. */
 export type SeriesPart = 'gags' | 'activity' | 'members';
 

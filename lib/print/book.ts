@@ -78,6 +78,14 @@ export function spineMm(pages: number, caliperUm: number): number {
   return (pages / 2) * (caliperUm / 1000);
 }
 
+/** The spine a binding has: perfect binding glues leaves to a flat spine; a saddle-stitched book folds on its staples and has none. */
+export function bookSpineMm(pages: number, binding: Binding, caliperUm: number): number | null {
+  return binding === 'perfect' ? spineMm(pages, caliperUm) : null;
+}
+
+/** Said beside every page count and spine figure: printers differ, and their own sheet wins. */
+export const CONFIRM_WITH_PRINTER = 'Confirm with your printer: their own specification takes precedence.';
+
 /** Sheets to fold for saddle stitch (4 pages each), leaves for perfect binding (2 pages each). */
 export function sheetsNeeded(pages: number, binding: Binding): number {
   return Math.ceil(pages / (binding === 'saddle' ? 4 : 2));
@@ -101,11 +109,16 @@ export function readerSpreads(pages: number, direction: ReadingDirection = 'ltr'
 /**
  * Printer spreads for saddle stitch: the pages that share a side of a sheet,
  * pairs summing to n + 1, outer and inner alternating: 8 pages → 8|1, 2|7, 6|3, 4|5.
+ * A right-to-left book opens from the other side, so every pair is mirrored (1|8, 7|2 …):
+ * its page 1 lies on the sheet's left half, as its reader spreads put page 1 on the left.
  */
-export function printerSpreads(pages: number): Spread[] {
-  if (pages % 4 !== 0) return [];
+export function printerSpreads(pages: number, direction: ReadingDirection = 'ltr'): Spread[] {
+  if (pages <= 0 || pages % 4 !== 0) return [];
   const out: Spread[] = [];
-  for (let k = 0; k < pages / 2; k++) out.push(k % 2 === 0 ? [pages - k, k + 1] : [k + 1, pages - k]);
+  for (let k = 0; k < pages / 2; k++) {
+    const pair: Spread = k % 2 === 0 ? [pages - k, k + 1] : [k + 1, pages - k];
+    out.push(direction === 'ltr' ? pair : [pair[1], pair[0]]);
+  }
   return out;
 }
 

@@ -2,6 +2,10 @@
 // it talks to a real bucket; without, to the local s3rver fake on 127.0.0.1.
 // Objects are never public: the app serves them after checking the role.
 import 'server-only';
+import { createReadStream, createWriteStream } from 'node:fs';
+import { pipeline } from 'node:stream/promises';
+import { stat } from 'node:fs/promises';
+import type { Readable } from 'node:stream';
 import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 
 export const FAKE_S3_PORT_DEFAULT = 4569;
@@ -29,6 +33,9 @@ function s3() {
         endpoint: c.endpoint,
         region: c.region,
         forcePathStyle: true,
+        // No checksum trailer unless an operation requires one: a streamed body then goes as it is, not in
+        // aws-chunked framing, which S3-compatible stores (the s3rver fake among them) may keep as the content.
+        requestChecksumCalculation: 'WHEN_REQUIRED',
         credentials: { accessKeyId: c.accessKeyId, secretAccessKey: c.secretAccessKey },
       }),
     };
@@ -48,6 +55,33 @@ export async function getObject(key: string): Promise<{ body: Uint8Array; conten
     if ((err as { name?: string }).name === 'NoSuchKey') return null;
     throw err;
   }
+}
+
+/** Puts a file from disk, streamed (a print file or a scan may be hundreds of MB). */
+export async function putObjectFile(key: string, file: string, contentType: string): Promise<void> {
+  const { size } = await stat(file);
+  await s3().send(
+    new PutObjectCommand({ Bucket: s3Config().bucket, Key: key, Body: createReadStream(file), ContentLength: size, ContentType: contentType }),
+  );
+}
+
+/** An object as a stream with its length, never whole in memory; null when there is none. */
+export async function getObjectStream(key: string): Promise<{ body: Readable; bytes: number; contentType: string } | null> {
+  try {
+    const r = await s3().send(new GetObjectCommand({ Bucket: s3Config().bucket, Key: key }));
+    return { body: r.Body as Readable, bytes: Number(r.ContentLength ?? 0), contentType: r.ContentType ?? 'application/octet-stream' };
+  } catch (err) {
+    if ((err as { name?: string }).name === 'NoSuchKey') return null;
+    throw err;
+  }
+}
+
+/** Copies an object to a file on disk, streamed; false when there is no such object. */
+export async function getObjectToFile(key: string, file: string): Promise<boolean> {
+  const obj = await getObjectStream(key);
+  if (!obj) return false;
+  await pipeline(obj.body, createWriteStream(file));
+  return true;
 }
 
 export async function deleteObject(key: string): Promise<void> {

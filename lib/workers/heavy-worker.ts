@@ -19,6 +19,7 @@ import { reviewPdf as buildReviewPdf } from '@/lib/export/pdf';
 import { blueLineGags, scanImages, volumePages } from '@/lib/export/volume-export';
 import { computeFindings } from '@/lib/review/findings';
 import { passToSvg } from '@/lib/strokes/svg';
+import { analyseKept } from '@/lib/export/analyse-scan';
 
 let reader: { url: string; db: Kysely<Database> } | undefined;
 
@@ -96,4 +97,9 @@ export async function templatesPdf(args: { volumeId: string; gagIds: string[] } 
   const { volumeId, gagIds, ...options } = args;
   const volume = (await findVolume(db, volumeId))!;
   return sent(await blueLinePdf(volume.spec, volume.title, await blueLineGags(db, volumeId, gagIds), options));
+}
+
+/** Measures a final page's scan for the preflight (colour, ink): seconds for a 600 ppi page, in bounded memory. */
+export async function analyseFinalPage(args: { keptKey: string }) {
+  return analyseKept(args.keptKey); // two grids of at most 64 KB each: copied to the request thread
 }

@@ -63,6 +63,13 @@ import sharp from 'sharp';
 import * as uploadsRoute from '@/app/api/series/[seriesId]/uploads/route';
 import * as uploadRoute from '@/app/api/uploads/[uploadId]/route';
 import * as variantRoute from '@/app/api/uploads/[uploadId]/[variant]/route';
+import * as gagFinalPagesRoute from '@/app/api/gags/[gagId]/final-pages/route';
+import * as entryFinalPagesRoute from '@/app/api/volumes/[volumeId]/entries/[entryId]/final-pages/route';
+import * as finalCurrentRoute from '@/app/api/final-pages/[finalPageId]/current/route';
+import * as finalFitRoute from '@/app/api/final-pages/[finalPageId]/fit/route';
+import * as finalPreflightRoute from '@/app/api/final-pages/[finalPageId]/preflight/route';
+import * as volumePreflightRoute from '@/app/api/volumes/[volumeId]/preflight/route';
+import * as finalImageRoute from '@/app/api/final-pages/[finalPageId]/image/[variant]/route';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
 
 const PERSONAS: Persona[] = ['anonymous', 'viewer', 'editor', 'cocreator', 'owner', 'outsider'];
@@ -129,6 +136,21 @@ async function newPass(): Promise<{ passId: string; revisionId: string }> {
   await applyBatch(db, { passId: id, batchId: 'seed', ops: [{ op: 'add', stroke }], userId: 'demo-user-owner', spec: DEFAULT_PAGE_SPEC });
   const rev = await db.selectFrom('revisions').select('id').where('passId', '=', id).where('seq', '=', 0).executeTakeFirstOrThrow();
   return { passId: id, revisionId: rev.id };
+}
+
+/** A gag with two final pages (small scans); the first, older one is no longer current. */
+async function finalPages(): Promise<{ gagId: string; older: string; newer: string }> {
+  const gagId = await newGag();
+  const up = async () =>
+    (await callRoute(gagFinalPagesRoute.POST, { method: 'POST', as: 'owner', params: { gagId }, form: await imageForm() })).body.id as string;
+  const older = await up();
+  return { gagId, older, newer: await up() };
+}
+
+/** A volume with a title page (a matter page). */
+async function matterPage(): Promise<{ volumeId: string; entryId: string }> {
+  const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Matter volume', deadline: '2027-03-13' });
+  return { volumeId: v.id, entryId: (await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'title' })).id };
 }
 
 /** A plain member of Kettle Crab to change or remove. */
@@ -606,6 +628,69 @@ const ROUTES: RouteCase[] = [
     prepare: async () => ({ params: { uploadId: await usedUpload() }, url: '/?confirm=1' }),
     expected: row(401, 403, 403, 204, 204, 404),
   },
+  {
+    route: 'GET /api/gags/:gagId/final-pages',
+    handler: gagFinalPagesRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { gagId: (await finalPages()).gagId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/gags/:gagId/final-pages',
+    handler: gagFinalPagesRoute.POST,
+    method: 'POST',
+    prepare: async () => ({ params: { gagId: await newGag() }, form: await imageForm() }),
+    expected: row(401, 403, 403, 201, 201, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/entries/:entryId/final-pages',
+    handler: entryFinalPagesRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: await matterPage() }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/volumes/:volumeId/entries/:entryId/final-pages',
+    handler: entryFinalPagesRoute.POST,
+    method: 'POST',
+    prepare: async () => ({ params: await matterPage(), form: await imageForm() }),
+    expected: row(401, 403, 403, 201, 201, 404),
+  },
+  {
+    route: 'POST /api/final-pages/:finalPageId/current',
+    handler: finalCurrentRoute.POST,
+    method: 'POST',
+    prepare: async () => ({ params: { finalPageId: (await finalPages()).older } }),
+    expected: row(401, 403, 403, 200, 200, 404),
+  },
+  {
+    route: 'PUT /api/final-pages/:finalPageId/fit',
+    handler: finalFitRoute.PUT,
+    method: 'PUT',
+    prepare: async () => ({ params: { finalPageId: (await finalPages()).newer }, body: { to: 'bleed', x: 1, y: 0, scale: 1, rotation: 90 } }),
+    expected: row(401, 403, 403, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/final-pages/:finalPageId/preflight',
+    handler: finalPreflightRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { finalPageId: (await finalPages()).newer } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/preflight',
+    handler: volumePreflightRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { volumeId: (await newVolume()).volumeId } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/final-pages/:finalPageId/image/:variant',
+    handler: finalImageRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { finalPageId: (await finalPages()).newer, variant: 'kept' } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
   { route: 'GET /api/me', handler: meRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
   {
     route: 'PATCH /api/me',
@@ -686,6 +771,7 @@ async function snapshot() {
     volumes: await db.selectFrom('volumes').selectAll().orderBy('id').execute(),
     entries: await db.selectFrom('volumeEntries').selectAll().orderBy('id').execute(),
     uploads: await db.selectFrom('uploads').select(['id', 'sha256']).orderBy('id').execute(),
+    finalPages: await db.selectFrom('finalPages').select(['id', 'current', 'madeCurrentAt', 'fittedAt', 'fitX']).orderBy('id').execute(),
     lightboxes: await db.selectFrom('lightboxes').select(['rowId', 'passId', 'lightboxId', 'removedSeq']).orderBy('rowId').execute(),
   });
 }

@@ -89,17 +89,16 @@ describe('the stamp', () => {
     await stamp(passId, 'editor', 'ready');
     const patch = (status: string) => callRoute(gagRoute.PATCH, { method: 'PATCH', as: 'cocreator', params: { gagId }, body: { status } });
     expect((await patch('inked')).status).toBe(200);
-    expect((await patch('scanned')).status).toBe(200);
     await callRoute(opsRoute.POST, {
       method: 'POST',
       as: 'cocreator',
       params: { passId },
-      body: { batchId: 'after-scan', ops: [{ op: 'add', stroke: line('late-scan') }] },
+      body: { batchId: 'after-ink-11', ops: [{ op: 'add', stroke: line('late-ink') }] },
     });
-    expect(await gagStatus(gagId)).toBe('scanned');
+    expect(await gagStatus(gagId)).toBe('inked');
     const feed = await callRoute(activityRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } });
-    const cleared = feed.body.items.find((i: { kind: string; summary: string }) => i.kind === 'stamp.cleared' && i.summary.includes('Scanned'));
-    expect(cleared?.summary).toMatch(/the stamp is cleared and the gag stays “Scanned”/);
+    const cleared = feed.body.items.find((i: { kind: string; summary: string }) => i.kind === 'stamp.cleared' && i.summary.includes('Inked'));
+    expect(cleared?.summary).toMatch(/the stamp is cleared and the gag stays “Inked”: its inked page is not affected/);
     expect(cleared?.summary).not.toMatch(/back in review/);
   });
 

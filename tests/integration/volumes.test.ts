@@ -137,7 +137,7 @@ describe('flatplan and plan', () => {
     expect(f.body.pageCountValid).toBe(false);
     expect(f.body.blanksNeeded).toBe(1);
     expect(f.body.spreads[0]).toEqual([null, 1]);
-    expect(f.body.spineMm).toBeCloseTo((11 / 2) * 0.1, 10);
+    expect(f.body.spineMm).toBeNull(); // saddle stitched: no spine
     expect(f.body.notReady.map((g: { title: string }) => g.title)).toEqual(['Sugar Cube']);
     expect(f.body.printerSpreads).toEqual([]);
   });

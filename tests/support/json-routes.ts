@@ -50,6 +50,9 @@ function importedFrom(file: string, source: string, name: string): string | null
 /** A mutating handler that takes no JSON body, and why. The test fails on one not listed here or as a JSON route. */
 export const BODYLESS: Record<string, string> = {
   'POST /api/series/:seriesId/uploads': 'multipart upload',
+  'POST /api/gags/:gagId/final-pages': 'multipart upload',
+  'POST /api/volumes/:volumeId/entries/:entryId/final-pages': 'multipart upload',
+  'POST /api/final-pages/:finalPageId/current': 'the final page is in the path',
   'POST /api/invitations/:token/accept': 'the token is the whole request',
   'POST /api/series/:seriesId/invitations/:invitationId/resend': 'the invitation is in the path',
   'POST /api/passes/:passId/revisions/:revisionId/restore': 'the revision is in the path',

@@ -3,6 +3,7 @@ import {
   BLEED_PRESETS,
   TRIM_PRESETS,
   blankSuggestion,
+  bookSpineMm,
   blanksNeeded,
   inToMm,
   mmToIn,
@@ -71,6 +72,8 @@ describe('page counts', () => {
   it('spine = pages ÷ 2 × caliper (printer guides, common practice); sheets', () => {
     expect(spineMm(120, 100)).toBeCloseTo(6, 10);
     expect(spineMm(24, 130)).toBeCloseTo(1.56, 10);
+    expect(bookSpineMm(24, 'perfect', 130)).toBeCloseTo(1.56, 10);
+    expect(bookSpineMm(24, 'saddle', 130)).toBeNull(); // folded and stapled: no spine
     expect(sheetsNeeded(24, 'saddle')).toBe(6);
     expect(sheetsNeeded(26, 'perfect')).toBe(13);
   });
@@ -99,6 +102,15 @@ describe('spreads', () => {
     ]);
     for (const [l, r] of printerSpreads(24)) expect(l! + r!).toBe(25);
     expect(printerSpreads(10)).toEqual([]);
+    expect(printerSpreads(0)).toEqual([]);
+  });
+  it('right to left: the same pairs, sides swapped (page 1 on the left half of the outer sheet)', () => {
+    expect(printerSpreads(8, 'rtl')).toEqual([
+      [1, 8],
+      [7, 2],
+      [3, 6],
+      [5, 4],
+    ]);
   });
 });
 

@@ -93,7 +93,52 @@ async function freshFixture() {
     .values({ id: memberId, email: `${memberId}@pier.test`, name: 'Member', passwordHash: 'x', createdAt: now })
     .execute();
   await db.insertInto('memberships').values({ seriesId: DEMO_SERIES_ID, userId: memberId, role: 'viewer', createdAt: now }).execute();
-  params = { seriesId: DEMO_SERIES_ID, gagId, passId: pass.id, volumeId: volume.id, entryId: entry.id, commentId: comment.id, userId: memberId };
+  // A final page of the gag (its files are not read by the JSON routes, so no storage is needed).
+  const finalPageId = randomUUID();
+  await db
+    .insertInto('finalPages')
+    .values({
+      id: finalPageId,
+      seriesId: DEMO_SERIES_ID,
+      gagId,
+      entryId: null,
+      sha256: 'f'.repeat(64),
+      name: 'page.tif',
+      mime: 'image/tiff',
+      bytes: 1000,
+      width: 1000,
+      height: 1000,
+      bitsPerPixel: 8,
+      colour: 'grey',
+      ppi: 300,
+      keptKey: 'k',
+      keptMime: 'image/tiff',
+      displayKey: 'd',
+      previewKey: 'p',
+      fitTo: 'trim',
+      fitX: 0,
+      fitY: 0,
+      fitScale: 1,
+      fitRotation: 0,
+      fittedAt: null,
+      fittedBy: null,
+      current: 1,
+      madeCurrentAt: now,
+      madeCurrentBy: 'demo-user-owner',
+      createdBy: 'demo-user-owner',
+      createdAt: now,
+    })
+    .execute();
+  params = {
+    seriesId: DEMO_SERIES_ID,
+    gagId,
+    passId: pass.id,
+    volumeId: volume.id,
+    entryId: entry.id,
+    commentId: comment.id,
+    userId: memberId,
+    finalPageId,
+  };
   const uploadId = await upload(DEMO_SERIES_ID, 'owner', 10);
   near = [
     gagId,

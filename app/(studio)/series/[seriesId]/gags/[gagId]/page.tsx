@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { FinalPagePanel } from '@/components/final/final-page-panel';
 import { GagDetail } from '@/components/gag/gag-detail';
 import { LiveProvider } from '@/components/live/live-provider';
 import { PassStrip } from '@/components/gag/pass-strip';
@@ -12,12 +13,13 @@ export const dynamic = 'force-dynamic';
 
 export default async function GagPage({ params }: { params: Promise<{ seriesId: string; gagId: string }> }) {
   const { seriesId, gagId } = await params;
-  const { series, role, gag, user, passes } = await loadGag(seriesId, gagId);
+  const { series, role, gag, user, passes, spec } = await loadGag(seriesId, gagId);
   return (
     <LiveProvider url={`/api/gags/${gag.id}/events`} gagId={gag.id} where="page">
       <div className="space-y-8">
         <GagDetail key={gag.id} seriesId={series.id} seriesTitle={series.title} role={role} initial={gag} />
         <PassStrip seriesId={series.id} gagId={gag.id} passes={passes} beats={gag.beats} canEdit={can(role, 'edit')} />
+        <FinalPagePanel title="Final page" listUrl={`/api/gags/${gag.id}/final-pages`} spec={spec} canEdit={can(role, 'edit')} />
         <UploadsPanel seriesId={series.id} canUpload={can(role, 'edit')} />
         <ReviewSection
           seriesId={series.id}
