@@ -5,7 +5,7 @@
 // keeps the document's structure, the font (subset once, at save) and the scans.
 // The drawing desk's blue-line sheets are in blue-lines.ts.
 import { type PDFFont, PDFHexString, type PDFImage, PDFName, type PDFPage, degrees, drawEllipse, drawImage, drawRectangle, rgb } from 'pdf-lib';
-import { type PageSpec, type Rect, bleedBox, mmToPt, panelRects, safeBox } from '@/lib/print/geometry';
+import { type PageSpec, type Rect, bleedBox, mmToPt, panelRects } from '@/lib/print/geometry';
 import { pdfBoxes } from '@/lib/print/book';
 import type { Lightbox, Room, Stroke } from '@/lib/strokes/types';
 import {
