@@ -8,7 +8,7 @@ const VARIANTS: Record<Variant, string> = {
   ghost: 'text-graphite-soft hover:bg-paper-deep hover:text-graphite',
   danger: 'bg-stamp text-white hover:bg-stamp/90',
   /** The editor's "ready to ink" stamp: its own colour, never the one for deleting. */
-  stamp: 'bg-ready text-white hover:bg-ready/90 disabled:bg-marker-60',
+  stamp: 'bg-ready text-white hover:bg-ready/90 disabled:opacity-60',
 };
 
 export type ButtonProps = React.ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant };

@@ -61,7 +61,7 @@ function Row({
           <GripVertical aria-hidden className="h-4 w-4" />
         </button>
       )}
-      <span className="w-8 text-right font-mono text-xs text-graphite-faint">{index + 1}</span>
+      <span className="w-8 text-right font-mono text-xs text-graphite-soft">{index + 1}</span>
       <span className={`flex-1 ${entry.kind === 'gag' ? 'font-bold' : 'italic text-graphite-soft'}`}>{entryLabel(entry)}</span>
       {entry.status && <StatusBadge status={entry.status} />}
       {canEdit && (

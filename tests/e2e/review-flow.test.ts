@@ -38,6 +38,9 @@ describe('the review of a pass', () => {
     await page.goto(gagUrl);
     const review = page.locator('section[aria-labelledby="review-title"]');
     await review.getByRole('heading', { name: 'Stamp' }).waitFor();
+    // The findings are measured after the page loads (in the worker pool): wait for their card too.
+    await review.locator('h3', { hasText: 'Findings' }).first().waitFor();
+    await review.locator('h3', { hasText: 'Silent-read checklist' }).first().waitFor();
     const headings = (await review.locator('h3').allTextContents()).map((h) => h.trim());
     const at = (name: string) => headings.findIndex((h) => h.includes(name));
     expect(at('Findings')).toBeGreaterThanOrEqual(0);
