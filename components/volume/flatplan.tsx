@@ -5,6 +5,7 @@ import { AlertTriangle } from 'lucide-react';
 import type { Flatplan as FlatplanData } from '@/db/queries/volumes';
 import { STATUS_LABELS } from '@/lib/gags/status';
 import { MATTER_LABELS } from '@/lib/print/matter';
+import { counted } from '@/lib/counted';
 
 export function FlatplanView({ data, binding }: { data: FlatplanData; binding: 'saddle' | 'perfect' }) {
   const byNumber = new Map(data.pages.map((p) => [p.number, p]));
@@ -40,10 +41,9 @@ export function FlatplanView({ data, binding }: { data: FlatplanData; binding: '
         {!data.pageCountValid && data.pages.length > 0 && (
           <p role="listitem" className="flex items-start gap-1.5 rounded-md border border-stamp/40 bg-stamp-light px-3 py-2 text-sm text-stamp">
             <AlertTriangle aria-hidden className="mt-0.5 h-4 w-4 shrink-0" />
-            {data.pages.length} pages cannot be{' '}
-            {binding === 'saddle' ? 'saddle stitched (it takes a multiple of 4)' : 'perfect bound (it takes an even count)'}: add {data.blanksNeeded}{' '}
-            blank page
-            {data.blanksNeeded === 1 ? '' : 's'}, best after page {data.blanksAt} (after the last gag, before the back matter).
+            {counted(data.pages.length, 'page')} cannot be{' '}
+            {binding === 'saddle' ? 'saddle stitched (it takes a multiple of 4)' : 'perfect bound (it takes an even count)'}: add{' '}
+            {counted(data.blanksNeeded, 'blank page')}, best after page {data.blanksAt} (after the last gag, before the back matter).
           </p>
         )}
         {data.notReady.length > 0 && (
@@ -62,7 +62,8 @@ export function FlatplanView({ data, binding }: { data: FlatplanData; binding: '
         ))}
       </div>
       <p className="text-sm text-graphite-soft">
-        {data.pages.length} pages · spine {data.spineMm.toFixed(2)} mm · {data.sheets} {binding === 'saddle' ? 'sheets to fold' : 'leaves'}
+        {counted(data.pages.length, 'page')} · spine {data.spineMm.toFixed(2)} mm ·{' '}
+        {binding === 'saddle' ? `${counted(data.sheets, 'sheet')} to fold` : counted(data.sheets, 'leaf', 'leaves')}
         {data.printerSpreads.length > 0 && <> · printer spreads: {data.printerSpreads.map(([a, b]) => `${a}|${b}`).join(', ')}</>}
       </p>
     </section>

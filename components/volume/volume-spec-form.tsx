@@ -3,6 +3,7 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { BLEED_PRESETS, TRIM_PRESETS, type VolumeSpec, spineMm } from '@/lib/print/book';
+import { counted } from '@/lib/counted';
 
 function NumberField(p: { label: string; step: string; value: number; onChange: (e: React.ChangeEvent<HTMLInputElement>) => void }) {
   return (
@@ -89,7 +90,7 @@ export function VolumeSpecForm({
         </label>
       </fieldset>
       <p className="text-sm text-graphite-soft">
-        Spine at {pages} pages: {spineMm(pages, s.caliperUm).toFixed(2)} mm. The printer&apos;s own specification takes precedence.
+        Spine at {counted(pages, 'page')}: {spineMm(pages, s.caliperUm).toFixed(2)} mm. The printer&apos;s own specification takes precedence.
       </p>
       {canEdit && (
         <Button

@@ -12,6 +12,7 @@ import * as m20900 from './2026_12_02_0900_create_lightboxes';
 import * as m21000 from './2026_12_02_1000_presence_per_tab';
 import * as m31000 from './2026_12_03_1000_pass_size';
 import * as m31100 from './2026_12_03_1100_sessions_and_sign_in_limits';
+import * as m42000 from './2026_12_04_2000_matter_page_done';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_0900_create_users_and_series': m0900,
@@ -25,6 +26,7 @@ export const migrations: Record<string, Migration> = {
   '2026_12_02_1000_presence_per_tab': m21000,
   '2026_12_03_1000_pass_size': m31000,
   '2026_12_03_1100_sessions_and_sign_in_limits': m31100,
+  '2026_12_04_2000_matter_page_done': m42000,
 };
 
 export const migrationProvider: MigrationProvider = {
