@@ -337,6 +337,8 @@ export interface VolumeEntriesTable {
   /** Fractional order key (fractional-indexing). */
   position: string;
   createdAt: Timestamp;
+  /** When a matter page was marked done (null: still to make; always null for a gag's page). */
+  doneAt: Timestamp | null;
 }
 
 export interface UploadsTable {

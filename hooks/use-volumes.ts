@@ -28,6 +28,7 @@ export function runningOrderActions(volumeId: string) {
     addGag: (gagId: string) => api<EntryDto>(base, { method: 'POST', json: { gagId } }),
     addMatter: (kind: string) => api<EntryDto>(base, { method: 'POST', json: { kind } }),
     remove: (entryId: string) => api(`${base}/${entryId}`, { method: 'DELETE' }),
+    setDone: (entryId: string, done: boolean) => api(`${base}/${entryId}`, { method: 'PATCH', json: { done } }),
     move: (entryId: string, to: { before: string } | { after: string }) => api(`${base}/${entryId}/position`, { method: 'PUT', json: to }),
   };
 }

@@ -8,10 +8,11 @@ import { LoupeGlyph, PanelsGlyph, RowsGlyph } from '@/components/ui/board-glyphs
 import type { GagDto } from '@/db/queries/gags';
 import { useGags } from '@/hooks/use-gags';
 import { ROLE_LABELS, type Role, can } from '@/lib/auth/permissions';
-import { filterGags } from '@/lib/gags/filter';
+import { filterGags, searchHint } from '@/lib/gags/filter';
 import { GAG_STATUSES, type GagStatus, STATUS_LABELS } from '@/lib/gags/status';
 import { messageOf } from '@/lib/http/client';
 import { BoardColumns } from './board-columns';
+import { counted } from '@/lib/counted';
 
 type View = 'board' | 'table';
 
@@ -107,7 +108,7 @@ export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: 
             value={query}
             onChange={(e) => setQuery(e.target.value)}
             className="field pl-8"
-            placeholder="teapot, gull, rain…"
+            placeholder={searchHint(data ?? [])}
           />
         </div>
         <div>
@@ -124,7 +125,7 @@ export function Board({ seriesId, seriesTitle, role, initialGags }: { seriesId: 
           </select>
         </div>
         <p className="pb-2 text-sm text-graphite-faint" aria-live="polite">
-          {gags.length} of {data?.length ?? 0} gags
+          {gags.length} of {counted(data?.length ?? 0, 'gag')}
         </p>
       </div>
       {notice && (

@@ -28,7 +28,7 @@ export function NewGagForm({ onCreate }: { onCreate: (input: CreateGagInput) => 
   return (
     <form onSubmit={onSubmit} noValidate className="panel grid gap-3 p-4 md:grid-cols-[1fr_2fr_auto] md:items-end" aria-label="New gag">
       <Field id="new-gag-title" label="Title" error={formState.errors.title?.message}>
-        <input id="new-gag-title" className="field" placeholder="e.g. Sugar Cube" {...register('title')} />
+        <input id="new-gag-title" className="field" placeholder="A short working title" {...register('title')} />
       </Field>
       <Field id="new-gag-premise" label="Premise (one line)" error={formState.errors.premise?.message}>
         <input id="new-gag-premise" className="field" placeholder="What happens, in one line" {...register('premise')} />

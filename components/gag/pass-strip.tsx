@@ -10,6 +10,7 @@ import { useStamps } from '@/hooks/use-review';
 import type { PassSummary } from '@/db/queries/passes';
 import { BEAT_KINDS, BEAT_LABELS, type BeatKind } from '@/lib/gags/status';
 import { NewPassButton } from './new-pass-button';
+import { counted } from '@/lib/counted';
 
 export function PassStrip({
   seriesId,
@@ -58,7 +59,7 @@ export function PassStrip({
                   <p className="mt-1 flex justify-between text-sm">
                     <span className="font-bold">Open pass {p.number}</span>
                     <span className="text-graphite-faint" data-testid={`pass-${p.number}-strokes`}>
-                      {p.strokeCount} strokes
+                      {counted(p.strokeCount, 'stroke')}
                     </span>
                   </p>
                   {stamp && (

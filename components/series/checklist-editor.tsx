@@ -4,6 +4,7 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { useSeriesChecklist } from '@/hooks/use-series-checklist';
 import { messageOf } from '@/lib/http/client';
+import { counted } from '@/lib/counted';
 
 export function ChecklistEditor({ seriesId, canEdit }: { seriesId: string; canEdit: boolean }) {
   const { data, save: saveItems } = useSeriesChecklist(seriesId);
@@ -23,7 +24,7 @@ export function ChecklistEditor({ seriesId, canEdit }: { seriesId: string; canEd
   };
   return (
     <details className="panel p-4">
-      <summary className="cursor-pointer font-bold">Silent-read checklist ({(data ?? []).length} items)</summary>
+      <summary className="cursor-pointer font-bold">Silent-read checklist ({counted((data ?? []).length, 'item')})</summary>
       <ol className="mt-3 space-y-2">
         {items.map((r, i) => (
           <li key={r.id ?? `new-${i}`} className="flex gap-2">

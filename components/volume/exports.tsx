@@ -99,7 +99,8 @@ export function Exports({ volumeId, entriesKey }: { volumeId: string; entriesKey
         </p>
       )}
       <p className="text-xs text-graphite-faint">
-        Print advice is guidance: the printer&apos;s own specification takes precedence, and every export says so.
+        Print advice is guidance: the printer&apos;s own specification takes precedence, and every PDF says so. The running order&apos;s CSV is data
+        only: a header line (page, kind, title, status, gag_id), then one row a page.
       </p>
     </section>
   );

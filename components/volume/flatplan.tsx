@@ -6,6 +6,7 @@ import type { Flatplan as FlatplanData } from '@/db/queries/volumes';
 import { STATUS_LABELS } from '@/lib/gags/status';
 import { CONFIRM_WITH_PRINTER } from '@/lib/print/book';
 import { MATTER_LABELS } from '@/lib/print/matter';
+import { counted } from '@/lib/counted';
 
 export function FlatplanView({ data, binding }: { data: FlatplanData; binding: 'saddle' | 'perfect' }) {
   const byNumber = new Map(data.pages.map((p) => [p.number, p]));
@@ -41,11 +42,10 @@ export function FlatplanView({ data, binding }: { data: FlatplanData; binding: '
         {!data.pageCountValid && data.pages.length > 0 && (
           <p role="listitem" className="flex items-start gap-1.5 rounded-md border border-stamp/40 bg-stamp-light px-3 py-2 text-sm text-stamp">
             <AlertTriangle aria-hidden className="mt-0.5 h-4 w-4 shrink-0" />
-            {data.pages.length} pages cannot be{' '}
-            {binding === 'saddle' ? 'saddle stitched (it takes a multiple of 4)' : 'perfect bound (it takes an even count)'}: add {data.blanksNeeded}{' '}
-            blank page
-            {data.blanksNeeded === 1 ? '' : 's'}, best after page {data.blanksAt} (after the last gag, before the back matter). Printers differ on the
-            counts they take: confirm with your printer.
+            {counted(data.pages.length, 'page')} cannot be{' '}
+            {binding === 'saddle' ? 'saddle stitched (it takes a multiple of 4)' : 'perfect bound (it takes an even count)'}: add{' '}
+            {counted(data.blanksNeeded, 'blank page')}, best after page {data.blanksAt} (after the last gag, before the back matter). Printers differ
+            on the counts they take: confirm with your printer.
           </p>
         )}
         {data.notReady.length > 0 && (
@@ -64,9 +64,9 @@ export function FlatplanView({ data, binding }: { data: FlatplanData; binding: '
         ))}
       </div>
       <p className="text-sm text-graphite-soft" data-testid="flatplan-figures">
-        {data.pages.length} pages ·{' '}
-        {data.spineMm === null ? 'saddle stitched, no spine' : `spine ${data.spineMm.toFixed(2)} mm (pages ÷ 2 × paper caliper)`} · {data.sheets}{' '}
-        {binding === 'saddle' ? 'sheets to fold' : 'leaves'}
+        {counted(data.pages.length, 'page')} ·{' '}
+        {data.spineMm === null ? 'saddle stitched, no spine' : `spine ${data.spineMm.toFixed(2)} mm (pages ÷ 2 × paper caliper)`} ·{' '}
+        {binding === 'saddle' ? `${counted(data.sheets, 'sheet')} to fold` : counted(data.sheets, 'leaf', 'leaves')}
         {data.printerSpreads.length > 0 && <> · printer spreads: {data.printerSpreads.map(([a, b]) => `${a}|${b}`).join(', ')}</>}.{' '}
         {CONFIRM_WITH_PRINTER}
       </p>

@@ -3,6 +3,7 @@
 import { AlertTriangle, CalendarCheck } from 'lucide-react';
 import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import { STAGES, STAGE_LABELS, type Plan, type Stage } from '@/lib/planning/plan';
+import { counted } from '@/lib/counted';
 
 export type PlanData = Plan & { deadline: string; hoursPerWeek: number; hoursPerPage: Record<Stage, number> };
 
@@ -26,14 +27,15 @@ export function Planner({
       >
         {data.late ? <AlertTriangle aria-hidden className="mt-0.5 h-4 w-4" /> : <CalendarCheck aria-hidden className="mt-0.5 h-4 w-4" />}
         <p>
-          {data.hoursLeft.toFixed(1)} hours left at {data.hoursPerWeek} h a week: finished about <strong>{data.finish}</strong>,{' '}
+          {data.hoursLeft.toFixed(1)} hours left (the gags, and the matter pages not yet marked done) at {data.hoursPerWeek} h a week: finished about{' '}
+          <strong>{data.finish}</strong>,{' '}
           {data.late ? (
             <strong>
-              {-data.marginDays} days after the deadline ({data.deadline}). The plan is late: add hours, cut pages or move the date.
+              {counted(-data.marginDays, 'day')} after the deadline ({data.deadline}). The plan is late: add hours, cut pages or move the date.
             </strong>
           ) : (
             <>
-              {data.marginDays} days before the deadline ({data.deadline}).
+              {counted(data.marginDays, 'day')} before the deadline ({data.deadline}).
             </>
           )}
         </p>

@@ -16,6 +16,7 @@ import { messageOf } from '@/lib/http/client';
 import { MATTER_KINDS, MATTER_LABELS, entryLabel } from '@/lib/print/matter';
 import { runningOrderActions } from '@/hooks/use-volumes';
 import { END_SLOT, RUNNING_ORDER_ID, isUnplaced, landing, runningOrderCollisions, runningOrderKeys, sayPlace, sayWhat } from './running-order-moves';
+import { counted } from '@/lib/counted';
 
 /** A thin ink line above the page a dragged gag would go in front of (a shadow: no change of layout while dragging). */
 const INSERT_MARK = 'shadow-[0_-3px_0_0_#1d4e6e]';
@@ -25,6 +26,7 @@ function Row({
   index,
   canEdit,
   onRemove,
+  onDone,
   insertHere,
   focusHandle,
 }: {
@@ -32,6 +34,8 @@ function Row({
   index: number;
   canEdit: boolean;
   onRemove: () => void;
+  /** A matter page marked done or not (the planner counts its hours until it is). */
+  onDone: (done: boolean) => void;
   insertHere: boolean;
   /** Just placed from the unplaced list by keyboard: its handle takes the focus. */
   focusHandle: boolean;
@@ -64,6 +68,21 @@ function Row({
       <span className="w-8 text-right font-mono text-xs text-graphite-soft">{index + 1}</span>
       <span className={`flex-1 ${entry.kind === 'gag' ? 'font-bold' : 'italic text-graphite-soft'}`}>{entryLabel(entry)}</span>
       {entry.status && <StatusBadge status={entry.status} />}
+      {entry.kind !== 'gag' &&
+        entry.kind !== 'blank' &&
+        (canEdit ? (
+          <label className="inline-flex items-center gap-1 text-xs text-graphite-soft">
+            <input
+              type="checkbox"
+              checked={entry.done}
+              onChange={(e) => onDone(e.target.checked)}
+              aria-label={`Page ${index + 1}, ${entryLabel(entry)}, done`}
+            />
+            Done
+          </label>
+        ) : (
+          <span className="text-xs text-graphite-soft">{entry.done ? 'Done' : 'To make'}</span>
+        ))}
       {canEdit && (
         <button
           type="button"
@@ -154,6 +173,11 @@ export function RunningOrder({
     await onChanged();
   };
 
+  const setDone = async (entryId: string, done: boolean) => {
+    await onChanged(entries.map((x) => (x.id === entryId ? { ...x, done } : x))); // the box shows it at once
+    await run(() => order.setDone(entryId, done));
+  };
+
   const onDragEnd = async ({ active, over }: DragEndEvent) => {
     setDragging(null);
     const activeId = String(active.id);
@@ -213,7 +237,7 @@ export function RunningOrder({
       <div className="grid gap-4 lg:grid-cols-[2fr_1fr]">
         <section aria-labelledby="order-title" className="space-y-2">
           <h2 id="order-title" className="text-xl font-extrabold">
-            Running order <span className="text-sm font-normal text-graphite-faint">({entries.length} pages)</span>
+            Running order <span className="text-sm font-normal text-graphite-faint">({counted(entries.length, 'page')})</span>
           </h2>
           {error && (
             <p role="alert" className="text-sm text-stamp">
@@ -229,6 +253,7 @@ export function RunningOrder({
                   index={i}
                   canEdit={canEdit}
                   onRemove={() => void run(() => order.remove(e.id))}
+                  onDone={(done) => void setDone(e.id, done)}
                   insertHere={!!dragging && isUnplaced(dragging.active) && dragging.over === e.id}
                   focusHandle={focusEntry === e.id}
                 />

@@ -3,6 +3,7 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { BLEED_PRESETS, CONFIRM_WITH_PRINTER, TRIM_PRESETS, type VolumeSpec, bookSpineMm } from '@/lib/print/book';
+import { counted } from '@/lib/counted';
 
 function NumberField(p: { label: string; step: string; value: number; onChange: (e: React.ChangeEvent<HTMLInputElement>) => void }) {
   return (
@@ -90,7 +91,7 @@ export function VolumeSpecForm({
       </fieldset>
       <p className="text-sm text-graphite-soft">
         {s.binding === 'perfect'
-          ? `Spine at ${pages} pages: ${bookSpineMm(pages, s.binding, s.caliperUm)!.toFixed(2)} mm (pages ÷ 2 × paper caliper).`
+          ? `Spine at ${counted(pages, 'page')}: ${bookSpineMm(pages, s.binding, s.caliperUm)!.toFixed(2)} mm (pages ÷ 2 × paper caliper).`
           : 'Saddle stitched: folded and stapled, no spine.'}{' '}
         {CONFIRM_WITH_PRINTER}
       </p>

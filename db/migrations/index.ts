@@ -12,6 +12,7 @@ import * as m20900 from './2026_12_02_0900_create_lightboxes';
 import * as m21000 from './2026_12_02_1000_presence_per_tab';
 import * as m31000 from './2026_12_03_1000_pass_size';
 import * as m31100 from './2026_12_03_1100_sessions_and_sign_in_limits';
+import * as m42000 from './2026_12_04_2000_matter_page_done';
 import * as m42100 from './2026_12_04_2100_checklist_rechecks';
 import * as m42110 from './2026_12_04_2110_invitation_replaced_by';
 import * as m43000 from './2026_12_04_3000_create_final_pages';
@@ -29,6 +30,7 @@ export const migrations: Record<string, Migration> = {
   '2026_12_02_1000_presence_per_tab': m21000,
   '2026_12_03_1000_pass_size': m31000,
   '2026_12_03_1100_sessions_and_sign_in_limits': m31100,
+  '2026_12_04_2000_matter_page_done': m42000,
   '2026_12_04_2100_checklist_rechecks': m42100,
   '2026_12_04_2110_invitation_replaced_by': m42110,
   '2026_12_04_3000_create_final_pages': m43000,

@@ -15,7 +15,7 @@ import {
   sheetsNeeded,
   bookSpineMm,
 } from '@/lib/print/book';
-import { DEFAULT_HOURS, type Stage, plan } from '@/lib/planning/plan';
+import { DEFAULT_HOURS, type PlanPage, type Stage, plan } from '@/lib/planning/plan';
 import type { Database, EntryKind, VolumesTable } from '../database';
 import { lockRow } from '../dialect';
 import { Refused } from '@/lib/refused';
@@ -39,6 +39,8 @@ export type EntryDto = {
   title: string | null;
   status: GagStatus | null;
   latestPass: { id: string; seq: number } | null;
+  /** A matter page marked done (the planner counts no more hours for it); false for a gag's page. */
+  done: boolean;
 };
 
 function toDto(row: Selectable<VolumesTable>): VolumeDto {
@@ -112,7 +114,7 @@ export async function listEntries(db: Kysely<Database>, volumeId: string): Promi
   const rows = await db
     .selectFrom('volumeEntries as e')
     .leftJoin('gags as g', 'g.id', 'e.gagId')
-    .select(['e.id', 'e.kind', 'e.gagId', 'e.position', 'g.title', 'g.status'])
+    .select(['e.id', 'e.kind', 'e.gagId', 'e.position', 'e.doneAt', 'g.title', 'g.status'])
     .where('e.volumeId', '=', volumeId)
     .orderBy('e.position')
     .execute();
@@ -122,7 +124,8 @@ export async function listEntries(db: Kysely<Database>, volumeId: string): Promi
   for (const p of passes) if (!latest.get(p.gagId) || latest.get(p.gagId)!.number < p.number) latest.set(p.gagId, p);
   return rows.map((r) => {
     const l = r.gagId ? latest.get(r.gagId) : undefined;
-    return { ...r, title: r.title ?? null, status: r.status ?? null, latestPass: l ? { id: l.id, seq: l.seq } : null };
+    const { doneAt, ...row } = r;
+    return { ...row, title: r.title ?? null, status: r.status ?? null, latestPass: l ? { id: l.id, seq: l.seq } : null, done: doneAt !== null };
   });
 }
 
@@ -186,6 +189,18 @@ export async function removeEntry(db: Kysely<Database>, volumeId: string, entryI
     if (entry.gagId) await syncArtStatus(trx, entry.gagId);
     return true;
   });
+}
+
+/** Marks a matter page done or not; a gag's page is done by its status (422). */
+export async function setMatterDone(db: Kysely<Database>, volumeId: string, entryId: string, done: boolean): Promise<void> {
+  const entry = await db.selectFrom('volumeEntries').select(['kind']).where('id', '=', entryId).where('volumeId', '=', volumeId).executeTakeFirst();
+  if (!entry) throw new Refused(404, 'Not found.');
+  if (entry.kind === 'gag') throw new Refused(422, 'A gag’s page is done when its status says so (scanned, placed); move the gag instead.');
+  await db
+    .updateTable('volumeEntries')
+    .set({ doneAt: done ? new Date().toISOString() : null })
+    .where('id', '=', entryId)
+    .execute();
 }
 
 /**
@@ -288,9 +303,12 @@ export function flatplanOf(volume: VolumeDto, entries: EntryDto[]): Flatplan {
 }
 
 export function planOf(volume: VolumeDto, entries: EntryDto[], today = new Date()) {
-  const gags = entries.filter((e) => e.status).map((e) => ({ status: e.status! }));
+  const pages = entries.flatMap((e): PlanPage[] => {
+    if (e.kind !== 'gag') return [{ matter: e.kind, done: e.done }];
+    return e.status ? [{ status: e.status }] : [];
+  });
   return plan({
-    gags,
+    pages,
     hoursPerPage: volume.hoursPerPage,
     hoursPerWeek: volume.hoursPerWeek,
     today,

@@ -97,12 +97,17 @@ export const csvCell = (v: unknown) => {
   return formula || /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 };
 
-export function runningOrderCsv(entries: EntryDto[], note: string): string {
+/**
+ * The running order as a spreadsheet reads it: the header on the first line, then one
+ * row a page — nothing else (a note above the header is read as a row of data). The
+ * printer's-spec guidance is said beside the export button and in the README.
+ */
+export function runningOrderCsv(entries: EntryDto[]): string {
   const rows = [
     ['page', 'kind', 'title', 'status', 'gag_id'],
     ...entries.map((e, i) => [i + 1, e.kind, entryLabel(e), e.status ?? '', e.gagId ?? '']),
   ];
-  return `# ${note}\n${rows.map((r) => r.map(csvCell).join(',')).join('\n')}\n`;
+  return `${rows.map((r) => r.map(csvCell).join(',')).join('\n')}\n`;
 }
 
 /**

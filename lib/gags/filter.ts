@@ -21,3 +21,19 @@ export function matchesSearch(gag: Searchable, query: string): boolean {
 export function filterGags<T extends Searchable>(gags: T[], query: string, status: GagStatus | 'all'): T[] {
   return gags.filter((g) => (status === 'all' || g.status === status) && matchesSearch(g, query));
 }
+
+/**
+ * The search box's hint, taken from this series' own gags (words of the first titles on
+ * the board, in lower case), so no series shows another's examples; plain words when
+ * the series has no gag yet.
+ */
+export function searchHint(gags: { title: string }[]): string {
+  const words: string[] = [];
+  for (const g of gags) {
+    for (const w of g.title.toLowerCase().split(/[^\p{L}\p{N}'’-]+/u)) {
+      if (w.length >= 3 && !words.includes(w)) words.push(w);
+      if (words.length === 3) return `e.g. ${words.join(', ')}…`;
+    }
+  }
+  return words.length > 0 ? `e.g. ${words.join(', ')}…` : 'Words from a title or premise';
+}

@@ -1,7 +1,9 @@
 // Hours left per stage against the deadline (pure). Common practice defaults for
 // a small wordless gag page: thumbnails 0.5 h, pencils-inks-tones 1.5 h, scan and
-// clean-up 0.25 h per page; all editable per volume.
+// clean-up 0.25 h per page; all editable per volume. Matter pages (cover, title page,
+// afterword…) are pages to make too: every stage until marked done; blank pages need none.
 import type { GagStatus } from '@/lib/gags/status';
+import type { EntryKind } from '@/lib/print/matter';
 
 export type Stage = 'thumbnails' | 'finish' | 'scan';
 export const STAGES: Stage[] = ['thumbnails', 'finish', 'scan'];
@@ -24,8 +26,19 @@ export function stagesLeft(status: GagStatus): Stage[] {
   }
 }
 
+/** Which stages a matter page still has ahead of it: all of them until it is done; none for a blank page. */
+export function matterStagesLeft(kind: EntryKind, done: boolean): Stage[] {
+  return done || kind === 'blank' || kind === 'gag' ? [] : [...STAGES];
+}
+
+/** A page of the running order: a gag's (by its status) or a matter page (by its kind and whether it is done). */
+export type PlanPage = { status: GagStatus } | { matter: EntryKind; done: boolean };
+
+const stagesOf = (p: PlanPage): Stage[] => ('status' in p ? stagesLeft(p.status) : matterStagesLeft(p.matter, p.done));
+
 export type PlanInput = {
-  gags: { status: GagStatus }[];
+  /** The pages in running order. */
+  pages: PlanPage[];
   hoursPerPage: Record<Stage, number>;
   hoursPerWeek: number;
   today: Date;
@@ -48,14 +61,14 @@ const ymd = (d: Date) => d.toISOString().slice(0, 10);
 
 export function plan(input: PlanInput): Plan {
   const hoursByStage: Record<Stage, number> = { thumbnails: 0, finish: 0, scan: 0 };
-  const perGag = input.gags.map((g) => stagesLeft(g.status).reduce((h, s) => h + input.hoursPerPage[s], 0));
-  for (const g of input.gags) for (const s of stagesLeft(g.status)) hoursByStage[s] += input.hoursPerPage[s];
+  const perGag = input.pages.map((p) => stagesOf(p).reduce((h, s) => h + input.hoursPerPage[s], 0));
+  for (const p of input.pages) for (const s of stagesOf(p)) hoursByStage[s] += input.hoursPerPage[s];
   const hoursLeft = perGag.reduce((a, b) => a + b, 0);
   const hpw = Math.max(0.1, input.hoursPerWeek);
   const weeksNeeded = hoursLeft / hpw;
   const finishDate = new Date(input.today.getTime() + Math.ceil(weeksNeeded * 7) * DAY);
   const marginDays = Math.floor((input.deadline.getTime() - finishDate.getTime()) / DAY);
-  // Work through the gags in running order, a week of hours at a time.
+  // Work through the pages in running order, a week of hours at a time.
   const burndown: Plan['burndown'] = [];
   let done = 0;
   let acc = 0;

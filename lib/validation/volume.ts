@@ -55,6 +55,9 @@ export const updateVolumeSchema = z
 
 export const addEntrySchema = z.union([z.object({ gagId: entryId('The gag id') }).strict(), z.object({ kind: z.enum(MATTER_KINDS) }).strict()]);
 
+/** A matter page marked done (the planner stops counting its hours) or not. */
+export const entryDoneSchema = z.object({ done: z.boolean() }).strict();
+
 export const moveEntrySchema = z
   .object({ before: entryId('The entry id').optional(), after: entryId('The entry id').optional() })
   .strict()

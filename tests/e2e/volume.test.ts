@@ -165,6 +165,18 @@ describe('volume "Low Tide"', () => {
     await expect.poll(() => names(page)).toEqual([before[0], 'Sugar Cube', ...before.slice(1)]);
   });
 
+  it('the planner counts the cover until it is marked done', async () => {
+    const hours = () =>
+      page.evaluate(async () => ((await (await fetch('/api/volumes/demo-volume-low-tide/plan')).json()) as { hoursLeft: number }).hoursLeft);
+    const before = await hours();
+    await page.getByRole('checkbox', { name: 'Page 1, Cover, done' }).check();
+    // The cover's three stages: 0.5 + 1.5 + 0.25 h (the planner's defaults).
+    await expect.poll(hours).toBeCloseTo(before - 2.25, 10);
+    await expect.poll(() => page.getByTestId('plan-verdict').textContent()).toContain(`${(before - 2.25).toFixed(1)} hours left`);
+    await page.reload();
+    expect(await page.getByRole('checkbox', { name: 'Page 1, Cover, done' }).isChecked()).toBe(true);
+  });
+
   it('an export shows its progress bar and downloads a PDF', async () => {
     const downloading = page.waitForEvent('download');
     await page.getByRole('button', { name: 'Review dummy (PDF)' }).click();

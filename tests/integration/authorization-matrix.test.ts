@@ -526,6 +526,17 @@ const ROUTES: RouteCase[] = [
     expected: row(401, 403, 403, 204, 204, 404),
   },
   {
+    route: 'PATCH /api/volumes/:volumeId/entries/:entryId',
+    handler: entryRoute.PATCH,
+    method: 'PATCH',
+    prepare: async () => {
+      const v = await newVolume();
+      const cover = await addEntry(db, v.volumeId, DEMO_SERIES_ID, { kind: 'cover' });
+      return { params: { volumeId: v.volumeId, entryId: cover.id }, body: { done: true } };
+    },
+    expected: row(401, 403, 403, 200, 200, 404),
+  },
+  {
     route: 'PUT /api/volumes/:volumeId/entries/:entryId/position',
     handler: positionRoute.PUT,
     method: 'PUT',

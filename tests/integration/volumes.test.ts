@@ -144,10 +144,37 @@ describe('flatplan and plan', () => {
   it('the plan counts hours left against the deadline', async () => {
     const p = await callRoute(planRoute.GET, { as: 'viewer', params: { volumeId: DEMO_VOLUME_ID } });
     expect(p.status).toBe(200);
-    // Sugar Cube (in review): 2.25 h; two ready to ink: 2 × 1.75 h; one inked: 0.25 h → 6 h.
-    expect(p.body.hoursLeft).toBeCloseTo(6, 10);
+    // Sugar Cube (in review): 2.25 h; two ready to ink: 2 × 1.75 h; one inked: 0.25 h → 6 h; and the cover, the
+    // title page and the afterword, pages still to make: 3 × (0.5 + 1.5 + 0.25) = 6.75 h → 12.75 h.
+    expect(p.body.hoursLeft).toBeCloseTo(12.75, 10);
     expect(p.body.deadline).toBe('2027-03-13');
     expect(typeof p.body.finish).toBe('string');
+  });
+});
+
+describe('matter pages in the plan', () => {
+  it('a matter page marked done stops counting; marked to make again, it counts again; a gag page cannot be marked', async () => {
+    const hours = async () => (await callRoute(planRoute.GET, { as: 'viewer', params: { volumeId: DEMO_VOLUME_ID } })).body.hoursLeft as number;
+    const mark = (entryId: string, done: unknown, as: 'cocreator' | 'viewer' = 'cocreator') =>
+      callRoute(entryRoute.PATCH, { method: 'PATCH', as, params: { volumeId: DEMO_VOLUME_ID, entryId }, body: { done } });
+    const before = await hours();
+    const r = await mark('demo-entry-cover', true);
+    expect(r.status).toBe(200);
+    expect(r.body).toEqual({ id: 'demo-entry-cover', done: true });
+    // The cover's three stages, 0.5 + 1.5 + 0.25 h, are no longer counted.
+    expect(await hours()).toBeCloseTo(before - 2.25, 10);
+    const entries = (await callRoute(volumeRoute.GET, { as: 'viewer', params: { volumeId: DEMO_VOLUME_ID } })).body.entries;
+    expect(entries.find((e: { id: string }) => e.id === 'demo-entry-cover').done).toBe(true);
+    expect(entries.find((e: { id: string }) => e.id === 'demo-entry-title').done).toBe(false);
+    expect((await mark('demo-entry-cover', false)).status).toBe(200);
+    expect(await hours()).toBeCloseTo(before, 10);
+    const gagPage = await mark('demo-entry-01', true);
+    expect(gagPage.status).toBe(422);
+    expect(gagPage.body.error).toMatch(/status/);
+    expect((await mark('demo-entry-title', 'yes')).status).toBe(422);
+    expect((await mark('demo-entry-title', true, 'viewer')).status).toBe(403);
+    expect((await mark('no-such-entry', true)).status).toBe(404);
+    expect(await hours()).toBeCloseTo(before, 10);
   });
 });
 

@@ -118,7 +118,7 @@ describe('planner', () => {
   it('hours left per stage, the finish date and the margin', () => {
     const gags = [{ status: 'idea' as const }, { status: 'ready_to_ink' as const }, { status: 'inked' as const }, { status: 'placed' as const }];
     const p = plan({
-      gags,
+      pages: gags,
       hoursPerPage: DEFAULT_HOURS,
       hoursPerWeek: 2,
       today: new Date('2027-01-04T00:00:00Z'),
@@ -134,10 +134,33 @@ describe('planner', () => {
     expect(p.burndown[0]!.pagesLeft).toBe(3);
     expect(p.burndown.at(-1)!.pagesLeft).toBe(0);
   });
+  it('counts the cover and other matter pages as pages to make, until marked done; blank pages need no hours', () => {
+    const base = {
+      hoursPerPage: DEFAULT_HOURS,
+      hoursPerWeek: 2,
+      today: new Date('2027-01-04T00:00:00Z'),
+      deadline: new Date('2027-03-13T00:00:00Z'),
+    };
+    const p = plan({
+      ...base,
+      pages: [
+        { matter: 'cover', done: false },
+        { matter: 'title', done: false },
+        { status: 'inked' },
+        { matter: 'blank', done: false },
+        { matter: 'afterword', done: true },
+      ],
+    });
+    // cover and title page: 2 × (0.5 + 1.5 + 0.25) = 4.5 h; inked: 0.25 h; blank and done afterword: 0
+    expect(p.hoursByStage).toEqual({ thumbnails: 1, finish: 3, scan: 0.75 });
+    expect(p.hoursLeft).toBeCloseTo(4.75, 10);
+    expect(p.burndown[0]!.pagesLeft).toBe(3);
+    expect(plan({ ...base, pages: [{ matter: 'cover', done: true }] }).hoursLeft).toBe(0);
+  });
   it('warns when the plan is late', () => {
     const gags = Array.from({ length: 40 }, () => ({ status: 'idea' as const }));
     const p = plan({
-      gags,
+      pages: gags,
       hoursPerPage: DEFAULT_HOURS,
       hoursPerWeek: 3,
       today: new Date('2027-02-01T00:00:00Z'),

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { filterGags, matchesSearch } from '@/lib/gags/filter';
+import { filterGags, matchesSearch, searchHint } from '@/lib/gags/filter';
 
 const gags = [
   { title: 'Lid Umbrella', premise: 'Kettle uses the lid as an umbrella; Mrs Brine wants to share it.', status: 'scanned' as const },
@@ -23,5 +23,17 @@ describe('board search', () => {
   it('combines the status filter with the search', () => {
     expect(filterGags(gags, 'brine', 'in_review').map((g) => g.title)).toEqual(['Fog Horn']);
     expect(filterGags(gags, 'brine', 'idea')).toEqual([]);
+  });
+});
+
+describe('the search box hint', () => {
+  it('comes from this series’ own titles, never another series’ examples', () => {
+    expect(searchHint([{ title: 'Porch Light' }, { title: 'Candle Date' }])).toBe('e.g. porch, light, candle…');
+    expect(searchHint([{ title: 'Sugar Cube' }, { title: 'Fog Horn' }])).toBe('e.g. sugar, cube, fog…');
+  });
+  it('skips short and repeated words, and says plain words for a series with no gag', () => {
+    expect(searchHint([{ title: 'A Big Day' }, { title: 'The Big Nap' }])).toBe('e.g. big, day, the…');
+    expect(searchHint([{ title: 'Up' }])).toBe('Words from a title or premise');
+    expect(searchHint([])).toBe('Words from a title or premise');
   });
 });

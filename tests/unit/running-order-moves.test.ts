@@ -13,6 +13,7 @@ const entry = (id: string, kind: EntryDto['kind'], title: string | null = null):
   title,
   status: kind === 'gag' ? 'placed' : null,
   latestPass: null,
+  done: false,
 });
 const ORDER = [entry('c', 'cover'), entry('t', 'title'), entry('a', 'gag', 'Lunch'), entry('b', 'gag', 'Periscope'), entry('w', 'afterword')];
 

@@ -1,5 +1,4 @@
 import { listEntries } from '@/db/queries/volumes';
-import { PRINTER_NOTE } from '@/lib/export/pdf';
 import { runningOrderCsv } from '@/lib/export/volume-export';
 import { withSeriesRole } from '@/lib/http/route';
 import { byVolumeId } from '@/lib/http/series-of';
@@ -8,7 +7,7 @@ type Params = { volumeId: string };
 const seriesOf = byVolumeId;
 
 export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params }) => {
-  const csv = runningOrderCsv(await listEntries(db, params.volumeId), PRINTER_NOTE);
+  const csv = runningOrderCsv(await listEntries(db, params.volumeId));
   return new Response(csv, {
     headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': 'attachment; filename="running-order.csv"' },
   });
