@@ -4,7 +4,9 @@ import bcrypt from 'bcryptjs';
 import { describe, expect, it } from 'vitest';
 import { SCRYPT_PARAMS, dummyHash, hashPassword, needsRehash, parseScryptHash, verifyPassword } from '@/lib/auth/password';
 
-describe('scrypt hashes', () => {
+// Hashing runs in the hash pool's worker at a lowered priority (nice 10): on a machine busy with other
+// suites it waits its turn, so these tests get more than the default 5 s.
+describe('scrypt hashes', { timeout: 30_000 }, () => {
   it('use N=2^15, r=8, p=3 (OWASP Password Storage Cheat Sheet, scrypt) and say so in the hash', async () => {
     expect(SCRYPT_PARAMS).toEqual({ N: 32768, r: 8, p: 3 });
     const h = await hashPassword('kettle-crab-demo');
@@ -47,7 +49,7 @@ describe('scrypt hashes', () => {
   });
 });
 
-describe('bcrypt hashes from before', () => {
+describe('bcrypt hashes from before', { timeout: 30_000 }, () => {
   it('still verify ($2a$ and $2b$), and are due for a rehash', async () => {
     const b = await bcrypt.hash('kettle-crab-demo', 4);
     expect(b.startsWith('$2b$')).toBe(true);
