@@ -156,7 +156,8 @@ describe("a drawn polyline's corners survive the outline (within 0.3 mm at 100 %
   }, 60_000);
 });
 
-describe('every renderer draws the same polygons', () => {
+// Property runs over many random lines: more than the default 5 s on a machine busy with other suites.
+describe('every renderer draws the same polygons', { timeout: 30_000 }, () => {
   const someStroke = drawnPolyline.map((d) => d.stroke);
 
   it('canvas calls, the SVG path and the PDF path: the outline edge for edge (SVG to 0.001 mm, PDF to 1 µm)', () => {
