@@ -93,7 +93,7 @@ const drawnPolyline = fc
     return { stroke: { tool, size, points }, corners, last };
   });
 
-describe("a drawn polyline's corners survive the outline (within 0.3 mm at 100 %)", () => {
+describe("a drawn polyline's corners survive the outline (within 0.3 mm at 100 %)", { timeout: 30_000 }, () => {
   it('a box of five points keeps its four corners (it came out a lozenge, some 6 mm short of each)', () => {
     const box: Point[] = [
       [10, 10, 0.5],
