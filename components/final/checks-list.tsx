@@ -21,7 +21,7 @@ export function ChecksList({ checks, label }: { checks: Check[]; label: string }
           <span>
             <strong className="mr-1">{LEVEL_WORDS[c.level]}:</strong>
             {c.message}{' '}
-            <span className="text-xs text-graphite-faint" title={c.source}>
+            <span className="text-xs text-graphite-soft" title={c.source}>
               ({c.source})
             </span>
           </span>
