@@ -359,6 +359,27 @@ export interface UploadsTable {
 
 export type FinalPageColour = ScanColour;
 
+/** A print file or cover file being built or built (db/queries/print-jobs.ts). */
+export interface PrintJobsTable {
+  id: string;
+  volumeId: string;
+  kind: 'print' | 'cover';
+  proof: Generated<number>;
+  state: 'queued' | 'running' | 'done' | 'failed';
+  done: Generated<number>;
+  total: Generated<number>;
+  stage: Generated<string>;
+  message: string | null;
+  notes: Generated<string>;
+  objectKey: string | null;
+  bytes: number | null;
+  pages: number | null;
+  requestedBy: string;
+  createdAt: Timestamp;
+  heartbeatAt: number;
+  finishedAt: Timestamp | null;
+}
+
 /** A scan of an inked page (a gag's or a matter page's); see db/queries/final-pages.ts. */
 export interface FinalPagesTable {
   id: string;
@@ -447,6 +468,7 @@ export interface Database {
   uploads: UploadsTable;
   finalPages: FinalPagesTable;
   finalPageAnalyses: FinalPageAnalysesTable;
+  printJobs: PrintJobsTable;
 }
 
 export type User = Selectable<UsersTable>;

@@ -17,6 +17,7 @@ import * as m42100 from './2026_12_04_2100_checklist_rechecks';
 import * as m42110 from './2026_12_04_2110_invitation_replaced_by';
 import * as m43000 from './2026_12_04_3000_create_final_pages';
 import * as m43100 from './2026_12_04_3100_final_page_analyses';
+import * as m51000 from './2026_12_05_1000_create_print_jobs';
 
 export const migrations: Record<string, Migration> = {
   '2026_12_01_0900_create_users_and_series': m0900,
@@ -35,6 +36,7 @@ export const migrations: Record<string, Migration> = {
   '2026_12_04_2110_invitation_replaced_by': m42110,
   '2026_12_04_3000_create_final_pages': m43000,
   '2026_12_04_3100_final_page_analyses': m43100,
+  '2026_12_05_1000_create_print_jobs': m51000,
 };
 
 export const migrationProvider: MigrationProvider = {

@@ -18,7 +18,7 @@ export const ROLE_LABELS: Record<Role, string> = {
 export const ROLE_HINT =
   'An editor reads, comments and stamps passes “ready to ink” but does not draw; a co-creator draws and edits; a viewer only reads.';
 
-export const ACTIONS = ['read', 'comment', 'edit', 'stamp', 'manage'] as const;
+export const ACTIONS = ['read', 'comment', 'edit', 'stamp', 'print', 'manage'] as const;
 export type Action = (typeof ACTIONS)[number];
 
 /**
@@ -26,13 +26,15 @@ export type Action = (typeof ACTIONS)[number];
  * - comment: write comments
  * - edit: create and edit gags, beats and passes; reorder
  * - stamp: mark a pass "ready to ink" or "needs another pass"
- * - manage: members, volumes, print spec, deleting
+ * - print: build the print file and the cover file (issue 11: owner, co-creator, editor)
+ * - manage: members, volumes, print spec, deleting; asking for a proof while scans are missing
  */
 const GRANTS: Record<Action, readonly Role[]> = {
   read: ['owner', 'cocreator', 'editor', 'viewer'],
   comment: ['owner', 'cocreator', 'editor'],
   edit: ['owner', 'cocreator'],
   stamp: ['owner', 'editor'],
+  print: ['owner', 'cocreator', 'editor'],
   manage: ['owner'],
 };
 

@@ -25,7 +25,7 @@ import {
 export { ContentWriter, PRINTER_NOTE, writeStrokePaths };
 
 /** mm on the page (from the trim's top left) → pt in PDF space (origin bottom left). */
-function placer(spec: PageSpec, pageH: number, originX = mmToPt(spec.bleed), originTop = mmToPt(spec.bleed)) {
+export function placer(spec: PageSpec, pageH: number, originX = mmToPt(spec.bleed), originTop = mmToPt(spec.bleed)) {
   return {
     x: (mm: number) => originX + mmToPt(mm),
     y: (mm: number) => pageH - originTop - mmToPt(mm),
@@ -39,7 +39,7 @@ export function strokeSpace(spec: PageSpec, pageH: number): string {
 }
 
 /** The drawing context of one review page. */
-type Sheet = { page: PDFPage; out: ContentWriter; opacity: Opacities; at: ReturnType<typeof placer> };
+export type Sheet = { page: PDFPage; out: ContentWriter; opacity: Opacities; at: ReturnType<typeof placer> };
 
 /** Saves the state and clips to an area in mm (a `Q` ends it). */
 const clipTo = (at: ReturnType<typeof placer>, r: Rect) => `q ${pt(at.x(r.x))} ${pt(at.y(r.y + r.h))} ${pt(mmToPt(r.w))} ${pt(mmToPt(r.h))} re W n\n`;
@@ -73,7 +73,7 @@ function drawLightbox(sheet: Sheet, area: Rect, l: Lightbox, image: { name: PDFN
   out.text('Q\n');
 }
 
-type PlacedScan = { lightbox: Lightbox; image: { name: PDFName; image: PDFImage } };
+export type PlacedScan = { lightbox: Lightbox; image: { name: PDFName; image: PDFImage } };
 
 /** pdf-lib's drawRectangle operators, with page.drawRectangle's defaults. */
 const box = (o: Partial<Parameters<typeof drawRectangle>[0]> & { x: number; y: number; width: number; height: number }) =>
@@ -82,9 +82,8 @@ const box = (o: Partial<Parameters<typeof drawRectangle>[0]> & { x: number; y: n
 const ROOM_LOOK = { color: rgb(0.86, 0.91, 0.94), borderColor: rgb(0.11, 0.31, 0.43), borderWidth: 0.4, borderDashArray: [2, 1.5] };
 
 /** The panels: each clipped, with its scans, rooms and strokes in that order, then its border. */
-function drawPanels(sheet: Sheet, spec: PageSpec, strokes: Stroke[], rooms: Room[], scans: PlacedScan[]) {
+export function drawPanels(sheet: Sheet, spec: PageSpec, strokes: Stroke[], rooms: Room[], scans: PlacedScan[]) {
   const { at, out, page } = sheet;
-  const { height } = page.getSize();
   const toneState = (alpha: number) => sheet.opacity.name(page, alpha, alpha);
   for (const s of scans.filter((x) => x.lightbox.panel === null)) drawLightbox(sheet, bleedBox(spec), s.lightbox, s.image);
   panelRects(spec).forEach((r, i) => {
@@ -106,7 +105,7 @@ function drawPanels(sheet: Sheet, spec: PageSpec, strokes: Stroke[], rooms: Room
     }
     const inPanel = strokes.filter((x) => x.panel === i);
     if (inPanel.length) {
-      out.text(`q ${strokeSpace(spec, height)}`);
+      out.text(`q ${strokeSpaceAt(at.x(0), at.y(0))}`);
       writeStrokePaths(out, inPanel, toneState);
       out.text('Q\n');
     }
@@ -116,12 +115,12 @@ function drawPanels(sheet: Sheet, spec: PageSpec, strokes: Stroke[], rooms: Room
 }
 
 /** One line of text, or the font's encoding of it. */
-function textAt(sheet: Sheet, font: PDFFont, text: string | PDFHexString, size: number, x: number, y: number, color: Rgb) {
+export function textAt(sheet: Sheet, font: PDFFont, text: string | PDFHexString, size: number, x: number, y: number, color: Rgb) {
   sheet.page.node.setFontDictionary(FONT_KEY, font.ref);
   sheet.out.text(textOps(font, text, size, x, y, color));
 }
 
-function centred(sheet: Sheet, font: PDFFont, text: string, size: number, cx: number, y: number, color: Rgb = [0.16, 0.16, 0.18]) {
+export function centred(sheet: Sheet, font: PDFFont, text: string, size: number, cx: number, y: number, color: Rgb = [0.16, 0.16, 0.18]) {
   textAt(sheet, font, text, size, cx - font.widthOfTextAtSize(text, size) / 2, y, color);
 }
 

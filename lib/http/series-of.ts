@@ -6,6 +6,7 @@ import { seriesOfComment } from '@/db/queries/comments';
 import { seriesOfFinalPage } from '@/db/queries/final-pages';
 import { seriesOfGag } from '@/db/queries/gags';
 import { seriesOfPass } from '@/db/queries/passes';
+import { seriesOfPrintJob } from '@/db/queries/print-jobs';
 import { findSeries } from '@/db/queries/series';
 import { seriesOfUpload } from '@/db/queries/uploads';
 import { seriesOfVolume } from '@/db/queries/volumes';
@@ -19,3 +20,4 @@ export const byVolumeId = (p: { volumeId: string }, db: Db) => seriesOfVolume(db
 export const byUploadId = (p: { uploadId: string }, db: Db) => seriesOfUpload(db, p.uploadId);
 export const byCommentId = (p: { commentId: string }, db: Db) => seriesOfComment(db, p.commentId);
 export const byFinalPageId = (p: { finalPageId: string }, db: Db) => seriesOfFinalPage(db, p.finalPageId);
+export const byPrintJobId = (p: { jobId: string }, db: Db) => seriesOfPrintJob(db, p.jobId);

@@ -67,3 +67,11 @@ export const moveEntrySchema = z
 export function specIssues(spec: { trimW: number; trimH: number; bleed: number; safe: number; gutter: number }) {
   return specProblems(spec);
 }
+
+/** POST /api/volumes/:volumeId/print-jobs: which file, and whether a proof (passes standing in for missing scans). */
+export const printJobSchema = z
+  .object({
+    kind: z.enum(['print', 'cover'], { error: '"kind" is "print" (the pages) or "cover" (front, spine and back of a perfect-bound book).' }),
+    proof: z.boolean({ error: '"proof" is true or false.' }).optional(),
+  })
+  .strict();

@@ -18,4 +18,4 @@ registerEsm();
 const loaded = await import('./heavy-worker.ts');
 // Loaded as CommonJS (the project is not "type": "module"), its exports sit on `default`.
 const tasks = loaded.thumbnail ? loaded : loaded.default;
-export const { ready, thumbnail, findings, gagPassSvgs, reviewPdf, templatesPdf, analyseFinalPage } = tasks;
+export const { ready, thumbnail, findings, gagPassSvgs, reviewPdf, templatesPdf, analyseFinalPage, printFile } = tasks;

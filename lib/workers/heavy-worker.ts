@@ -20,6 +20,8 @@ import { blueLineGags, scanImages, volumePages } from '@/lib/export/volume-expor
 import { computeFindings } from '@/lib/review/findings';
 import { passToSvg } from '@/lib/strokes/svg';
 import { analyseKept } from '@/lib/export/analyse-scan';
+import { buildPrintFile } from '@/lib/export/print-file';
+import type { MessagePort } from 'node:worker_threads';
 
 let reader: { url: string; db: Kysely<Database> } | undefined;
 
@@ -102,4 +104,17 @@ export async function templatesPdf(args: { volumeId: string; gagIds: string[] } 
 /** Measures a final page's scan for the preflight (colour, ink): seconds for a 600 ppi page, in bounded memory. */
 export async function analyseFinalPage(args: { keptKey: string }) {
   return analyseKept(args.keptKey); // two grids of at most 64 KB each: copied to the request thread
+}
+
+/**
+ * The print file or cover file of a volume, into object storage. Progress goes back over `port`
+ * to the request thread, which writes it to the job's row (this thread only reads the database).
+ */
+export async function printFile(args: { job: { id: string; volumeId: string; kind: 'print' | 'cover'; proof: boolean }; port: MessagePort }) {
+  const db = await getDb();
+  try {
+    return await buildPrintFile(db, args.job, (p) => args.port.postMessage(p));
+  } finally {
+    args.port.close();
+  }
 }

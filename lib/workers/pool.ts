@@ -45,9 +45,18 @@ export function warmHeavyPool(): void {
 }
 
 /** Runs one task in a worker thread; 503 with Retry-After when too many wait already. */
-export async function runHeavy<N extends TaskName>(name: N, args: Parameters<Tasks[N]>[0]): Promise<Awaited<ReturnType<Tasks[N]>>> {
+export function runHeavy<N extends TaskName>(name: N, args: Parameters<Tasks[N]>[0]): Promise<Awaited<ReturnType<Tasks[N]>>> {
+  return runHeavyTransferring(name, args, []);
+}
+
+/** As runHeavy, handing over objects (a MessagePort) that move to the worker rather than being copied. */
+export async function runHeavyTransferring<N extends TaskName>(
+  name: N,
+  args: Parameters<Tasks[N]>[0],
+  transferList: Transferable[],
+): Promise<Awaited<ReturnType<Tasks[N]>>> {
   try {
-    return await pool().run(args, { name });
+    return await pool().run(args, { name, transferList: transferList as never });
   } catch (err) {
     if (err instanceof Error && /queue is at limit/i.test(err.message)) {
       throw new Refused(503, 'The server is busy with other large jobs; try again in a few seconds.', undefined, { 'Retry-After': '5' });

@@ -70,6 +70,12 @@ import * as finalFitRoute from '@/app/api/final-pages/[finalPageId]/fit/route';
 import * as finalPreflightRoute from '@/app/api/final-pages/[finalPageId]/preflight/route';
 import * as volumePreflightRoute from '@/app/api/volumes/[volumeId]/preflight/route';
 import * as finalImageRoute from '@/app/api/final-pages/[finalPageId]/image/[variant]/route';
+import * as printJobsRoute from '@/app/api/volumes/[volumeId]/print-jobs/route';
+import * as printJobRoute from '@/app/api/print-jobs/[jobId]/route';
+import * as printJobFileRoute from '@/app/api/print-jobs/[jobId]/file/route';
+import * as printPdfRoute from '@/app/api/volumes/[volumeId]/export/print.pdf/route';
+import * as coverPdfRoute from '@/app/api/volumes/[volumeId]/export/cover.pdf/route';
+import { putObject } from '@/lib/storage/s3';
 import { DEMO_SERIES_ID, type Persona, freshDb } from '../support/test-db';
 
 const PERSONAS: Persona[] = ['anonymous', 'viewer', 'editor', 'cocreator', 'owner', 'outsider'];
@@ -151,6 +157,38 @@ async function finalPages(): Promise<{ gagId: string; older: string; newer: stri
 async function matterPage(): Promise<{ volumeId: string; entryId: string }> {
   const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Matter volume', deadline: '2027-03-13' });
   return { volumeId: v.id, entryId: (await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'title' })).id };
+}
+
+/** A volume of one blank page: it needs no scan, so its print file can be built at once. */
+async function blankVolume(): Promise<string> {
+  const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Blank volume', deadline: '2027-03-13' });
+  await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'blank' });
+  return v.id;
+}
+
+/** A finished print job with its file in storage. */
+async function printJob(): Promise<string> {
+  const id = randomUUID();
+  const key = `test/print-jobs/${id}.pdf`;
+  await putObject(key, Buffer.from('%PDF-1.7\n%%EOF\n'), 'application/pdf');
+  const at = new Date().toISOString();
+  await db
+    .insertInto('printJobs')
+    .values({
+      id,
+      volumeId: await blankVolume(),
+      kind: 'print',
+      state: 'done',
+      objectKey: key,
+      bytes: 15,
+      pages: 1,
+      requestedBy: 'demo-user-owner',
+      createdAt: at,
+      heartbeatAt: Date.now(),
+      finishedAt: at,
+    })
+    .execute();
+  return id;
 }
 
 /** A plain member of Kettle Crab to change or remove. */
@@ -702,6 +740,57 @@ const ROUTES: RouteCase[] = [
     prepare: async () => ({ params: { finalPageId: (await finalPages()).newer, variant: 'kept' } }),
     expected: row(401, 200, 200, 200, 200, 404),
   },
+  {
+    route: 'GET /api/volumes/:volumeId/print-jobs',
+    handler: printJobsRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { volumeId: await blankVolume() } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'POST /api/volumes/:volumeId/print-jobs',
+    handler: printJobsRoute.POST,
+    method: 'POST',
+    prepare: async () => ({ params: { volumeId: await blankVolume() }, body: { kind: 'print' } }),
+    expected: row(401, 403, 202, 202, 202, 404),
+  },
+  {
+    // A proof is the owner's to ask for.
+    route: 'POST /api/volumes/:volumeId/print-jobs (proof)',
+    handler: printJobsRoute.POST,
+    method: 'POST',
+    prepare: async () => ({ params: { volumeId: await blankVolume() }, body: { kind: 'print', proof: true } }),
+    expected: row(401, 403, 403, 403, 202, 404),
+  },
+  {
+    route: 'GET /api/print-jobs/:jobId',
+    handler: printJobRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { jobId: await printJob() } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/print-jobs/:jobId/file',
+    handler: printJobFileRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { jobId: await printJob() } }),
+    expected: row(401, 200, 200, 200, 200, 404),
+  },
+  {
+    route: 'GET /api/volumes/:volumeId/export/print.pdf',
+    handler: printPdfRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { volumeId: await blankVolume() } }),
+    expected: row(401, 403, 200, 200, 200, 404),
+  },
+  {
+    // A saddle-stitched book has no cover file (after the role check).
+    route: 'GET /api/volumes/:volumeId/export/cover.pdf',
+    handler: coverPdfRoute.GET,
+    method: 'GET',
+    prepare: async () => ({ params: { volumeId: await blankVolume() } }),
+    expected: row(401, 403, 422, 422, 422, 404),
+  },
   { route: 'GET /api/me', handler: meRoute.GET, method: 'GET', prepare: async () => ({}), expected: row(401, 200, 200, 200, 200, 200) },
   {
     route: 'PATCH /api/me',
@@ -784,6 +873,7 @@ async function snapshot() {
     uploads: await db.selectFrom('uploads').select(['id', 'sha256']).orderBy('id').execute(),
     finalPages: await db.selectFrom('finalPages').select(['id', 'current', 'madeCurrentAt', 'fittedAt', 'fitX']).orderBy('id').execute(),
     lightboxes: await db.selectFrom('lightboxes').select(['rowId', 'passId', 'lightboxId', 'removedSeq']).orderBy('rowId').execute(),
+    printJobs: await db.selectFrom('printJobs').select(['id', 'volumeId', 'kind', 'proof']).orderBy('id').execute(),
   });
 }
 

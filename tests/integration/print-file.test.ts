@@ -1,0 +1,293 @@
+// The print file and the cover file, read back with poppler (Debian's poppler-utils):
+// `pdfinfo -box` for the page boxes, `pdfimages -list` for each image's pixels, colour,
+// bits per component and ppi, `pdffonts` for fonts. The trim is 5.5 × 8.5 in with a
+// 0.125 in bleed — not square, so a swapped width and height fails. Check values:
+// 1 in = 25.4 mm and 1 pt = 1/72 in (by definition); MediaBox = BleedBox ⊇ TrimBox
+// (ISO 32000-1 §14.11.2); the line-art and tone resolutions (600 / 300 ppi) and the
+// spine width (pages ÷ 2 × caliper) are common practice.
+import { execFileSync } from 'node:child_process';
+import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { describe, expect, it } from 'vitest';
+import * as fitRoute from '@/app/api/final-pages/[finalPageId]/fit/route';
+import * as preflightRoute from '@/app/api/volumes/[volumeId]/preflight/route';
+import * as entryFinalRoute from '@/app/api/volumes/[volumeId]/entries/[entryId]/final-pages/route';
+import * as gagFinalRoute from '@/app/api/gags/[gagId]/final-pages/route';
+import * as jobRoute from '@/app/api/print-jobs/[jobId]/route';
+import * as jobFileRoute from '@/app/api/print-jobs/[jobId]/file/route';
+import * as jobsRoute from '@/app/api/volumes/[volumeId]/print-jobs/route';
+import * as coverRoute from '@/app/api/volumes/[volumeId]/export/cover.pdf/route';
+import * as printRoute from '@/app/api/volumes/[volumeId]/export/print.pdf/route';
+import { createGag } from '@/db/queries/gags';
+import { addEntry, createVolume } from '@/db/queries/volumes';
+import { callRoute, callRouteRaw } from '../support/call-route';
+import { form, greyTiff, jpegWithExif, lineArtTiff, rgbPng } from '../support/scans';
+import { useS3AndDb } from '../support/s3-fake';
+import { lum, renderPage, rgbAt } from '../support/pixels';
+import { DEMO_SERIES_ID } from '../support/test-db';
+
+const env = useS3AndDb();
+
+const IN = 25.4; // mm per inch, exact
+const PT = 72; // points per inch
+const TRIM = { w: 5.5 * IN, h: 8.5 * IN };
+const BLEED = 0.125 * IN;
+// The scans cover the trim plus the bleed: 5.75 × 8.75 in.
+const SCAN = { w: TRIM.w + 2 * BLEED, h: TRIM.h + 2 * BLEED };
+const SPEC = { trimW: TRIM.w, trimH: TRIM.h, bleed: BLEED, safe: 6, gutter: 4 };
+
+const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-print-'));
+async function save(res: Response, name: string) {
+  const file = path.join(dir, name);
+  fs.writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+  return file;
+}
+
+function boxes(file: string) {
+  const out = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '999', file], { encoding: 'utf8' });
+  const read = (kind: string) =>
+    [...out.matchAll(new RegExp(`^Page\\s+(\\d+)\\s+${kind}:\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)`, 'gm'))].map((m) =>
+      m.slice(2).map(Number),
+    );
+  return { pages: Number(out.match(/^Pages:\s+(\d+)/m)![1]), media: read('MediaBox'), bleed: read('BleedBox'), trim: read('TrimBox') };
+}
+
+/** `pdfimages -list`: page, width, height, color, bpc, enc, x-ppi, y-ppi of each image. */
+function images(file: string) {
+  const out = execFileSync('pdfimages', ['-list', file], { encoding: 'utf8' });
+  return out
+    .split('\n')
+    .slice(2)
+    .filter((l) => l.trim())
+    .map((l) => {
+      const c = l.trim().split(/\s+/);
+      return {
+        page: Number(c[0]),
+        width: Number(c[3]),
+        height: Number(c[4]),
+        color: c[5],
+        bpc: Number(c[7]),
+        enc: c[8],
+        xppi: Number(c[12]),
+        yppi: Number(c[13]),
+      };
+    });
+}
+
+const fonts = (file: string) =>
+  execFileSync('pdffonts', [file], { encoding: 'utf8' })
+    .split('\n')
+    .slice(2)
+    .filter((l) => l.trim());
+
+const near = (a: number[], b: number[], tol = 0.01) => a.forEach((v, i) => expect(Math.abs(v - b[i]!)).toBeLessThanOrEqual(tol));
+
+async function gagWithScan(scan: Buffer, name: string, type: string) {
+  const gagId = randomUUID();
+  await createGag(env.db(), { id: gagId, seriesId: DEMO_SERIES_ID, title: name, premise: '', status: 'inked' });
+  const up = await callRoute(gagFinalRoute.POST, { method: 'POST', as: 'cocreator', params: { gagId }, form: form(scan, name, type) });
+  expect(up.status).toBe(201);
+  return { gagId, finalPageId: up.body.id as string };
+}
+
+/** Fits a final page to the bleed (the scans here are drawn with it), at a scale. */
+async function fitToBleed(finalPageId: string, scale = 1) {
+  const r = await callRoute(fitRoute.PUT, {
+    method: 'PUT',
+    as: 'cocreator',
+    params: { finalPageId },
+    body: { to: 'bleed', x: 0, y: 0, scale, rotation: 0 },
+  });
+  expect(r.status).toBe(200);
+}
+
+async function matterScan(volumeId: string, entryId: string, scan: Buffer, name: string, type: string) {
+  const up = await callRoute(entryFinalRoute.POST, { method: 'POST', as: 'owner', params: { volumeId, entryId }, form: form(scan, name, type) });
+  expect(up.status).toBe(201);
+}
+
+async function untilDone(jobId: string) {
+  for (let i = 0; i < 600; i++) {
+    const r = await callRoute(jobRoute.GET, { as: 'viewer', params: { jobId } });
+    expect(r.status).toBe(200);
+    if (r.body.job.state === 'done' || r.body.job.state === 'failed') return r.body.job;
+    await new Promise((res) => setTimeout(res, 100));
+  }
+  throw new Error('the job did not finish');
+}
+
+describe('the print file', () => {
+  it('refuses while pages lack scans, builds a proof for the owner, then the print file at native pixels', async () => {
+    const db = env.db();
+    const v = await createVolume(db, {
+      seriesId: DEMO_SERIES_ID,
+      title: 'Kettle Crab print',
+      deadline: '2027-03-13',
+      spec: { ...SPEC, binding: 'saddle' },
+    });
+    const title = await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'title' });
+    const frame = [{ x: 10, y: 10, w: 120, h: 1 }];
+    const line = await gagWithScan(await lineArtTiff({ ...SCAN, ppi: 600, marks: frame }, 'ccittfax4'), 'line.tif', 'image/tiff');
+    const tone = await gagWithScan(await greyTiff({ ...SCAN, ppi: 300, tone: 200, marks: frame }), 'tone.tif', 'image/tiff');
+    const red = await gagWithScan(
+      await rgbPng({ ...SCAN, ppi: 300, marks: [{ x: 40, y: 40, w: 10, h: 10, colour: '#d01010' }] }),
+      'red.png',
+      'image/png',
+    );
+    // The gags' pages were fitted on the series' square page; on this book's page a person fits them to its bleed,
+    // the tone page a fifth larger than the bleed (its pixels then spread over more inches: 300 / 1.2 = 250 ppi).
+    await fitToBleed(line.finalPageId);
+    await fitToBleed(tone.finalPageId, 1.2);
+    await fitToBleed(red.finalPageId);
+    for (const g of [line, tone, red]) await addEntry(db, v.id, DEMO_SERIES_ID, { gagId: g.gagId });
+    await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'blank' }); // 5 pages: saddle stitch adds 3 blanks
+
+    // Page 1 (the title page) has no scan: 409 with the list, nothing built.
+    const refused = await callRoute(jobsRoute.POST, { method: 'POST', as: 'editor', params: { volumeId: v.id }, body: { kind: 'print' } });
+    expect(refused.status).toBe(409);
+    expect(refused.body.missing).toEqual([{ number: 1, label: 'Title page' }]);
+    expect((await callRouteRaw(printRoute.GET, { as: 'cocreator', params: { volumeId: v.id } })).status).toBe(409);
+    // A proof is the owner's to ask for; a viewer builds nothing; an outsider sees nothing.
+    expect(
+      (await callRoute(jobsRoute.POST, { method: 'POST', as: 'cocreator', params: { volumeId: v.id }, body: { kind: 'print', proof: true } })).status,
+    ).toBe(403);
+    expect((await callRoute(jobsRoute.POST, { method: 'POST', as: 'viewer', params: { volumeId: v.id }, body: { kind: 'print' } })).status).toBe(403);
+    expect((await callRoute(jobsRoute.GET, { as: 'outsider', params: { volumeId: v.id } })).status).toBe(404);
+    expect((await callRoute(jobsRoute.POST, { method: 'POST', as: 'owner', params: { volumeId: v.id }, body: { kind: 'poster' } })).status).toBe(422);
+
+    const proofJob = await callRoute(jobsRoute.POST, {
+      method: 'POST',
+      as: 'owner',
+      params: { volumeId: v.id },
+      body: { kind: 'print', proof: true },
+    });
+    expect(proofJob.status).toBe(202);
+    const proofDone = await untilDone(proofJob.body.job.id);
+    expect(proofDone).toMatchObject({ state: 'done', proof: true, pages: 8 });
+    const proofFile = await save(await callRouteRaw(jobFileRoute.GET, { as: 'viewer', params: { jobId: proofDone.id } }), 'proof.pdf');
+    const pb = boxes(proofFile);
+    expect(pb.pages).toBe(8);
+    // The proof's marks are outside the bleed: its MediaBox is larger, the BleedBox and TrimBox the same size as the print file's.
+    for (const [i, m] of pb.media.entries()) {
+      expect(m[2]! - m[0]!).toBeGreaterThan(pb.bleed[i]![2]! - pb.bleed[i]![0]!);
+      expect(pb.bleed[i]![2]! - pb.bleed[i]![0]!).toBeCloseTo((SCAN.w / IN) * PT, 2);
+    }
+    expect(execFileSync('pdftotext', [proofFile, '-'], { encoding: 'utf8' })).toMatch(/PROOF — NOT FOR PRINT · page 1 · Title page · NOT FINAL/);
+    expect(fonts(proofFile).every((l) => / yes /.test(l))).toBe(true);
+
+    // The title page's scan arrives (a grey JPEG): now the print file.
+    await matterScan(v.id, title.id, await jpegWithExif({ ...SCAN, ppi: 300, marks: frame }, { grey: true }), 'title.jpg', 'image/jpeg');
+    const res = await callRouteRaw(printRoute.GET, { as: 'editor', params: { volumeId: v.id } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toBe('application/pdf');
+    const file = await save(res, 'print.pdf');
+
+    const b = boxes(file);
+    expect(b.pages).toBe(8); // 5 pages + 3 blanks: a multiple of 4 for saddle stitch
+    const w = (SCAN.w / IN) * PT; // 414 pt
+    const h = (SCAN.h / IN) * PT; // 630 pt
+    const bl = (BLEED / IN) * PT; // 9 pt
+    for (let i = 0; i < 8; i++) {
+      near(b.media[i]!, [0, 0, w, h]);
+      near(b.bleed[i]!, [0, 0, w, h]);
+      near(b.trim[i]!, [bl, bl, w - bl, h - bl]);
+    }
+    expect(fonts(file)).toEqual([]); // no text in the print file, so no font to embed
+
+    const imgs = images(file);
+    // Running order: title (JPEG 300), line (1-bit 600), tone (grey 300), red (made grey, 300), blank; then 3 added blanks.
+    expect(imgs.map((i) => i.page)).toEqual([1, 2, 3, 4]);
+    const px = (mm: number, ppi: number) => Math.round((mm / IN) * ppi);
+    expect(imgs[0]).toMatchObject({ width: px(SCAN.w, 300), height: px(SCAN.h, 300), color: 'gray', bpc: 8, enc: 'jpeg', xppi: 300, yppi: 300 });
+    expect(imgs[1]).toMatchObject({ width: px(SCAN.w, 600), height: px(SCAN.h, 600), color: 'gray', bpc: 1, enc: 'image', xppi: 600, yppi: 600 });
+    expect(imgs[2]).toMatchObject({ width: px(SCAN.w, 300), height: px(SCAN.h, 300), color: 'gray', bpc: 8, xppi: 250, yppi: 250 });
+    // pdfimages reads the same resolution the preflight computed from the fit, page by page.
+    const pre = await callRoute(preflightRoute.GET, { as: 'viewer', params: { volumeId: v.id } });
+    for (const [i, img] of imgs.entries()) {
+      const page = pre.body.pages[i];
+      expect(Math.round(page.ppi.x)).toBe(img.xppi);
+      expect(Math.round(page.ppi.y)).toBe(img.yppi);
+    }
+    expect(imgs[3]).toMatchObject({ width: px(SCAN.w, 300), height: px(SCAN.h, 300), color: 'gray', bpc: 8, xppi: 300, yppi: 300 });
+
+    // Placed upright where the fit says: rendered at 2 px a mm (50.8 dpi), the line page's bar (10–130 mm across,
+    // 10–11 mm down the scan, which is the page from the bleed's corner) is dark at the top and nothing at the bottom;
+    // the red square (40–50 mm) of page 4 prints as grey.
+    const line2 = await renderPage(file, 2, 50.8, path.join(dir, 'p2'));
+    expect(lum(rgbAt(line2, 140, 21))).toBeLessThan(80);
+    expect(lum(rgbAt(line2, 140, line2.height - 22))).toBeGreaterThan(240);
+    const red4 = await renderPage(file, 4, 50.8, path.join(dir, 'p4'));
+    const [r, g, bl4] = rgbAt(red4, 90, 90);
+    expect(r).toBe(g);
+    expect(g).toBe(bl4);
+    expect(r).toBeLessThan(160);
+    expect(lum(rgbAt(red4, 90, 130))).toBeGreaterThan(240);
+
+    const jobs = await callRoute(jobsRoute.GET, { as: 'viewer', params: { volumeId: v.id } });
+    const printJob = jobs.body.jobs.find((j: { proof: boolean; kind: string }) => !j.proof && j.kind === 'print');
+    expect(printJob).toMatchObject({ state: 'done', pages: 8, done: 8, total: 8 });
+    expect(printJob.notes).toEqual(['Page 4: the scan is in colour; the print file has it in grey.']);
+    // A saddle-stitched book has no cover file.
+    expect((await callRouteRaw(coverRoute.GET, { as: 'owner', params: { volumeId: v.id } })).status).toBe(422);
+  }, 180_000);
+
+  it('the cover of a perfect-bound book: back, spine and front at the computed width, with the bleed', async () => {
+    const db = env.db();
+    const v = await createVolume(db, {
+      seriesId: DEMO_SERIES_ID,
+      title: 'Kettle Crab cover',
+      deadline: '2027-03-13',
+      spec: { ...SPEC, binding: 'perfect', caliperUm: 120 },
+    });
+    const cover = await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'cover' });
+    for (let i = 0; i < 4; i++) await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'blank' });
+    const back = await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'back-cover' });
+    expect((await callRouteRaw(coverRoute.GET, { as: 'owner', params: { volumeId: v.id } })).status).toBe(409);
+    await matterScan(v.id, cover.id, await greyTiff({ ...SCAN, ppi: 300, tone: 120 }), 'front.tif', 'image/tiff');
+    await matterScan(v.id, back.id, await greyTiff({ ...SCAN, ppi: 300, tone: 160 }), 'back.tif', 'image/tiff');
+    const res = await callRouteRaw(coverRoute.GET, { as: 'owner', params: { volumeId: v.id } });
+    expect(res.status).toBe(200);
+    const file = await save(res, 'cover.pdf');
+    const b = boxes(file);
+    expect(b.pages).toBe(1);
+    const spine = (6 / 2) * 0.12; // 6 pages ÷ 2 leaves × 0.12 mm caliper = 0.36 mm
+    const width = ((2 * TRIM.w + spine + 2 * BLEED) / IN) * PT;
+    const height = (SCAN.h / IN) * PT;
+    const bl = (BLEED / IN) * PT;
+    near(b.media[0]!, [0, 0, width, height]);
+    near(b.bleed[0]!, [0, 0, width, height]);
+    near(b.trim[0]!, [bl, bl, width - bl, height - bl]);
+    const imgs = images(file);
+    expect(imgs).toHaveLength(2);
+    for (const i of imgs) expect(i).toMatchObject({ color: 'gray', bpc: 8, xppi: 300, yppi: 300 });
+  }, 120_000);
+
+  it('a job whose server stopped reads as failed on every instance', async () => {
+    const db = env.db();
+    const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Lost job', deadline: '2027-03-13' });
+    const id = randomUUID();
+    const owner = await db
+      .selectFrom('memberships')
+      .select('userId')
+      .where('seriesId', '=', DEMO_SERIES_ID)
+      .where('role', '=', 'owner')
+      .executeTakeFirstOrThrow();
+    await db
+      .insertInto('printJobs')
+      .values({
+        id,
+        volumeId: v.id,
+        kind: 'print',
+        state: 'running',
+        requestedBy: owner.userId,
+        createdAt: new Date().toISOString(),
+        heartbeatAt: Date.now() - 61_000,
+      })
+      .execute();
+    const r = await callRoute(jobRoute.GET, { as: 'viewer', params: { jobId: id } });
+    expect(r.body.job).toMatchObject({ state: 'failed', message: expect.stringMatching(/stopped before it finished/) });
+    expect((await callRouteRaw(jobFileRoute.GET, { as: 'viewer', params: { jobId: id } })).status).toBe(409);
+  });
+});
