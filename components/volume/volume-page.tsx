@@ -7,6 +7,7 @@ import { Exports } from './exports';
 import { FlatplanView } from './flatplan';
 import { Planner } from './planner';
 import { PreflightView } from './preflight-view';
+import { PrintFilePanel } from './print-file-panel';
 import { RunningOrder } from './running-order';
 import { VolumeSpecForm } from './volume-spec-form';
 
@@ -29,6 +30,7 @@ export function VolumePage({ seriesId, seriesTitle, role, initial }: { seriesId:
       <RunningOrder volumeId={v.id} entries={v.entries} unplaced={v.unplaced} canEdit={can(role, 'edit')} onChanged={refresh} />
       {flatplan && <FlatplanView data={flatplan} binding={v.spec.binding} />}
       <PreflightView volumeId={v.id} entries={v.entries} />
+      <PrintFilePanel volumeId={v.id} binding={v.spec.binding} canPrint={can(role, 'print')} canProof={can(role, 'manage')} />
       {plan && <Planner data={plan} canEdit={can(role, 'manage')} onPatch={patch} />}
       <VolumeSpecForm
         key={JSON.stringify(v.spec)}

@@ -15,6 +15,7 @@ import { liveFigures } from './live-bench';
 import { webFigures } from './web-bench';
 import { STROKES_A_PAGE, pdfFigures } from './pdf-bench';
 import { benchStrokes } from './strokes-fixture';
+import { printFigures } from './print-bench';
 
 const root = path.resolve(__dirname, '../..');
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
@@ -146,16 +147,18 @@ function row(
 async function main() {
   execFileSync('bash', [path.join(root, 'tests/ensure-tools.sh')], { stdio: 'inherit' });
   console.log('Quadrille bench — 5,000 strokes of 60 points, headless Chromium (software raster) and SQLite\n');
-  // `npm run bench -- --only pdf,server` runs just those groups of rows (client, server, pdf, live, web).
+  // `npm run bench -- --only pdf,server` runs just those groups of rows (client, server, pdf, print, live, web).
   const onlyArg = process.argv.findIndex((a) => a === '--only' || a.startsWith('--only='));
   const only = onlyArg < 0 ? null : (process.argv[onlyArg]!.split('=')[1] ?? process.argv[onlyArg + 1] ?? '').split(',');
   const pick = (group: string) => !only || only.includes(group);
   const c = pick('client') ? await clientFigures() : undefined;
   const s = pick('server') ? await serverFigures() : undefined;
   const p = pick('pdf') ? await pdfFigures() : undefined;
+  const pr = pick('print') ? await printFigures() : undefined;
   const l = pick('live') ? await liveFigures() : undefined;
   const w = pick('web') ? await webFigures() : undefined;
   const kb = (n: number) => `${(n / 1000).toFixed(1)} kB`;
+  const mb = (n: number) => `${(n / 1048576).toFixed(0)} MB`;
   const ms = (n: number) => `${n.toFixed(2)} ms`;
   const whole = (n: number) => `${Math.round(n)} ms`;
   const kept = (t: NonNullable<typeof l>['pg']) =>
@@ -198,6 +201,22 @@ async function main() {
           `outlines alone ${ms(p.outlinePageMs)} a page; ratio of CPU times, medians of ${p.rounds} runs each`,
         '1.5',
         { sound: p.pageMs <= 15 },
+      ),
+    pr &&
+      row(
+        'Print file, 48 pages ÷ 12 pages of 600 ppi art (linear is 4)',
+        pr.ms48 / pr.ms12,
+        4.4,
+        `${whole(pr.ms48)} vs ${whole(pr.ms12)}; ${(pr.bytes48 / 1048576).toFixed(1)} MB for 48 pages of 1-bit scans, 3,685 px square`,
+        '4.4',
+      ),
+    pr &&
+      row(
+        'Print file, peak memory 48 ÷ 12 pages (bounded: ≤ 1.2)',
+        (pr.peak48 - pr.base) / Math.max(1, pr.peak12 - pr.base),
+        1.2,
+        `peak resident set ${mb(pr.peak48)} vs ${mb(pr.peak12)} (${mb(pr.base)} before); one page's pixels are 13.6 MB as 8-bit samples`,
+        '1.2',
       ),
     s &&
       row(

@@ -14,6 +14,8 @@ export type ScanSpec = {
   marks?: { x: number; y: number; w: number; h: number; colour?: string }[];
   /** A mid-grey wash under everything (tone), 0–255; white paper when absent. */
   tone?: number;
+  /** The resolution the file records, when it is not the one scanned at (a scanner set wrong). */
+  recordedPpi?: number;
 };
 
 export const pxOf = (mm: number, ppi: number) => Math.round((mm / 25.4) * ppi);
@@ -77,7 +79,7 @@ export async function lineArtTiff(s: ScanSpec, compression: 'lzw' | 'deflate' | 
     .removeAlpha()
     .toColourspace('b-w')
     .threshold(128)
-    .tiff({ compression, predictor: 'none', bitdepth: 1, xres: pxPerMm(s.ppi), yres: pxPerMm(s.ppi) })
+    .tiff({ compression, predictor: 'none', bitdepth: 1, xres: pxPerMm(s.recordedPpi ?? s.ppi), yres: pxPerMm(s.recordedPpi ?? s.ppi) })
     .toBuffer();
 }
 
