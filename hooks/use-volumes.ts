@@ -1,7 +1,8 @@
 'use client';
 // Volumes: a series' list, and one volume with its flatplan and plan kept in step.
 // On the volume page the series' stream says when a gag's status moved (a stamp, a
-// clearing, a move on the board): the badges, the flatplan's warnings and the plan follow.
+// clearing, a move on the board): the badges, the flatplan's warnings and the plan follow;
+// and when a final page was uploaded, fitted or made current ('final'), the flatplan redraws it.
 import useSWR from 'swr';
 import { useLiveSWR } from '@/hooks/use-live';
 import type { EntryDto, Flatplan, VolumeDto } from '@/db/queries/volumes';
@@ -37,7 +38,7 @@ export function useVolume(initial: VolumeData) {
   // Without a stream these wait for the next change here, as before (pollMs 0).
   const live = { types: ['gags'], pollMs: 0 };
   const vol = useLiveSWR<VolumeData>(`/api/volumes/${initial.id}`, fetcher, { fallbackData: initial, ...live });
-  const flat = useLiveSWR<Flatplan>(`/api/volumes/${initial.id}/flatplan`, fetcher, live);
+  const flat = useLiveSWR<Flatplan>(`/api/volumes/${initial.id}/flatplan`, fetcher, { ...live, types: ['gags', 'final'] });
   const plan = useLiveSWR<PlanData>(`/api/volumes/${initial.id}/plan`, fetcher, live);
   const volume = vol.data ?? initial;
   const reloadAll = () => Promise.all([vol.mutate(), flat.mutate(), plan.mutate()]);

@@ -1,15 +1,19 @@
 'use client';
 // The volume's preflight: the book's checks, then every page in running order with its
 // worst level in words and its checks, as the server computed them.
-import useSWR from 'swr';
 import { ChecksList, LEVEL_WORDS, LevelMark } from '@/components/final/checks-list';
 import type { EntryDto } from '@/db/queries/volumes';
+import { useLiveSWR } from '@/hooks/use-live';
 import type { VolumePreflight } from '@/lib/export/volume-preflight';
 import { fetcher } from '@/lib/http/client';
 import { entryLabel } from '@/lib/print/matter';
 
+/**
+ * One fetch for the volume, shared by this list and the flatplan's marks (one SWR key): read
+ * again when the series' stream says a gag moved or a final page changed, every 30 s without it.
+ */
 export function usePreflight(volumeId: string) {
-  return useSWR<VolumePreflight>(`/api/volumes/${volumeId}/preflight`, fetcher, { refreshInterval: 30_000 });
+  return useLiveSWR<VolumePreflight>(`/api/volumes/${volumeId}/preflight`, fetcher, { types: ['gags', 'final'], pollMs: 30_000 });
 }
 
 export function PreflightView({ volumeId, entries }: { volumeId: string; entries: EntryDto[] }) {

@@ -28,7 +28,7 @@ export function VolumePage({ seriesId, seriesTitle, role, initial }: { seriesId:
         </p>
       </div>
       <RunningOrder volumeId={v.id} entries={v.entries} unplaced={v.unplaced} canEdit={can(role, 'edit')} onChanged={refresh} />
-      {flatplan && <FlatplanView data={flatplan} binding={v.spec.binding} />}
+      {flatplan && <FlatplanView data={flatplan} spec={v.spec} volumeId={v.id} />}
       <PreflightView volumeId={v.id} entries={v.entries} />
       <PrintFilePanel volumeId={v.id} binding={v.spec.binding} canPrint={can(role, 'print')} canProof={can(role, 'manage')} />
       {plan && <Planner data={plan} canEdit={can(role, 'manage')} onPatch={patch} />}

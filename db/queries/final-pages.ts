@@ -7,6 +7,7 @@ import type { Kysely, Selectable, Transaction } from 'kysely';
 import { type Fit, type Quarter } from '@/lib/print/final-fit';
 import { Refused } from '@/lib/refused';
 import type { Database, FinalPagesTable } from '../database';
+import type { FlatplanFinal } from './volumes';
 import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 import { syncArtStatus } from './art-status';
@@ -117,6 +118,16 @@ export async function currentFinalPages(db: Db, owners: { gagIds: string[]; entr
   }
   return out;
 }
+
+/** A current final page as the flatplan draws it (its preview placed by its fit). */
+export const flatplanFinalOf = (r: Row): FlatplanFinal => ({
+  id: r.id,
+  fit: fitOf(r),
+  width: r.width,
+  height: r.height,
+  colour: r.colour,
+  version: r.sha256.slice(0, 16),
+});
 
 /** Locks what a change of final art reads and writes: the gag, or the matter page's volume. */
 async function lockOwner(trx: Transaction<Database>, owner: FinalOwner) {

@@ -16,6 +16,7 @@ import {
   bookSpineMm,
 } from '@/lib/print/book';
 import { DEFAULT_HOURS, type PlanPage, type Stage, plan } from '@/lib/planning/plan';
+import type { Fit, ScanColour } from '@/lib/print/final-fit';
 import type { Database, EntryKind, VolumesTable } from '../database';
 import { lockRow } from '../dialect';
 import { Refused } from '@/lib/refused';
@@ -255,6 +256,13 @@ export async function moveEntry(db: Kysely<Database>, volumeId: string, entryId:
   });
 }
 
+/**
+ * A page's current final page as the flatplan draws it: the scan's size and its fit are
+ * all the placement geometry needs (lib/print/final-fit); `version` names the scan's bytes,
+ * so the preview's address changes only when the scan does.
+ */
+export type FlatplanFinal = { id: string; fit: Fit; width: number; height: number; colour: ScanColour; version: string };
+
 export type Flatplan = {
   pages: {
     number: number;
@@ -264,6 +272,8 @@ export type Flatplan = {
     title: string | null;
     status: GagStatus | null;
     latestPass: { id: string; seq: number } | null;
+    /** The page's current final page; null while it has none (the newest pass, if any, stands in: "not final"). */
+    final: FlatplanFinal | null;
   }[];
   spreads: Spread[];
   pageCountValid: boolean;
@@ -276,7 +286,8 @@ export type Flatplan = {
   notReady: { gagId: string; title: string; status: GagStatus }[];
 };
 
-export function flatplanOf(volume: VolumeDto, entries: EntryDto[]): Flatplan {
+/** `finalOf` gives each entry's current final page (a gag's, or a matter page's own); none without it. */
+export function flatplanOf(volume: VolumeDto, entries: EntryDto[], finalOf: (e: EntryDto) => FlatplanFinal | null = () => null): Flatplan {
   const n = entries.length;
   const READY_OR_LATER: GagStatus[] = ['ready_to_ink', 'inked', 'scanned', 'placed'];
   return {
@@ -288,6 +299,7 @@ export function flatplanOf(volume: VolumeDto, entries: EntryDto[]): Flatplan {
       title: e.title,
       status: e.status,
       latestPass: e.latestPass,
+      final: finalOf(e),
     })),
     spreads: readerSpreads(n, volume.spec.direction),
     pageCountValid: pageCountValid(n, volume.spec.binding),

@@ -5,8 +5,8 @@ import { publish } from './bus';
 
 /** What changed on a gag's page; clients refetch the matching data. */
 export type GagPart = 'gag' | 'passes' | 'comments' | 'stamps' | 'checklist' | 'final';
-/** What changed on a series board. */
-export type SeriesPart = 'gags' | 'activity' | 'members';
+/** What changed on a series board; 'final': a final page of one of its pages (a gag's or a matter page's) was uploaded, fitted or made current. */
+export type SeriesPart = 'gags' | 'activity' | 'members' | 'final';
 
 export function gagChanged(seriesId: string, gagId: string, parts: GagPart[], seriesParts: SeriesPart[] = []) {
   return publish(
@@ -17,6 +17,16 @@ export function gagChanged(seriesId: string, gagId: string, parts: GagPart[], se
 
 export function seriesChanged(seriesId: string, parts: SeriesPart[], ids?: string[]) {
   return publish(...parts.map((type) => ({ topic: `series:${seriesId}`, type, ...(ids ? { ids } : {}) })));
+}
+
+/**
+ * A final page changed (uploaded, fitted, made current): a gag's page refreshes its final
+ * page and status, and the series' streams (a volume's flatplan and preflight) hear 'final'.
+ * A matter page has no gag page, no board card and no activity: the series hears 'final' alone.
+ */
+export function finalChanged(seriesId: string, owner: { gagId: string | null; entryId: string | null }, seriesParts: SeriesPart[] = []) {
+  if (owner.gagId) return gagChanged(seriesId, owner.gagId, ['final', 'gag'], [...seriesParts, 'final']);
+  return seriesChanged(seriesId, ['final'], owner.entryId ? [owner.entryId] : undefined);
 }
 
 /**

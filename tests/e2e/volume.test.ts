@@ -1,6 +1,7 @@
 // The volume page in Chromium: reorder with the mouse and the keyboard (kept
 // after a reload), an unplaced gag placed by keyboard alone and by mouse, the
-// flatplan's blank-page warning, an export with its progress bar that downloads a PDF.
+// flatplan's blank-page warning, its stand-ins with their preflight marks and its
+// printer spreads, an export with its progress bar that downloads a PDF.
 import fs from 'node:fs';
 import type { Page } from 'playwright-core';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
@@ -37,6 +38,18 @@ describe('volume "Low Tide"', () => {
     const warning = page.getByTestId('flatplan-warnings');
     await warning.getByText(/9 pages cannot be saddle stitched/).waitFor();
     expect(await warning.textContent()).toMatch(/add 3 blank pages, best after page 8/);
+    expect(await page.getByTestId('flatplan-page').count()).toBe(9);
+    // No final pages in the demo: every page is a stand-in, marked so, with its preflight level in words beside it.
+    expect(await page.getByTestId('flatplan-not-final').count()).toBe(9);
+    await expect.poll(() => page.getByTestId('flatplan-preflight').count(), { timeout: 15_000 }).toBe(9);
+    expect(await page.getByTestId('flatplan-preflight').first().textContent()).toBe('Must fix: no final page');
+    // Printer spreads, by keyboard: 9 pages take no saddle-stitched sheets until the blanks are added, and it says so.
+    const printer = page.getByRole('button', { name: 'Printer spreads' });
+    await printer.focus();
+    await page.keyboard.press('Enter');
+    expect(await printer.getAttribute('aria-pressed')).toBe('true');
+    expect(await page.getByTestId('printer-spreads-note').textContent()).toMatch(/multiple of 4: add 3 blank pages first/);
+    await page.getByRole('button', { name: 'Reader spreads' }).click();
     expect(await page.getByTestId('flatplan-page').count()).toBe(9);
   });
 

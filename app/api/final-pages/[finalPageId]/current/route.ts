@@ -2,13 +2,13 @@
 import { makeFinalPageCurrent } from '@/db/queries/final-pages';
 import { withSeriesRole } from '@/lib/http/route';
 import { byFinalPageId } from '@/lib/http/series-of';
-import { gagChanged } from '@/lib/live/events';
+import { finalChanged } from '@/lib/live/events';
 
 type Params = { finalPageId: string };
 const seriesOf = byFinalPageId;
 
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ db, params, seriesId, user }) => {
   const page = await makeFinalPageCurrent(db, params.finalPageId, user.id);
-  if (page.gagId) await gagChanged(seriesId, page.gagId, ['final', 'gag'], ['gags']);
+  await finalChanged(seriesId, page, ['gags']);
   return Response.json(page);
 });

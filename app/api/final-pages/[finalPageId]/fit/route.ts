@@ -4,7 +4,7 @@ import { setFit } from '@/db/queries/final-pages';
 import { finalPagePreflight } from '@/lib/export/volume-preflight';
 import { withSeriesRole } from '@/lib/http/route';
 import { byFinalPageId } from '@/lib/http/series-of';
-import { gagChanged } from '@/lib/live/events';
+import { finalChanged } from '@/lib/live/events';
 import { fitSchema } from '@/lib/validation/final-page';
 
 type Params = { finalPageId: string };
@@ -12,7 +12,7 @@ const seriesOf = byFinalPageId;
 
 export const PUT = withSeriesRole<Params, typeof fitSchema>('edit', seriesOf, { body: fitSchema }, async ({ db, params, seriesId, user, body }) => {
   const page = await setFit(db, params.finalPageId, body, user.id);
-  if (page.gagId) await gagChanged(seriesId, page.gagId, ['final', 'gag'], ['gags']);
+  await finalChanged(seriesId, page, ['gags']);
   // The page's checks at its new fit (the scan's measurements are made once, then kept).
   return Response.json({ ...page, preflight: await finalPagePreflight(db, page.id, seriesId) });
 });

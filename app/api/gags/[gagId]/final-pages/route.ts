@@ -4,7 +4,7 @@ import { listFinalPages } from '@/db/queries/final-pages';
 import { pageSpecForGag } from '@/db/queries/series';
 import { withSeriesRole } from '@/lib/http/route';
 import { byGagId } from '@/lib/http/series-of';
-import { gagChanged } from '@/lib/live/events';
+import { finalChanged } from '@/lib/live/events';
 import { uploadFinalPage } from '@/lib/uploads/store-final';
 import { measureSoon } from '@/lib/export/final-analyses';
 
@@ -18,7 +18,7 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params 
 export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, params, seriesId, user }) => {
   const spec = await pageSpecForGag(db, seriesId, params.gagId);
   const { page, duplicate } = await uploadFinalPage(req, db, { seriesId, userId: user.id, owner: { gagId: params.gagId }, spec });
-  await gagChanged(seriesId, params.gagId, ['final', 'gag'], ['gags', 'activity']);
+  await finalChanged(seriesId, { gagId: params.gagId, entryId: null }, ['gags', 'activity']);
   measureSoon(db, page.id);
   return Response.json(duplicate ? { ...page, duplicate: true } : page, { status: duplicate ? 200 : 201 });
 });

@@ -3,6 +3,7 @@ import { listFinalPages } from '@/db/queries/final-pages';
 import { findVolume, matterEntry } from '@/db/queries/volumes';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
 import { byVolumeId } from '@/lib/http/series-of';
+import { finalChanged } from '@/lib/live/events';
 import { uploadFinalPage } from '@/lib/uploads/store-final';
 import { measureSoon } from '@/lib/export/final-analyses';
 
@@ -24,6 +25,7 @@ export const POST = withSeriesRole<Params>('edit', seriesOf, async ({ req, db, p
   if (entry.kind === 'gag') return jsonError(422, NOT_MATTER);
   const { spec } = (await findVolume(db, params.volumeId))!;
   const { page, duplicate } = await uploadFinalPage(req, db, { seriesId, userId: user.id, owner: { entryId: params.entryId }, spec });
+  await finalChanged(seriesId, { gagId: null, entryId: params.entryId });
   measureSoon(db, page.id);
   return Response.json(duplicate ? { ...page, duplicate: true } : page, { status: duplicate ? 200 : 201 });
 });
