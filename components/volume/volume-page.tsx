@@ -5,6 +5,7 @@ import { type VolumeData, useVolume } from '@/hooks/use-volumes';
 import { type Role, can } from '@/lib/auth/permissions';
 import { Exports } from './exports';
 import { FlatplanView } from './flatplan';
+import { MatterFinalPages } from './matter-final-pages';
 import { Planner } from './planner';
 import { PreflightView } from './preflight-view';
 import { PrintFilePanel } from './print-file-panel';
@@ -29,6 +30,7 @@ export function VolumePage({ seriesId, seriesTitle, role, initial }: { seriesId:
       </div>
       <RunningOrder volumeId={v.id} entries={v.entries} unplaced={v.unplaced} canEdit={can(role, 'edit')} onChanged={refresh} />
       {flatplan && <FlatplanView data={flatplan} spec={v.spec} volumeId={v.id} />}
+      <MatterFinalPages volumeId={v.id} entries={v.entries} spec={v.spec} canEdit={can(role, 'edit')} />
       <PreflightView volumeId={v.id} entries={v.entries} />
       <PrintFilePanel volumeId={v.id} binding={v.spec.binding} canPrint={can(role, 'print')} canProof={can(role, 'manage')} />
       {plan && <Planner data={plan} canEdit={can(role, 'manage')} onPatch={patch} />}

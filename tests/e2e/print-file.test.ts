@@ -45,7 +45,9 @@ beforeAll(async () => {
     gagIds.push(g.body.id);
     expect((await api('post', `/api/volumes/${volumeId}/entries`, { gagId: g.body.id })).status).toBe(201);
   }
-  // Three of the four pages get their scans by the API, fitted to the bleed; the first is done by hand below.
+  // A title page last (its scan is uploaded on the volume page below).
+  expect((await api('post', `/api/volumes/${volumeId}/entries`, { kind: 'title' })).status).toBe(201);
+  // Three of the four gag pages get their scans by the API, fitted to the bleed; the first is done by hand below.
   for (const [i, gagId] of gagIds.slice(1).entries()) {
     const r = await page.request.post(`${baseUrl}/api/gags/${gagId}/final-pages`, {
       multipart: { file: { name: `fair-${i + 2}.tif`, mimeType: 'image/tiff', buffer: await scan(spec, i * 5) } },
@@ -75,8 +77,22 @@ describe('the print file in the browser', () => {
     await checks.locator('[data-rule="bleed"][data-level="ok"]').first().waitFor({ timeout: 20_000 });
     expect(await checks.locator('[data-level="fail"], [data-level="warn"]').count()).toBe(0);
 
-    // The volume page: the print file, watched while it is built.
+    // The volume page: the title page's scan, recorded at the resolution it was scanned at, so it starts fitted to the bleed.
     await page.goto(`${baseUrl}/series/${SERIES_ID}/volumes/${volumeId}`);
+    const matter = page.getByTestId('matter-final-pages');
+    await matter.getByText('Page 5: Title page').click();
+    const title = path.join(dir, 'title.tif');
+    fs.writeFileSync(
+      title,
+      await lineArtTiff(
+        { w: spec.trimW + 2 * spec.bleed, h: spec.trimH + 2 * spec.bleed, ppi: 600, marks: [{ x: 30, y: 70, w: 90, h: 3 }] },
+        'ccittfax4',
+      ),
+    );
+    await matter.getByLabel('Final page scan (TIFF, PNG or JPEG)').setInputFiles(title);
+    await matter.getByTestId('page-preflight').locator('[data-rule="bleed"][data-level="ok"]').first().waitFor({ timeout: 30_000 });
+
+    // The print file, watched while it is built.
     const print = page.getByTestId('print-file-panel');
     await print.getByRole('button', { name: 'Build the print file' }).waitFor();
     await page.evaluate(() => {
@@ -87,7 +103,7 @@ describe('the print file in the browser', () => {
       new MutationObserver(seen).observe(document.body, { childList: true, subtree: true });
     });
     await print.getByRole('button', { name: 'Build the print file' }).click();
-    const link = print.getByRole('link', { name: /^The print file \(4 pages, [\d.]+ MB\)$/ });
+    const link = print.getByRole('link', { name: /^The print file \(8 pages, [\d.]+ MB\)$/ });
     await link.waitFor({ timeout: 120_000 });
     expect(await page.evaluate(() => (window as unknown as { sawProgress?: boolean }).sawProgress)).toBe(true);
 
@@ -95,8 +111,8 @@ describe('the print file in the browser', () => {
     expect(res.status()).toBe(200);
     const pdf = path.join(dir, 'print.pdf');
     fs.writeFileSync(pdf, await res.body());
-    const info = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '4', pdf], { encoding: 'utf8' });
-    expect(Number(info.match(/^Pages:\s+(\d+)/m)![1])).toBe(4);
+    const info = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '8', pdf], { encoding: 'utf8' });
+    expect(Number(info.match(/^Pages:\s+(\d+)/m)![1])).toBe(8); // 5 pages and 3 blanks: saddle stitch takes a multiple of 4
     const pt = (mm: number) => (mm / 25.4) * 72;
     const boxes = (kind: string) =>
       [...info.matchAll(new RegExp(`^Page\\s+\\d+\\s+${kind}:\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)`, 'gm'))].map((m) =>
@@ -106,7 +122,7 @@ describe('the print file in the browser', () => {
     const H = pt(spec.trimH + 2 * spec.bleed);
     const b = pt(spec.bleed);
     for (const kind of ['MediaBox', 'BleedBox']) {
-      expect(boxes(kind)).toHaveLength(4);
+      expect(boxes(kind)).toHaveLength(8);
       for (const box of boxes(kind)) [0, 0, W, H].forEach((v, i) => expect(Math.abs(box[i]! - v)).toBeLessThan(0.01));
     }
     for (const box of boxes('TrimBox')) [b, b, W - b, H - b].forEach((v, i) => expect(Math.abs(box[i]! - v)).toBeLessThan(0.01));
@@ -115,7 +131,7 @@ describe('the print file in the browser', () => {
       .split('\n')
       .slice(2)
       .filter((l) => l.trim());
-    expect(images).toHaveLength(4);
+    expect(images).toHaveLength(5);
     for (const l of images) {
       const c = l.trim().split(/\s+/);
       expect([c[5], c[7], c[12], c[13]]).toEqual(['gray', '1', '600', '600']);
