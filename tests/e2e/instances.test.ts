@@ -121,6 +121,41 @@ describe('two instances on one PostgreSQL', () => {
     expect(served.bytes).toBeGreaterThan(50);
   });
 
+  it('a print file started through A is followed and downloaded through B', async () => {
+    // The owner (on B) makes a volume of one blank page; the co-creator (through A) asks for its print file.
+    const volumeId = await pageB.evaluate(async () => {
+      const post = (url: string, body: unknown) =>
+        fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) }).then((r) => r.json());
+      const v = await post('/api/series/demo-kettle-crab/volumes', { title: 'Two-instance book', deadline: '2027-06-01' });
+      await post(`/api/volumes/${v.id}/entries`, { kind: 'blank' });
+      return v.id as string;
+    });
+    const started = await pageA.evaluate(async (id) => {
+      const res = await fetch(`/api/volumes/${id}/print-jobs`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: '{"kind":"print"}',
+      });
+      return { status: res.status, body: await res.json() };
+    }, volumeId);
+    expect(started.status).toBe(202);
+    // B reads the job's row until A's worker has finished it, then serves the file A stored.
+    const done = await pageB.evaluate(async (jobId) => {
+      for (let i = 0; i < 300; i++) {
+        const { job } = await (await fetch(`/api/print-jobs/${jobId}`)).json();
+        if (job.state === 'done' || job.state === 'failed') return job;
+        await new Promise((r) => setTimeout(r, 100));
+      }
+      return null;
+    }, started.body.job.id as string);
+    expect(done).toMatchObject({ state: 'done', pages: 4 }); // one page and three blanks for saddle stitch
+    const file = await pageB.evaluate(async (url) => {
+      const res = await fetch(url);
+      return { status: res.status, head: new TextDecoder().decode((await res.arrayBuffer()).slice(0, 5)) };
+    }, done.file as string);
+    expect(file).toEqual({ status: 200, head: '%PDF-' });
+  });
+
   it('instance A killed mid-drawing: browser A goes on through B and every stroke ends up on B', async () => {
     const [a, b] = deployment.instances;
     await drawStroke(pageA, 0.25, 0.65);
