@@ -63,15 +63,12 @@ afterAll(async () => {
   await editor?.close();
 });
 
-// Skipped for now: after the merge of the stamp's question over red findings it failed in the clean-clone run
-// and there was no time left to find why (its events are covered by tests/integration/live.test.ts, and a hand
-// move reaching another open page by tests/e2e/review-flow.test.ts). To be put back next session.
-describe.skip('status and stamp marks, live on every open page', () => {
+describe('status and stamp marks, live on every open page', () => {
   it('the editor stamps pass 1 "ready to ink": the pass card, the board card and the volume follow, in the stamp colour', async () => {
     await editorPage.goto(`${SERIES}/gags/${gagId}`);
     await editorPage.getByRole('button', { name: 'Stamp “ready to ink”' }).click();
     // Panels 2–4 are empty (red findings): the stamp asks first.
-    await editorPage.getByRole('button', { name: 'Stamp anyway' }).click();
+    await editorPage.getByRole('button', { name: 'Stamp “ready to ink” anyway' }).click();
     await editorPage.getByTestId('current-stamp').filter({ hasText: 'Ready to ink' }).waitFor();
 
     const passMark = page.getByTestId('pass-card-1').getByTestId('stamp-mark');
