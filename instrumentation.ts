@@ -1,10 +1,12 @@
-// Runs once when the server starts: apply pending migrations before any request;
+// Runs once when the server starts: apply pending migrations before any request, and on SQLite
+// checkpoint from a thread of its own (db/checkpointer.ts);
 // without SMTP_URL, start the local SMTP fake that /dev/mail reads; without
 // S3_ENDPOINT, start the local S3 fake that stores uploads under data/s3.
 export async function register() {
   if (process.env.NEXT_RUNTIME !== 'nodejs') return;
-  const { getDb } = await import('./db/client');
+  const { checkpointInBackground, getDb } = await import('./db/client');
   await getDb();
+  await checkpointInBackground();
   if (!process.env.SMTP_URL && process.env.MAIL_FAKE !== 'off') {
     const { startFakeSmtp } = await import('./lib/mail/fake-server');
     const port = Number(process.env.MAIL_FAKE_PORT || 2525);

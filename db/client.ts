@@ -9,6 +9,7 @@ import { CamelCasePlugin, CompiledQuery, sql, type DatabaseConnection, Kysely, M
 import pg from 'pg';
 import type { Database } from './database';
 import { type DbKind, kindOf, markAdapter } from './dialect';
+import { startCheckpointer } from './checkpointer';
 import { migrationProvider } from './migrations';
 
 export const DEFAULT_DATABASE_URL = 'file:./data/quadrille.sqlite';
@@ -121,6 +122,17 @@ export async function getDb(): Promise<Kysely<Database>> {
   }
   await holder.ready;
   return holder.db;
+}
+
+/**
+ * The server's SQLite file is checkpointed by a thread of its own, not inside the commits of the
+ * request thread (db/checkpointer.ts). Nothing to do on PostgreSQL.
+ */
+export async function checkpointInBackground(): Promise<void> {
+  const url = process.env.DATABASE_URL || DEFAULT_DATABASE_URL;
+  if (isPostgresUrl(url)) return;
+  const db = await getDb();
+  await startCheckpointer(sqlitePathFromUrl(url), (pages) => sql.raw(`pragma wal_autocheckpoint = ${Math.round(pages)}`).execute(db));
 }
 
 export function dbKind(): DbKind {

@@ -49,7 +49,9 @@ export async function sqliteSite(): Promise<SqliteSite> {
       return inst;
     },
     stop: async () => {
-      for (const inst of instances) inst.kill('SIGKILL');
+      // Profiled (CPU_PROF_DIR), the servers end gracefully so their profiles are written.
+      for (const inst of instances) inst.kill(process.env.CPU_PROF_DIR ? 'SIGTERM' : 'SIGKILL');
+      if (process.env.CPU_PROF_DIR) await new Promise((r) => setTimeout(r, 3000));
       await s3.close();
       fs.rmSync(dir, { recursive: true, force: true });
     },
