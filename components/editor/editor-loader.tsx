@@ -6,6 +6,11 @@ import { LiveProvider } from '@/components/live/live-provider';
 import { prefetchPass } from './pass-prefetch';
 import type { EditorProps } from './types';
 
+// The editor's code (the canvas library with it) is asked for as soon as this module runs, with the
+// page's own scripts, rather than when the loader first renders after hydration: it then arrives
+// with the pass's strokes, which the page's HTML started reading (pass-early-read.tsx).
+if (typeof window !== 'undefined') void import('./editor').catch(() => undefined);
+
 const Editor = dynamic(() => import('./editor'), {
   ssr: false,
   loading: () => (

@@ -39,8 +39,12 @@ export function useView(o: { wrapRef: RefObject<HTMLDivElement | null>; bleed: R
     if (!el) return;
     const w = Math.max(200, Math.floor(el.clientWidth));
     const h = Math.max(200, Math.floor(el.clientHeight));
+    const fitted = fitPage(bleed, w, h);
+    // Known at once to the effects that run after this one: the session sets its bitmaps' resolution from it
+    // (the state update below is only read at the next render, after those effects ran with the old view).
+    viewRef.current = fitted;
     setSize({ w, h });
-    update(() => fitPage(bleed, w, h));
+    update(() => fitted);
   }, [wrapRef, bleed, update]);
 
   useEffect(() => {

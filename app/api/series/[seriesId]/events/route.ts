@@ -16,6 +16,6 @@ export const GET = withSeriesRole<Params>('read', bySeriesId, async ({ req, db, 
     userId: user.id,
     topics: [`series:${params.seriesId}`],
     hello: async () => [{ topic: `series:${params.seriesId}`, type: 'hello' }],
-    allowed: stillReadable(user.id, seriesId, db, (d) => bySeriesId(params, d), req),
+    allowed: stillReadable(user.id, seriesId, db, () => bySeriesId(params), req),
   }),
 );
