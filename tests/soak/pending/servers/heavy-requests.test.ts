@@ -4,6 +4,7 @@
 // stalled server shows as the long waits it causes rather than as fewer samples).
 // Pending: it waits in tests/soak/pending until the server holds this goal. Moved to tests/soak/servers/ it runs
 // in `npm test` (e2e) and the soak; until then `SOAK_PENDING=1 npx vitest run --project e2e tests/soak/pending`.
+import { execFileSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
 import { createPass } from '@/db/queries/passes';
@@ -45,6 +46,9 @@ beforeAll(async () => {
   }
   await closeDb();
   seededIn = performance.now() - seeding;
+  // The seeding wrote some 100 MB: let the disk take it now, so the kernel's writeback of the test's own
+  // setup does not hold up the server's first commits (an fsync on ext4 waits for the journal it shares).
+  execFileSync('sync');
   server = await site.start('A');
   viewer = await mustSignIn(server.url, 'viewer@quadrille.test', DEMO_PASSWORD);
 }, 300_000);
