@@ -7,7 +7,8 @@ import { END, PASS_MEDIA_TYPE, encodeHeader, encodeStrokes } from '@/lib/strokes
 type Params = { passId: string };
 const seriesOf = byPassId;
 
-const asJson = remembered<string | null>({ maxBytes: 32 * 1024 * 1024, sizeOf: (t) => (t ? t.length * 2 : 0) });
+// Kept as UTF-8 bytes with their length: each answer is then a copy to the socket, not a string encoded again.
+const asJson = remembered<Buffer | null>({ maxBytes: 32 * 1024 * 1024, sizeOf: (b) => b?.byteLength ?? 0 });
 
 /** Strokes per chunk of the packed answer: the editor draws each chunk as it arrives. */
 const STROKES_PER_CHUNK = 500;
@@ -30,12 +31,15 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ req, db, pa
     if (!at) return jsonError(404, 'Not found.');
     const body = await asJson.get(`${params.passId}:${at.seq}`, async () => {
       const state = await passState(db, params.passId);
-      return state && state.seq === at.seq ? JSON.stringify(state) : null;
+      return state && state.seq === at.seq ? Buffer.from(JSON.stringify(state)) : null;
     });
     // A batch landed between the two reads: answer the newer state, unremembered.
     const fresh = body === null ? await passState(db, params.passId) : null;
     if (body === null && !fresh) return jsonError(404, 'Not found.');
-    return new Response(body ?? JSON.stringify(fresh), { headers: { 'content-type': 'application/json', vary: 'Accept' } });
+    const bytes = body ?? Buffer.from(JSON.stringify(fresh));
+    return new Response(new Uint8Array(bytes.buffer as ArrayBuffer, bytes.byteOffset, bytes.byteLength), {
+      headers: { 'content-type': 'application/json', 'content-length': String(bytes.byteLength), vary: 'Accept' },
+    });
   }
 
   const pass = await findPass(db, params.passId);
