@@ -33,6 +33,7 @@ export function FinalPagePanel({
   const input = useRef<HTMLInputElement>(null);
   const [progress, setProgress] = useState<number | null>(null);
   const [error, setError] = useState<string | null>(null);
+  const saved = useState<string | null>(null);
   const Heading = headingLevel === 2 ? 'h2' : 'h3';
   const headingId = `final-${listUrl.replace(/[^a-z0-9]/gi, '-')}`;
 
@@ -94,6 +95,7 @@ export function FinalPagePanel({
           spec={spec}
           canEdit={canEdit}
           onSave={(f) => fit(current.id, f)}
+          message={saved}
         />
       )}
       {pages && pages.length > 1 && (

@@ -52,14 +52,16 @@ export function FitEditor({
   spec,
   canEdit,
   onSave,
+  message: [msg, setMsg],
 }: {
   page: FinalPageDto;
   spec: PageSpec;
   canEdit: boolean;
   onSave: (fit: Fit) => Promise<unknown>;
+  /** What the last save said, kept by the panel: a saved fit remounts this editor with the new fit. */
+  message: [string | null, (m: string | null) => void];
 }) {
   const [fit, setFit] = useState<Fit>(page.fit);
-  const [msg, setMsg] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   // The page's preflight at its saved fit (measuring the scan the first time takes a few seconds).
   const preflight = useSWR<PagePreflight>(`/api/final-pages/${page.id}/preflight`, fetcher);

@@ -74,6 +74,7 @@ describe('the print file in the browser', () => {
     // Fit it to the bleed and save: every check of the page is OK.
     await panel.getByLabel('the bleed (drawn with its bleed)').check();
     await panel.getByRole('button', { name: 'Save fit' }).click();
+    await panel.getByRole('status').getByText('Fit saved.').waitFor({ timeout: 20_000 });
     await checks.locator('[data-rule="bleed"][data-level="ok"]').first().waitFor({ timeout: 20_000 });
     expect(await checks.locator('[data-level="fail"], [data-level="warn"]').count()).toBe(0);
 
