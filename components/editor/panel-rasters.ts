@@ -6,6 +6,8 @@ import type { PageSpec, Rect } from '@/lib/print/geometry';
 import { panelRects } from '@/lib/print/geometry';
 import { outlineOf, traceOutline } from '@/lib/strokes/outline';
 import { type Stroke, greyToCss, strokeAlpha } from '@/lib/strokes/types';
+import { traceFlat } from './outline-pack';
+import { takeOutline } from './outline-prefetch';
 
 /** Longest side of one panel bitmap, in device pixels. */
 const MAX_SIDE = 4096;
@@ -44,7 +46,9 @@ export class PanelRasters {
     const hit = this.paths.get(stroke.id);
     if (hit && hit.stroke === stroke) return hit.path;
     const path = new Path2D();
-    traceOutline(path, outlineOf(stroke));
+    const ready = takeOutline(stroke);
+    if (ready) traceFlat(path, ready);
+    else traceOutline(path, outlineOf(stroke));
     this.paths.set(stroke.id, { stroke, path });
     return path;
   }

@@ -13,7 +13,8 @@ import { usePage } from './page-fixture';
 
 const baseUrl = inject('baseUrl');
 const page = usePage();
-const SERIES_ID = 'demo-kettle-crab';
+// A series of its own, so the gags it places do not change the demo board other browser tests count.
+let SERIES_ID = '';
 const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'quadrille-e2e-print-'));
 
 type Spec = { trimW: number; trimH: number; bleed: number };
@@ -35,6 +36,9 @@ async function scan(s: Spec, mark: number) {
 
 beforeAll(async () => {
   await signIn(page, baseUrl, 'owner@quadrille.test');
+  const series = await api('post', '/api/series', { title: 'Kettle Crab: fair edition' });
+  expect(series.status).toBe(201);
+  SERIES_ID = series.body.id;
   const v = await api('post', `/api/series/${SERIES_ID}/volumes`, { title: 'Kettle Crab at the fair', deadline: '2027-05-01' });
   expect(v.status).toBe(201);
   volumeId = v.body.id;
