@@ -2,7 +2,7 @@
 // sequence number; any later change to that pass clears it, and the gag's status
 // follows lib/gags/status.ts afterStampCleared (back "in review" from "ready to ink").
 import { randomUUID } from 'node:crypto';
-import type { Kysely, Transaction } from 'kysely';
+import type { Kysely, SelectQueryBuilder, Transaction } from 'kysely';
 import type { Database, StampDecision } from '../database';
 import { lockRow } from '../dialect';
 import { setGagStatus } from './gag-status';
@@ -33,9 +33,10 @@ const STAMPABLE = new Set(['idea', 'thumbnailing', 'in_review', 'ready_to_ink'])
  */
 export type StampMark = { passId: string; passNumber: number; decision: StampDecision; standing: boolean };
 
-export async function stampMarks(db: Db, gagIds: string[]): Promise<Map<string, StampMark>> {
+/** `gagIds`: a list, or a subquery selecting them (a whole board). */
+export async function stampMarks(db: Db, gagIds: string[] | SelectQueryBuilder<Database, 'gags', { id: string }>): Promise<Map<string, StampMark>> {
   const marks = new Map<string, StampMark>();
-  if (gagIds.length === 0) return marks;
+  if (Array.isArray(gagIds) && gagIds.length === 0) return marks;
   const rows = await db
     .selectFrom('stamps as s')
     .innerJoin('passes as p', 'p.id', 's.passId')
