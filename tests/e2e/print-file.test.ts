@@ -36,7 +36,7 @@ async function scan(s: Spec, mark: number) {
 
 beforeAll(async () => {
   await signIn(page, baseUrl, 'owner@quadrille.test');
-  const series = await api('post', '/api/series', { title: 'Kettle Crab: fair edition' });
+  const series = await api('post', '/api/series', { title: 'Harbour fair edition' });
   expect(series.status).toBe(201);
   SERIES_ID = series.body.id;
   const v = await api('post', `/api/series/${SERIES_ID}/volumes`, { title: 'Kettle Crab at the fair', deadline: '2027-05-01' });
