@@ -17,10 +17,16 @@ let fontBytes: Buffer | undefined;
 /** The font as plain TrueType, unwrapped once per process (see woff.ts). */
 const fontFile = () => (fontBytes ??= sfntFromWoff(fs.readFileSync(path.join(process.cwd(), 'fonts', FONT_FILE))));
 
-export async function newDoc(title: string) {
+export async function newDoc(title: string): Promise<{ doc: PDFDocument; font: PDFFont }>;
+/** `font: false`: a document with no text (the print file), so with no font embedded. */
+export async function newDoc(title: string, opts: { font: false }): Promise<{ doc: PDFDocument; font: null }>;
+export async function newDoc(title: string, opts: { font?: boolean } = {}): Promise<{ doc: PDFDocument; font: PDFFont | null }> {
   const doc = await PDFDocument.create();
-  doc.registerFontkit(fontkit);
-  const font = await doc.embedFont(fontFile(), { subset: true });
+  let font: PDFFont | null = null;
+  if (opts.font !== false) {
+    doc.registerFontkit(fontkit);
+    font = await doc.embedFont(fontFile(), { subset: true });
+  }
   doc.setTitle(title);
   doc.setSubject(PRINTER_NOTE);
   doc.setCreator('Quadrille');

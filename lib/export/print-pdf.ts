@@ -8,7 +8,7 @@ import { PDFDocument, type PDFFont, PDFName } from 'pdf-lib';
 import { type Fit, imageFrame, placedBox } from '@/lib/print/final-fit';
 import { type PageSpec, type Rect, bleedBox, mmToPt } from '@/lib/print/geometry';
 import type { Room, Stroke } from '@/lib/strokes/types';
-import { Opacities, ContentWriter, PRINTER_NOTE, newDoc, pt, rectPath } from './pdf-content';
+import { Opacities, ContentWriter, newDoc, pt, rectPath } from './pdf-content';
 import { type Sheet, centred, drawPanels, placer, textAt } from './pdf';
 import { DeferredStreams, writePdfFile } from './pdf-stream';
 import { type KeptScan, imageStream } from './print-image';
@@ -41,17 +41,31 @@ export type PrintInput = {
   onProgress?: (done: number, total: number) => void | Promise<void>;
 };
 
-type Doc = { doc: PDFDocument; font: PDFFont | null };
+/** The print file carries no text, so no font: only a proof's marks need one (embedded, subset). */
+const document = (title: string, proof: boolean): Promise<{ doc: PDFDocument; font: PDFFont | null }> =>
+  proof ? newDoc(`${title} — proof, not for print`) : newDoc(`${title} — print file`, { font: false });
 
-async function document(title: string, proof: boolean): Promise<Doc> {
-  // The print file carries no text, so no font: only a proof's marks need one (embedded, subset).
-  if (proof) return newDoc(`${title} — proof, not for print`);
-  const doc = await PDFDocument.create();
-  doc.setTitle(`${title} — print file`);
-  doc.setSubject(PRINTER_NOTE);
-  doc.setCreator('Quadrille');
-  doc.setProducer('Quadrille (pdf-lib)');
-  return { doc, font: null };
+/**
+ * A page of `trimW` × `trimH` mm plus the bleed, and a proof's slug around it: MediaBox (with the slug),
+ * BleedBox and TrimBox set, painted white to the bleed, with its drawing context.
+ */
+function sheetPage(
+  doc: PDFDocument,
+  ctx: { spec: PageSpec; out: ContentWriter; opacity: Opacities; slug: number },
+  trimW: number,
+  trimH: number,
+): { sheet: Sheet; w: number; h: number } {
+  const { spec, out, opacity, slug } = ctx;
+  const bleedW = trimW + 2 * spec.bleed;
+  const bleedH = trimH + 2 * spec.bleed;
+  const [w, h] = [mmToPt(bleedW + 2 * slug), mmToPt(bleedH + 2 * slug)];
+  const o = mmToPt(slug);
+  const page = doc.addPage([w, h]);
+  page.setMediaBox(0, 0, w, h);
+  page.setBleedBox(o, o, mmToPt(bleedW), mmToPt(bleedH));
+  page.setTrimBox(o + mmToPt(spec.bleed), o + mmToPt(spec.bleed), mmToPt(trimW), mmToPt(trimH));
+  out.text(`q 1 1 1 rg ${rectPath(o, o, mmToPt(bleedW), mmToPt(bleedH))} f Q\n`);
+  return { sheet: { page, out, opacity, at: placer(spec, h, mmToPt(slug + spec.bleed), mmToPt(slug + spec.bleed)) }, w, h };
 }
 
 /** The `cm` operators that draw an image's unit square as the placed scan: centred, sized, turned clockwise. */
@@ -108,18 +122,10 @@ export async function printPdf(pages: PrintPage[], input: PrintInput, file: stri
   const out = new ContentWriter();
   const notes: string[] = [];
   const slug = input.proof ? PROOF_SLUG_MM : 0;
-  const bleedW = spec.trimW + 2 * spec.bleed;
-  const bleedH = spec.trimH + 2 * spec.bleed;
-  const [w, h] = [mmToPt(bleedW + 2 * slug), mmToPt(bleedH + 2 * slug)];
+  const o = mmToPt(slug);
   const fill = filler(input, notes, 'print file');
   for (const p of pages) {
-    const page = doc.addPage([w, h]);
-    const o = mmToPt(slug);
-    page.setMediaBox(0, 0, w, h);
-    page.setBleedBox(o, o, mmToPt(bleedW), mmToPt(bleedH));
-    page.setTrimBox(o + mmToPt(spec.bleed), o + mmToPt(spec.bleed), mmToPt(spec.trimW), mmToPt(spec.trimH));
-    const sheet: Sheet = { page, out, opacity, at: placer(spec, h, mmToPt(slug + spec.bleed), mmToPt(slug + spec.bleed)) };
-    out.text(`q 1 1 1 rg ${rectPath(o, o, mmToPt(bleedW), mmToPt(bleedH))} f Q\n`);
+    const { sheet, w, h } = sheetPage(doc, { spec, out, opacity, slug }, spec.trimW, spec.trimH);
     if (p.art) placeScans(deferred, sheet, [{ art: p.art, trimLeft: 0, area: bleedBox(spec), spec, label: `Page ${p.number}` }], fill);
     else if (p.standIn) drawPanels(sheet, spec, p.standIn.strokes, p.standIn.rooms, []);
     else if (font && !p.addedBlank) centred(sheet, font, p.label, 14, w / 2, h / 2, [0.47, 0.46, 0.49]);
@@ -133,7 +139,7 @@ export async function printPdf(pages: PrintPage[], input: PrintInput, file: stri
             : 'NOT FINAL: no scan yet';
       textAt(sheet, font, `${PROOF_MARK} · page ${p.number} · ${p.label} · ${state}`, 7, o, o / 2 - 2, [0.75, 0.1, 0.1]);
     }
-    out.finish(doc, page);
+    out.finish(doc, sheet.page);
   }
   const total = deferred.size;
   await input.onProgress?.(0, total);
@@ -166,16 +172,9 @@ export async function coverPdf(
   const notes: string[] = [];
   const slug = input.proof ? PROOF_SLUG_MM : 0;
   const layout = coverLayout(spec, sides.spineMm, sides.direction);
-  const bleedW = layout.width + 2 * spec.bleed;
   const bleedH = layout.height + 2 * spec.bleed;
-  const [w, h] = [mmToPt(bleedW + 2 * slug), mmToPt(bleedH + 2 * slug)];
   const o = mmToPt(slug);
-  const page = doc.addPage([w, h]);
-  page.setMediaBox(0, 0, w, h);
-  page.setBleedBox(o, o, mmToPt(bleedW), mmToPt(bleedH));
-  page.setTrimBox(o + mmToPt(spec.bleed), o + mmToPt(spec.bleed), mmToPt(layout.width), mmToPt(layout.height));
-  const sheet: Sheet = { page, out, opacity: new Opacities(doc), at: placer(spec, h, mmToPt(slug + spec.bleed), mmToPt(slug + spec.bleed)) };
-  out.text(`q 1 1 1 rg ${rectPath(o, o, mmToPt(bleedW), mmToPt(bleedH))} f Q\n`);
+  const { sheet } = sheetPage(doc, { spec, out, opacity: new Opacities(doc), slug }, layout.width, layout.height);
   const side = (x: number, outerLeft: boolean): Rect =>
     outerLeft
       ? { x: x - spec.bleed, y: -spec.bleed, w: spec.trimW + spec.bleed, h: bleedH }
@@ -194,7 +193,7 @@ export async function coverPdf(
     out.text(`q 0.75 0.1 0.1 RG 0.3 w ${pt(x0)} 0 m ${pt(x0)} ${pt(o)} l ${pt(x1)} 0 m ${pt(x1)} ${pt(o)} l S Q\n`);
     textAt(sheet, font, `${PROOF_MARK} · cover · spine ${sides.spineMm.toFixed(2)} mm`, 7, o, o / 2 - 2, [0.75, 0.1, 0.1]);
   }
-  out.finish(doc, page);
+  out.finish(doc, sheet.page);
   const total = deferred.size;
   await input.onProgress?.(0, total);
   const { bytes } = await writePdfFile(doc, deferred, file, (done) => input.onProgress?.(done, total));

@@ -2,11 +2,11 @@
 // page on the gag page, fit it to the bleed and see its preflight turn green, then build the
 // print file on the volume page, watch its progress bar, download it and read its boxes with
 // poppler. Boxes: MediaBox = BleedBox ⊇ TrimBox (ISO 32000-1 §14.11.2); 1 in = 25.4 mm = 72 pt.
-import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
+import { pdfBoxesOf, pdfImagesOf } from '../support/poppler';
 import { lineArtTiff } from '../support/scans';
 import { signIn } from './browser';
 import { usePage } from './page-fixture';
@@ -116,30 +116,20 @@ describe('the print file in the browser', () => {
     expect(res.status()).toBe(200);
     const pdf = path.join(dir, 'print.pdf');
     fs.writeFileSync(pdf, await res.body());
-    const info = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '8', pdf], { encoding: 'utf8' });
-    expect(Number(info.match(/^Pages:\s+(\d+)/m)![1])).toBe(8); // 5 pages and 3 blanks: saddle stitch takes a multiple of 4
+    const b = pdfBoxesOf(pdf);
+    expect(b.pages).toBe(8); // 5 pages and 3 blanks: saddle stitch takes a multiple of 4
     const pt = (mm: number) => (mm / 25.4) * 72;
-    const boxes = (kind: string) =>
-      [...info.matchAll(new RegExp(`^Page\\s+\\d+\\s+${kind}:\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)`, 'gm'))].map((m) =>
-        m.slice(1).map(Number),
-      );
     const W = pt(spec.trimW + 2 * spec.bleed);
     const H = pt(spec.trimH + 2 * spec.bleed);
-    const b = pt(spec.bleed);
-    for (const kind of ['MediaBox', 'BleedBox']) {
-      expect(boxes(kind)).toHaveLength(8);
-      for (const box of boxes(kind)) [0, 0, W, H].forEach((v, i) => expect(Math.abs(box[i]! - v)).toBeLessThan(0.01));
+    const bl = pt(spec.bleed);
+    for (const boxes of [b.media, b.bleed]) {
+      expect(boxes).toHaveLength(8);
+      for (const box of boxes) [0, 0, W, H].forEach((v, i) => expect(Math.abs(box[i]! - v)).toBeLessThan(0.01));
     }
-    for (const box of boxes('TrimBox')) [b, b, W - b, H - b].forEach((v, i) => expect(Math.abs(box[i]! - v)).toBeLessThan(0.01));
+    for (const box of b.trim) [bl, bl, W - bl, H - bl].forEach((v, i) => expect(Math.abs(box[i]! - v)).toBeLessThan(0.01));
     // Each page's scan at its own pixels: 1-bit, 600 ppi across and down.
-    const images = execFileSync('pdfimages', ['-list', pdf], { encoding: 'utf8' })
-      .split('\n')
-      .slice(2)
-      .filter((l) => l.trim());
+    const images = pdfImagesOf(pdf);
     expect(images).toHaveLength(5);
-    for (const l of images) {
-      const c = l.trim().split(/\s+/);
-      expect([c[5], c[7], c[12], c[13]]).toEqual(['gray', '1', '600', '600']);
-    }
+    for (const i of images) expect([i.color, i.bpc, i.xppi, i.yppi]).toEqual(['gray', 1, 600, 600]);
   }, 240_000);
 });

@@ -21,6 +21,7 @@ import { pdfBoxes } from '@/lib/print/book';
 import { type Rect, panelRects } from '@/lib/print/geometry';
 import { type Outline, outlineOf } from '@/lib/strokes/outline';
 import { callRouteRaw } from '../support/call-route';
+import { pdfBoxesOf as boxes } from '../support/poppler';
 import { freshDb } from '../support/test-db';
 
 let db: Kysely<Database>;
@@ -33,16 +34,6 @@ async function save(res: Response, name: string) {
   const file = path.join(dir, name);
   fs.writeFileSync(file, Buffer.from(await res.arrayBuffer()));
   return file;
-}
-
-function boxes(file: string) {
-  const out = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '999', file], { encoding: 'utf8' });
-  const pages = Number(out.match(/^Pages:\s+(\d+)/m)![1]);
-  const read = (kind: string) =>
-    [...out.matchAll(new RegExp(`^Page\\s+(\\d+)\\s+${kind}:\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)`, 'gm'))].map((m) =>
-      m.slice(2).map(Number),
-    );
-  return { pages, trim: read('TrimBox'), bleed: read('BleedBox'), media: read('MediaBox') };
 }
 
 describe('review dummy PDF', () => {

@@ -26,6 +26,7 @@ import { callRoute, callRouteRaw } from '../support/call-route';
 import { form, greyTiff, jpegWithExif, lineArtTiff, rgbPng } from '../support/scans';
 import { useS3AndDb } from '../support/s3-fake';
 import { lum, renderPage, rgbAt } from '../support/pixels';
+import { pdfBoxesOf as boxes, pdfFontsOf as fonts, pdfImagesOf as images } from '../support/poppler';
 import { DEMO_SERIES_ID } from '../support/test-db';
 
 const env = useS3AndDb();
@@ -44,43 +45,6 @@ async function save(res: Response, name: string) {
   fs.writeFileSync(file, Buffer.from(await res.arrayBuffer()));
   return file;
 }
-
-function boxes(file: string) {
-  const out = execFileSync('pdfinfo', ['-box', '-f', '1', '-l', '999', file], { encoding: 'utf8' });
-  const read = (kind: string) =>
-    [...out.matchAll(new RegExp(`^Page\\s+(\\d+)\\s+${kind}:\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)\\s+([\\d.]+)`, 'gm'))].map((m) =>
-      m.slice(2).map(Number),
-    );
-  return { pages: Number(out.match(/^Pages:\s+(\d+)/m)![1]), media: read('MediaBox'), bleed: read('BleedBox'), trim: read('TrimBox') };
-}
-
-/** `pdfimages -list`: page, width, height, color, bpc, enc, x-ppi, y-ppi of each image. */
-function images(file: string) {
-  const out = execFileSync('pdfimages', ['-list', file], { encoding: 'utf8' });
-  return out
-    .split('\n')
-    .slice(2)
-    .filter((l) => l.trim())
-    .map((l) => {
-      const c = l.trim().split(/\s+/);
-      return {
-        page: Number(c[0]),
-        width: Number(c[3]),
-        height: Number(c[4]),
-        color: c[5],
-        bpc: Number(c[7]),
-        enc: c[8],
-        xppi: Number(c[12]),
-        yppi: Number(c[13]),
-      };
-    });
-}
-
-const fonts = (file: string) =>
-  execFileSync('pdffonts', [file], { encoding: 'utf8' })
-    .split('\n')
-    .slice(2)
-    .filter((l) => l.trim());
 
 const near = (a: number[], b: number[], tol = 0.01) => a.forEach((v, i) => expect(Math.abs(v - b[i]!)).toBeLessThanOrEqual(tol));
 
