@@ -2,7 +2,7 @@
 // A comment box that offers the series' members after "@": a listbox the box controls
 // (aria-activedescendant), picked with the arrows and Enter or Tab, or with the mouse; Escape closes
 // it. Under the box, what the mentions written so far match — nobody, several — before sending.
-import { useId, useMemo, useRef, useState } from 'react';
+import { useId, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { type MentionMember, findMentions, mentionFor, mentionOptions, mentionQueryAt, mentionWarning } from '@/lib/review/mentions';
 
 export function MentionField({
@@ -43,6 +43,7 @@ export function MentionField({
   // Not while the list is open: a half-typed "@Ne" is not a mistake yet.
   const warning = members && !open ? mentionWarning(findMentions(value, members)) : null;
 
+  const placeCaret = useRef<{ text: string; at: number } | null>(null);
   const track = () => setCaret(ref.current?.selectionStart ?? null);
   const pick = (m: MentionMember) => {
     if (!typing || !members) return;
@@ -53,11 +54,19 @@ export function MentionField({
     const at = typing.start + text.length;
     setActive(0);
     setCaret(at);
-    requestAnimationFrame(() => {
-      ref.current?.focus();
-      ref.current?.setSelectionRange(at, at);
-    });
+    placeCaret.current = { text: next, at };
   };
+
+  // The caret goes after the picked name as the new text is committed, before the next key is
+  // handled: placed a frame later, it would jump back over a letter typed in between.
+  useLayoutEffect(() => {
+    const want = placeCaret.current;
+    const box = ref.current;
+    if (!want || !box || box.value !== want.text) return;
+    placeCaret.current = null;
+    box.focus();
+    box.setSelectionRange(want.at, want.at);
+  }, [value]);
 
   return (
     <div className="relative">
