@@ -8,7 +8,8 @@ import { lockPassesOf, lockRow } from '../dialect';
 import { recordActivity } from './activity';
 import { artFacts } from './art-status';
 import { setGagStatus } from './gag-status';
-import { type StampMark, clearReadyStamps, readyStampStands, stampMarks } from './stamps';
+import { keptQuery } from '../kept-query';
+import { type StampMark, clearReadyStamps, readyStampStands } from './stamps';
 
 export type BeatDto = Pick<Selectable<BeatsTable>, 'kind' | 'note' | 'updatedAt'>;
 /** A gag as the app shows it: its row (but who started it), its beats, and its newest pass. */
@@ -28,51 +29,113 @@ function beatOrder(kind: BeatKind): number {
 }
 
 /**
- * The gags' beats, newest passes and stamp marks. `seriesId`, when the gags are a whole series' board,
- * selects them by a subquery rather than a list of ids: the SQL is then the same on every request
- * (one compiled statement, kept) however many gags the board holds.
+ * A gag's row with its newest pass and its newest stamp (and the number of the pass it names), in one
+ * query: each is a correlated subquery over an index, the same SQL however large the board.
  */
-async function attachBeats(db: Db, gags: Omit<GagDto, 'beats' | 'beatsWritten' | 'latestPass' | 'stamp'>[], seriesId?: string): Promise<GagDto[]> {
-  if (gags.length === 0) return [];
-  const ofGags = seriesId ? (db as Kysely<Database>).selectFrom('gags').select('id').where('seriesId', '=', seriesId) : gags.map((g) => g.id);
-  const passes = await db.selectFrom('passes').select(['id', 'gagId', 'number', 'seq']).where('gagId', 'in', ofGags).execute();
-  const latest = new Map<string, { id: string; number: number; seq: number }>();
-  for (const p of passes) {
-    const cur = latest.get(p.gagId);
-    if (!cur || p.number > cur.number) latest.set(p.gagId, { id: p.id, number: p.number, seq: p.seq });
-  }
-  const beats = await db.selectFrom('beats').select(['gagId', 'kind', 'note', 'updatedAt']).where('gagId', 'in', ofGags).execute();
-  const marks = await stampMarks(db, ofGags);
+function gagRows(db: Kysely<Database>) {
+  return db
+    .selectFrom('gags as g')
+    .leftJoin('passes as lp', (join) =>
+      join
+        .onRef('lp.gagId', '=', 'g.id')
+        .on((eb) =>
+          eb('lp.id', '=', eb.selectFrom('passes as p2').select('p2.id').whereRef('p2.gagId', '=', 'g.id').orderBy('p2.number', 'desc').limit(1)),
+        ),
+    )
+    .leftJoin('stamps as s', (join) =>
+      join
+        .onRef('s.gagId', '=', 'g.id')
+        .on((eb) =>
+          eb(
+            's.id',
+            '=',
+            eb
+              .selectFrom('stamps as s2')
+              .select('s2.id')
+              .whereRef('s2.gagId', '=', 'g.id')
+              .orderBy('s2.createdAt', 'desc')
+              .orderBy('s2.id', 'desc')
+              .limit(1),
+          ),
+        ),
+    )
+    .leftJoin('passes as sp', 'sp.id', 's.passId')
+    .select([
+      'g.id',
+      'g.seriesId',
+      'g.title',
+      'g.premise',
+      'g.status',
+      'g.position',
+      'g.createdAt',
+      'g.updatedAt',
+      'lp.id as latestPassId',
+      'lp.number as latestPassNumber',
+      'lp.seq as latestPassSeq',
+      's.passId as stampPassId',
+      'sp.number as stampPassNumber',
+      's.decision as stampDecision',
+      's.clearedAt as stampClearedAt',
+    ]);
+}
+type GagRow = Awaited<ReturnType<ReturnType<typeof gagRows>['execute']>>[number];
+type BeatRow = Pick<Selectable<BeatsTable>, 'gagId' | 'kind' | 'note' | 'updatedAt'>;
+
+const boardGags = keptQuery((db, seriesId: string) => gagRows(db).where('g.seriesId', '=', seriesId).orderBy('g.position'));
+const oneGag = keptQuery((db, gagId: string) => gagRows(db).where('g.id', '=', gagId));
+const boardBeats = keptQuery((db, seriesId: string) =>
+  db
+    .selectFrom('beats as b')
+    .innerJoin('gags as g', 'g.id', 'b.gagId')
+    .select(['b.gagId', 'b.kind', 'b.note', 'b.updatedAt'])
+    .where('g.seriesId', '=', seriesId),
+);
+const gagBeats = keptQuery((db, gagId: string) => db.selectFrom('beats').select(['gagId', 'kind', 'note', 'updatedAt']).where('gagId', '=', gagId));
+
+function toDtos(rows: GagRow[], beats: BeatRow[]): GagDto[] {
   const byGag = new Map<string, BeatDto[]>();
   for (const b of beats) {
     const list = byGag.get(b.gagId) ?? [];
     list.push({ kind: b.kind, note: b.note, updatedAt: b.updatedAt });
     byGag.set(b.gagId, list);
   }
-  return gags.map((g) => {
-    const list = (byGag.get(g.id) ?? []).sort((a, b) => beatOrder(a.kind) - beatOrder(b.kind));
+  return rows.map((r) => {
+    const list = (byGag.get(r.id) ?? []).sort((a, b) => beatOrder(a.kind) - beatOrder(b.kind));
     return {
-      ...g,
+      id: r.id,
+      seriesId: r.seriesId,
+      title: r.title,
+      premise: r.premise,
+      status: r.status,
+      position: r.position,
+      createdAt: r.createdAt,
+      updatedAt: r.updatedAt,
       beats: list,
       beatsWritten: list.filter((b) => b.note.trim() !== '').length,
-      latestPass: latest.get(g.id) ?? null,
-      stamp: marks.get(g.id) ?? null,
+      latestPass: r.latestPassId !== null ? { id: r.latestPassId, number: r.latestPassNumber!, seq: r.latestPassSeq! } : null,
+      stamp:
+        r.stampPassId !== null && r.stampDecision !== null
+          ? {
+              passId: r.stampPassId,
+              passNumber: r.stampPassNumber!,
+              decision: r.stampDecision,
+              standing: r.stampDecision === 'ready' && r.stampClearedAt === null,
+            }
+          : null,
     };
   });
 }
 
-const GAG_COLUMNS = ['id', 'seriesId', 'title', 'premise', 'status', 'position', 'createdAt', 'updatedAt'] as const;
-
+/** A series' board: its gags in board order, each with its beats, newest pass and newest stamp. Two queries, compiled once. */
 export async function listGags(db: Db, seriesId: string): Promise<GagDto[]> {
-  const rows = await db.selectFrom('gags').select(GAG_COLUMNS).where('seriesId', '=', seriesId).orderBy('position').execute();
-  return attachBeats(db, rows, seriesId);
+  const [rows, beats] = [await boardGags(db, seriesId), await boardBeats(db, seriesId)];
+  return toDtos(rows, beats);
 }
 
 export async function findGag(db: Db, gagId: string): Promise<GagDto | undefined> {
-  const row = await db.selectFrom('gags').select(GAG_COLUMNS).where('id', '=', gagId).executeTakeFirst();
-  if (!row) return undefined;
-  const [gag] = await attachBeats(db, [row]);
-  return gag;
+  const rows = await oneGag(db, gagId);
+  if (rows.length === 0) return undefined;
+  return toDtos(rows, await gagBeats(db, gagId))[0];
 }
 
 export async function seriesOfGag(db: Db, gagId: string): Promise<string | null> {

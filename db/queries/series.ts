@@ -3,6 +3,7 @@ import type { Kysely } from 'kysely';
 import type { Role } from '@/lib/auth/permissions';
 import { DEFAULT_PAGE_SPEC, type PageSpec } from '@/lib/print/geometry';
 import type { Database } from '../database';
+import { keptQuery } from '../kept-query';
 
 export type SeriesDto = { id: string; title: string; role: Role };
 
@@ -17,8 +18,12 @@ export async function listSeriesForUser(db: Kysely<Database>, userId: string): P
     .execute();
 }
 
+const membershipRole = keptQuery((db, userId: string, seriesId: string) =>
+  db.selectFrom('memberships').select('role').where('userId', '=', userId).where('seriesId', '=', seriesId),
+);
+
 export async function roleInSeries(db: Kysely<Database>, userId: string, seriesId: string): Promise<Role | null> {
-  const row = await db.selectFrom('memberships').select('role').where('userId', '=', userId).where('seriesId', '=', seriesId).executeTakeFirst();
+  const [row] = await membershipRole(db, userId, seriesId);
   return row?.role ?? null;
 }
 

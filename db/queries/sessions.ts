@@ -4,6 +4,7 @@
 import { randomBytes } from 'node:crypto';
 import type { Kysely, Transaction } from 'kysely';
 import type { Database } from '../database';
+import { keptQuery } from '../kept-query';
 
 /** How long a session lasts after its sign-in (next-auth's cookie lives as long). */
 export const SESSION_DAYS = 30;
@@ -20,15 +21,19 @@ export async function startSession(db: Db, userId: string, now = new Date()): Pr
 }
 
 /** The signed-in person of a session, in one query: the session must be live and belong to `userId`. */
-export async function findSessionUser(db: Db, sessionId: string, userId: string, now = new Date()) {
-  return db
+const sessionUser = keptQuery((db, sessionId: string, userId: string, now: string) =>
+  db
     .selectFrom('sessions as s')
     .innerJoin('users as u', 'u.id', 's.userId')
     .select(['u.id', 'u.email', 'u.name'])
     .where('s.id', '=', sessionId)
     .where('s.userId', '=', userId)
-    .where('s.expiresAt', '>', now.toISOString())
-    .executeTakeFirst();
+    .where('s.expiresAt', '>', now),
+);
+
+export async function findSessionUser(db: Db, sessionId: string, userId: string, now = new Date()) {
+  const [user] = await sessionUser(db, sessionId, userId, now.toISOString());
+  return user;
 }
 
 export async function endSession(db: Db, sessionId: string): Promise<void> {

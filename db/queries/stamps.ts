@@ -2,7 +2,7 @@
 // sequence number; any later change to that pass clears it, and the gag's status
 // follows lib/gags/status.ts afterStampCleared (back "in review" from "ready to ink").
 import { randomUUID } from 'node:crypto';
-import type { Kysely, SelectQueryBuilder, Transaction } from 'kysely';
+import type { Kysely, Transaction } from 'kysely';
 import type { Database, StampDecision } from '../database';
 import { lockRow } from '../dialect';
 import { setGagStatus } from './gag-status';
@@ -32,30 +32,6 @@ const STAMPABLE = new Set(['idea', 'thumbnailing', 'in_review', 'ready_to_ink'])
  * "ready" or "again", and whether a "ready" stamp still stands.
  */
 export type StampMark = { passId: string; passNumber: number; decision: StampDecision; standing: boolean };
-
-/** `gagIds`: a list, or a subquery selecting them (a whole board). */
-export async function stampMarks(db: Db, gagIds: string[] | SelectQueryBuilder<Database, 'gags', { id: string }>): Promise<Map<string, StampMark>> {
-  const marks = new Map<string, StampMark>();
-  if (Array.isArray(gagIds) && gagIds.length === 0) return marks;
-  const rows = await db
-    .selectFrom('stamps as s')
-    .innerJoin('passes as p', 'p.id', 's.passId')
-    .select(['s.gagId', 's.passId', 'p.number as passNumber', 's.decision', 's.clearedAt', 's.createdAt'])
-    .where('s.gagId', 'in', gagIds)
-    .orderBy('s.createdAt', 'desc')
-    .orderBy('s.id', 'desc')
-    .execute();
-  for (const r of rows) {
-    if (marks.has(r.gagId)) continue;
-    marks.set(r.gagId, {
-      passId: r.passId,
-      passNumber: r.passNumber,
-      decision: r.decision,
-      standing: r.decision === 'ready' && r.clearedAt === null,
-    });
-  }
-  return marks;
-}
 
 /** A gag's "ready to ink" stamp that still stands, if any. */
 export async function readyStampStands(db: Db, gagId: string): Promise<boolean> {

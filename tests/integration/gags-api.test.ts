@@ -4,8 +4,10 @@ import * as healthRoute from '@/app/api/health/route';
 import * as gagsRoute from '@/app/api/series/[seriesId]/gags/route';
 import * as seriesRoute from '@/app/api/series/route';
 import * as usersRoute from '@/app/api/users/route';
+import { createPass } from '@/db/queries/passes';
+import { stampPass } from '@/db/queries/stamps';
 import { callRoute } from '../support/call-route';
-import { DEMO_SERIES_ID, freshDb, testDbKind } from '../support/test-db';
+import { DEMO_SERIES_ID, PERSONAS, freshDb, testDbKind } from '../support/test-db';
 
 let db: Awaited<ReturnType<typeof freshDb>>;
 beforeAll(async () => {
@@ -70,6 +72,56 @@ describe('gags', () => {
     expect(r.status).toBe(201);
     expect(r.body).toMatchObject({ title: 'Barnacle Band', status: 'idea', beatsWritten: 0, position: 13 });
     expect(r.body.beats).toHaveLength(4);
+  });
+
+  it("names each gag's newest pass and newest stamp, as each gag's own rows say, and the same as the gag's own read", async () => {
+    // A gag with passes 1–3, "ready" on pass 2 and then "again" on pass 3: the card shows pass 3 and the "again".
+    const made = await callRoute(gagsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { seriesId: DEMO_SERIES_ID },
+      body: { title: 'Lid Lift', premise: 'The crab lifts the kettle lid to look out.' },
+    });
+    const gagId = made.body.id as string;
+    const passes = [];
+    for (let i = 0; i < 3; i++) passes.push(await createPass(db, { gagId, userId: PERSONAS.cocreator.id }));
+    await stampPass(db, { passId: passes[1]!.id, userId: PERSONAS.editor.id, decision: 'ready', note: '' });
+    await stampPass(db, { passId: passes[2]!.id, userId: PERSONAS.editor.id, decision: 'again', note: 'The lid hides the eyes.' });
+
+    const board = (await callRoute(gagsRoute.GET, { as: 'viewer', params: { seriesId: DEMO_SERIES_ID } })).body as any[];
+    const card = board.find((g) => g.id === gagId);
+    expect(card.latestPass).toMatchObject({ id: passes[2]!.id, number: 3 });
+    expect(card.stamp).toEqual({ passId: passes[2]!.id, passNumber: 3, decision: 'again', standing: false });
+    expect((await callRoute(gagRoute.GET, { as: 'viewer', params: { gagId } })).body).toEqual(card);
+
+    for (const g of board) {
+      const newest = await db
+        .selectFrom('passes')
+        .select(['id', 'number', 'seq'])
+        .where('gagId', '=', g.id)
+        .orderBy('number', 'desc')
+        .executeTakeFirst();
+      expect(g.latestPass, g.title).toEqual(newest ?? null);
+      const stamp = await db
+        .selectFrom('stamps as s')
+        .innerJoin('passes as p', 'p.id', 's.passId')
+        .select(['s.passId', 'p.number', 's.decision', 's.clearedAt'])
+        .where('s.gagId', '=', g.id)
+        .orderBy('s.createdAt', 'desc')
+        .orderBy('s.id', 'desc')
+        .executeTakeFirst();
+      expect(g.stamp, g.title).toEqual(
+        stamp
+          ? {
+              passId: stamp.passId,
+              passNumber: stamp.number,
+              decision: stamp.decision,
+              standing: stamp.decision === 'ready' && stamp.clearedAt === null,
+            }
+          : null,
+      );
+    }
+    expect(board.filter((g) => g.stamp?.standing).length, 'the demo has standing stamps').toBeGreaterThan(0);
   });
 
   it('patches title, premise and beat notes together, and bumps updatedAt', async () => {
