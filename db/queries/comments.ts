@@ -7,6 +7,7 @@ import { type Mentions, findMentions } from '@/lib/review/mentions';
 import type { CommentTarget, CommentsTable, Database } from '../database';
 import { recordActivity } from './activity';
 import { Refused } from '@/lib/refused';
+import { keptQuery } from '../kept-query';
 
 /** A comment row as the API shows it, with its pass's number and its author's name. */
 export type CommentDto = Selectable<CommentsTable> & { passNumber: number | null; author: string };
@@ -43,13 +44,12 @@ export async function findComment(db: Kysely<Database>, id: string): Promise<Com
   return baseQuery(db).where('c.id', '=', id).executeTakeFirst();
 }
 
+const commentSeries = keptQuery((db, id: string) =>
+  db.selectFrom('comments as c').innerJoin('gags as g', 'g.id', 'c.gagId').select('g.seriesId').where('c.id', '=', id),
+);
+
 export async function seriesOfComment(db: Kysely<Database>, id: string): Promise<string | null> {
-  const row = await db
-    .selectFrom('comments as c')
-    .innerJoin('gags as g', 'g.id', 'c.gagId')
-    .select('g.seriesId')
-    .where('c.id', '=', id)
-    .executeTakeFirst();
+  const [row] = await commentSeries(db, id);
   return row?.seriesId ?? null;
 }
 

@@ -11,6 +11,7 @@ import type { FlatplanFinal } from './volumes';
 import { lockRow } from '../dialect';
 import { recordActivity } from './activity';
 import { syncArtStatus } from './art-status';
+import { keptQuery } from '../kept-query';
 
 type Db = Kysely<Database> | Transaction<Database>;
 type Row = Selectable<FinalPagesTable>;
@@ -101,8 +102,11 @@ export async function finalPageRow(db: Db, id: string): Promise<Row | undefined>
   return db.selectFrom('finalPages').selectAll().where('id', '=', id).executeTakeFirst();
 }
 
+const finalPageSeries = keptQuery((db, id: string) => db.selectFrom('finalPages').select('seriesId').where('id', '=', id));
+
 export async function seriesOfFinalPage(db: Db, id: string): Promise<string | null> {
-  return (await db.selectFrom('finalPages').select('seriesId').where('id', '=', id).executeTakeFirst())?.seriesId ?? null;
+  const [row] = await finalPageSeries(db, id);
+  return row?.seriesId ?? null;
 }
 
 /** The current final pages of these gags and matter pages, by owner id. */

@@ -138,8 +138,10 @@ export async function findGag(db: Db, gagId: string): Promise<GagDto | undefined
   return toDtos(rows, await gagBeats(db, gagId))[0];
 }
 
+const gagSeries = keptQuery((db, gagId: string) => db.selectFrom('gags').select('seriesId').where('id', '=', gagId));
+
 export async function seriesOfGag(db: Db, gagId: string): Promise<string | null> {
-  const row = await db.selectFrom('gags').select('seriesId').where('id', '=', gagId).executeTakeFirst();
+  const [row] = await gagSeries(db, gagId);
   return row?.seriesId ?? null;
 }
 

@@ -18,6 +18,7 @@ import { recountPass } from './pass-size';
 import { addRevision } from './revisions';
 import { rowToStroke, strokeRowValues } from './stroke-rows';
 import { Refused } from '@/lib/refused';
+import { keptQuery } from '../kept-query';
 
 type Db = Kysely<Database> | Transaction<Database>;
 
@@ -46,8 +47,11 @@ export type PassDelta = {
 
 // ---------- reading ----------
 
+const passRow = keptQuery((db, passId: string) => db.selectFrom('passes').selectAll().where('id', '=', passId));
+
 export async function findPass(db: Db, passId: string) {
-  return db.selectFrom('passes').selectAll().where('id', '=', passId).executeTakeFirst();
+  const [row] = await passRow(db, passId);
+  return row;
 }
 
 export async function findPassByNumber(db: Db, gagId: string, number: number) {

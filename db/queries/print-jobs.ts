@@ -6,6 +6,7 @@ import { randomUUID } from 'node:crypto';
 import type { Kysely, Selectable } from 'kysely';
 import type { Database, PrintJobsTable } from '../database';
 import { lockRow } from '../dialect';
+import { keptQuery } from '../kept-query';
 
 type Row = Selectable<PrintJobsTable>;
 export type PrintKind = PrintJobsTable['kind'];
@@ -75,13 +76,12 @@ export async function printJobFile(
   return r && r.state === 'done' && r.objectKey ? { key: r.objectKey, kind: r.kind, proof: r.proof === 1, volumeId: r.volumeId } : null;
 }
 
+const printJobSeries = keptQuery((db, id: string) =>
+  db.selectFrom('printJobs as j').innerJoin('volumes as v', 'v.id', 'j.volumeId').select('v.seriesId').where('j.id', '=', id),
+);
+
 export async function seriesOfPrintJob(db: Kysely<Database>, id: string): Promise<string | null> {
-  const r = await db
-    .selectFrom('printJobs as j')
-    .innerJoin('volumes as v', 'v.id', 'j.volumeId')
-    .select('v.seriesId')
-    .where('j.id', '=', id)
-    .executeTakeFirst();
+  const [r] = await printJobSeries(db, id);
   return r?.seriesId ?? null;
 }
 

@@ -2,6 +2,7 @@
 import { randomUUID } from 'node:crypto';
 import { type Kysely, type Selectable, sql } from 'kysely';
 import type { Database, UploadsTable } from '../database';
+import { keptQuery } from '../kept-query';
 
 const COLS = ['id', 'name', 'mime', 'bytes', 'width', 'height', 'sha256', 'createdAt'] as const;
 /** An upload as the API shows it: its row without the storage keys. */
@@ -29,8 +30,11 @@ export async function uploadKeys(db: Kysely<Database>, id: string) {
   return db.selectFrom('uploads').select(['seriesId', 'originalKey', 'workingKey', 'previewKey', 'mime']).where('id', '=', id).executeTakeFirst();
 }
 
+const uploadSeries = keptQuery((db, id: string) => db.selectFrom('uploads').select('seriesId').where('id', '=', id));
+
 export async function seriesOfUpload(db: Kysely<Database>, id: string): Promise<string | null> {
-  return (await db.selectFrom('uploads').select('seriesId').where('id', '=', id).executeTakeFirst())?.seriesId ?? null;
+  const [row] = await uploadSeries(db, id);
+  return row?.seriesId ?? null;
 }
 
 /** Which of these upload ids belong to the series. */

@@ -21,6 +21,7 @@ import type { Database, EntryKind, VolumesTable } from '../database';
 import { lockRow } from '../dialect';
 import { Refused } from '@/lib/refused';
 import { syncArtStatus } from './art-status';
+import { keptQuery } from '../kept-query';
 
 export type VolumeDto = {
   id: string;
@@ -66,8 +67,11 @@ export async function findVolume(db: Kysely<Database>, id: string): Promise<Volu
   return row ? toDto(row) : undefined;
 }
 
+const volumeSeries = keptQuery((db, id: string) => db.selectFrom('volumes').select('seriesId').where('id', '=', id));
+
 export async function seriesOfVolume(db: Kysely<Database>, id: string): Promise<string | null> {
-  return (await db.selectFrom('volumes').select('seriesId').where('id', '=', id).executeTakeFirst())?.seriesId ?? null;
+  const [row] = await volumeSeries(db, id);
+  return row?.seriesId ?? null;
 }
 
 export async function createVolume(
