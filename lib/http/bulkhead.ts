@@ -7,6 +7,14 @@
 import pLimit from 'p-limit';
 import { Refused } from '@/lib/refused';
 
+/**
+ * Waits for the event loop's next turn. A waiting request is started when another one ends, and with
+ * SQLite (synchronous under its promises) a whole refusal runs in microtasks: started from there, the
+ * queue would drain in one go — 70 refusals at once — while a health check that arrived meanwhile waits
+ * for all of them. Started on a turn of its own, each one lets the requests that came in go first.
+ */
+const turn = () => new Promise<void>((resolve) => setImmediate(resolve));
+
 export type Bulkhead = { run<T>(fn: () => Promise<T>): Promise<T>; readonly active: number; readonly pending: number };
 
 export function bulkhead(opts: { concurrent: number; waiting: number; retryAfterS?: number; what: string }): Bulkhead {
@@ -20,7 +28,10 @@ export function bulkhead(opts: { concurrent: number; waiting: number; retryAfter
           }),
         );
       }
-      return limit(fn);
+      return limit(async () => {
+        await turn();
+        return fn();
+      });
     },
     get active() {
       return limit.activeCount;
