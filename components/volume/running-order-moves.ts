@@ -3,7 +3,7 @@
 // keys step a gag from the unplaced list through the running order's places
 // (dnd-kit's sortable keys only know the pages already in the list).
 import { type CollisionDetection, type KeyboardCoordinateGetter, closestCenter } from '@dnd-kit/core';
-import { arrayMove, hasSortableData, sortableKeyboardCoordinates } from '@dnd-kit/sortable';
+import { arrayMove, hasSortableData } from '@dnd-kit/sortable';
 import type { EntryDto } from '@/db/queries/volumes';
 import { entryLabel } from '@/lib/print/matter';
 
@@ -63,14 +63,15 @@ export function sayWhat(id: string, entries: EntryDto[], unplaced: { id: string;
 }
 
 /**
- * Arrow keys while dragging. A page of the list moves as a sortable item does; a gag
- * from the unplaced list steps through the places of the running order, one page up
- * or down (the list's pages by their index, then END_SLOT), so the drop lands where the
- * last announcement said.
+ * Arrow keys while dragging: one place up or down a key, so the drop lands where the last
+ * announcement said. A page of the list steps through the list's pages by their index; a gag
+ * from the unplaced list through those and then END_SLOT. Where it is now is read from the
+ * dragged row itself, never from `over`, which lags behind a key pressed while the list is still
+ * re-rendering the last one (a step was lost that way on a busy machine).
  */
 export const runningOrderKeys: KeyboardCoordinateGetter = (event, args) => {
-  if (!isUnplaced(args.active)) return sortableKeyboardCoordinates(event, args);
   if (!['ArrowUp', 'ArrowDown', 'ArrowLeft', 'ArrowRight'].includes(event.code)) return undefined;
+  const fromList = !isUnplaced(args.active);
   event.preventDefault();
   const { droppableRects, droppableContainers, collisionRect, scrollAdjustedTranslate } = args.context;
   const enabled = droppableContainers.getEnabled();
@@ -80,13 +81,13 @@ export const runningOrderKeys: KeyboardCoordinateGetter = (event, args) => {
     )
     .sort((a, b) => a.at - b.at)
     .map((p) => p.id);
-  const ids = enabled.some((c) => c.id === END_SLOT) ? [...pages, END_SLOT] : pages;
+  const ids = !fromList && enabled.some((c) => c.id === END_SLOT) ? [...pages, END_SLOT] : pages;
   if (!collisionRect || ids.length === 0) return undefined;
   // Where it is now: the place nearest the dragged row (what closestCenter will say), read from
   // the row itself, which is up to date at each key even when `over` lags behind fast presses.
-  // Not moved yet: it is over the end (runningOrderCollisions).
+  // A page starts at its own place; a gag not moved yet is over the end (runningOrderCollisions).
   const moved = !!scrollAdjustedTranslate && (scrollAdjustedTranslate.x !== 0 || scrollAdjustedTranslate.y !== 0);
-  const cur = moved ? nearest(ids, droppableRects, collisionRect) : ids.indexOf(END_SLOT);
+  const cur = fromList || moved ? nearest(ids, droppableRects, collisionRect) : ids.indexOf(END_SLOT);
   const down = event.code === 'ArrowDown' || event.code === 'ArrowRight';
   const next = cur < 0 ? (down ? 0 : ids.length - 1) : Math.max(0, Math.min(ids.length - 1, cur + (down ? 1 : -1)));
   const rect = droppableRects.get(ids[next]!);
