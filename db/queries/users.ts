@@ -2,6 +2,7 @@
 import type { Kysely, Transaction } from 'kysely';
 import type { Database, User } from '../database';
 import { lockKey } from '../dialect';
+import { keptQuery } from '../kept-query';
 
 export async function findUserByEmail(db: Kysely<Database>, email: string): Promise<User | undefined> {
   return db.selectFrom('users').selectAll().where('email', '=', email.toLowerCase()).executeTakeFirst();
@@ -14,14 +15,17 @@ export async function insertUser(db: Kysely<Database>, user: { id: string; email
     .execute();
 }
 
-export async function countRecentFailures(db: Kysely<Database>, email: string, sinceMs: number): Promise<number> {
-  const row = await db
+const recentFailures = keptQuery((db, email: string, sinceMs: number) =>
+  db
     .selectFrom('signInFailures')
     .select((eb) => eb.fn.countAll<number>().as('n'))
-    .where('email', '=', email.toLowerCase())
-    .where('at', '>=', sinceMs)
-    .executeTakeFirstOrThrow();
-  return Number(row.n);
+    .where('email', '=', email)
+    .where('at', '>=', sinceMs),
+);
+
+export async function countRecentFailures(db: Kysely<Database>, email: string, sinceMs: number): Promise<number> {
+  const [row] = await recentFailures(db, email.toLowerCase(), sinceMs);
+  return Number(row?.n ?? 0);
 }
 
 export async function recordFailure(db: Kysely<Database>, email: string, atMs: number): Promise<void> {
@@ -91,14 +95,17 @@ export async function claimSignInSlots(
   });
 }
 
-export async function countRecentClientAttempts(db: Kysely<Database>, client: string, sinceMs: number): Promise<number> {
-  const row = await db
+const recentClientAttempts = keptQuery((db, client: string, sinceMs: number) =>
+  db
     .selectFrom('signInClientAttempts')
     .select((eb) => eb.fn.countAll<number>().as('n'))
     .where('client', '=', client)
-    .where('at', '>=', sinceMs)
-    .executeTakeFirstOrThrow();
-  return Number(row.n);
+    .where('at', '>=', sinceMs),
+);
+
+export async function countRecentClientAttempts(db: Kysely<Database>, client: string, sinceMs: number): Promise<number> {
+  const [row] = await recentClientAttempts(db, client, sinceMs);
+  return Number(row?.n ?? 0);
 }
 
 /** A successful sign-in gives its client slot back: only failures use up a client's attempts. */

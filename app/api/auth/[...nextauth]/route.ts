@@ -60,17 +60,17 @@ export async function POST(incoming: NextRequest, ctx: Ctx) {
 
 async function handleForm(incoming: NextRequest, ctx: Ctx) {
   const text = await readTextCapped(incoming, MAX_AUTH_BODY_BYTES);
-  // next-auth reads the body itself: hand it the bytes already read, and nothing more.
-  const req = new NextRequest(incoming.url, { method: 'POST', headers: incoming.headers, body: text });
-  if (req.nextUrl.pathname.endsWith('/callback/credentials')) {
+  if (incoming.nextUrl.pathname.endsWith('/callback/credentials')) {
     const db = await getDb();
-    if (await isClientThrottled(db, clientAddress(req.headers))) {
-      return tooMany(req, SIGN_IN_REFUSALS.client, 'Too many failed sign-ins from your network. Wait 15 minutes and try again.');
+    if (await isClientThrottled(db, clientAddress(incoming.headers))) {
+      return tooMany(incoming, SIGN_IN_REFUSALS.client, 'Too many failed sign-ins from your network. Wait 15 minutes and try again.');
     }
-    const email = emailOf(req.headers.get('content-type') ?? '', text);
+    const email = emailOf(incoming.headers.get('content-type') ?? '', text);
     if (email && (await isThrottled(db, email))) {
-      return tooMany(req, SIGN_IN_REFUSALS.address, 'Too many failed sign-ins for this e-mail address. Wait 15 minutes and try again.');
+      return tooMany(incoming, SIGN_IN_REFUSALS.address, 'Too many failed sign-ins for this e-mail address. Wait 15 minutes and try again.');
     }
   }
-  return handler(req, ctx);
+  // next-auth reads the body itself: hand it the bytes already read, and nothing more (a refusal above
+  // never builds this second request).
+  return handler(new NextRequest(incoming.url, { method: 'POST', headers: incoming.headers, body: text }), ctx);
 }
