@@ -5,7 +5,7 @@ import 'server-only';
 import { createReadStream, createWriteStream } from 'node:fs';
 import { pipeline } from 'node:stream/promises';
 import { stat } from 'node:fs/promises';
-import type { Readable } from 'node:stream';
+import { Readable } from 'node:stream';
 import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 
 export const FAKE_S3_PORT_DEFAULT = 4569;
@@ -74,6 +74,24 @@ export async function getObjectStream(key: string): Promise<{ body: Readable; by
     if ((err as { name?: string }).name === 'NoSuchKey') return null;
     throw err;
   }
+}
+
+/**
+ * A stored object as the answer to a member's request, streamed (never whole in memory), with its length;
+ * `filename` makes it a download. Not cached by the browser: a member removed from the series must not
+ * keep reading it from there. Null when there is no such object.
+ */
+export async function objectResponse(key: string, opts: { contentType?: string; filename?: string } = {}): Promise<Response | null> {
+  const obj = await getObjectStream(key);
+  if (!obj) return null;
+  return new Response(Readable.toWeb(obj.body) as ReadableStream, {
+    headers: {
+      'content-type': opts.contentType ?? obj.contentType,
+      'content-length': String(obj.bytes),
+      'cache-control': 'private, no-cache',
+      ...(opts.filename ? { 'content-disposition': `attachment; filename="${opts.filename}"` } : {}),
+    },
+  });
 }
 
 /** Copies an object to a file on disk, streamed; false when there is no such object. */

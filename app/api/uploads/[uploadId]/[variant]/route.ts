@@ -1,7 +1,7 @@
-// The image bytes, only to members of its series (never a public URL).
+// The image bytes, only to members of its series (never a public URL), streamed from storage.
 import { uploadKeys } from '@/db/queries/uploads';
 import { jsonError, withSeriesRole } from '@/lib/http/route';
-import { getObject } from '@/lib/storage/s3';
+import { objectResponse } from '@/lib/storage/s3';
 import { byUploadId } from '@/lib/http/series-of';
 
 type Params = { uploadId: string; variant: string };
@@ -18,12 +18,5 @@ export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, params 
           ? keys?.previewKey
           : undefined;
   if (!keys || !key) return jsonError(404, 'Not found: the variants are original, working and preview.');
-  const obj = await getObject(key);
-  if (!obj) return jsonError(404, 'Not found.');
-  return new Response(Buffer.from(obj.body), {
-    headers: {
-      'content-type': obj.contentType, // no-cache: a member removed from the series must not keep reading it from the browser's cache.
-      'cache-control': 'private, no-cache',
-    },
-  });
+  return (await objectResponse(key)) ?? jsonError(404, 'Not found.');
 });
