@@ -39,10 +39,17 @@ function JobLine({ job }: { job: PrintJobDto }) {
       </p>
     );
   }
+  if (!job.file) {
+    return (
+      <p className="text-sm text-graphite-faint" data-testid="print-job" data-state="replaced">
+        {name}, built by {job.by} {new Date(job.finishedAt ?? job.createdAt).toLocaleString()}: replaced by a newer file.
+      </p>
+    );
+  }
   return (
     <div className="space-y-1" data-testid="print-job" data-state="done">
       <a
-        href={job.file!}
+        href={job.file}
         download
         className="inline-flex items-center gap-1.5 rounded-md border border-paper-edge bg-white px-3 py-2 text-sm font-bold hover:bg-paper-deep"
       >

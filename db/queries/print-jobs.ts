@@ -54,7 +54,7 @@ function toDto(r: Row & { byName: string }, now = Date.now()): PrintJobDto {
     by: r.byName,
     createdAt: r.createdAt,
     finishedAt: r.finishedAt,
-    file: r.state === 'done' ? `/api/print-jobs/${r.id}/file` : null,
+    file: r.state === 'done' && r.objectKey ? `/api/print-jobs/${r.id}/file` : null,
   };
 }
 
@@ -165,6 +165,43 @@ export async function finishPrintJob(
     })
     .where('id', '=', id)
     .execute();
+}
+
+/** Finished files kept per volume, kind and proof-or-not: the newest, and the few before them to compare. */
+export const PRINT_FILES_KEPT = 3;
+
+/**
+ * The older finished files of a volume's kind (print or cover, proof or not) beyond the newest
+ * PRINT_FILES_KEPT: their rows stop naming them (the job stays listed, without a file) and their
+ * keys are returned for the caller to delete from storage once this has committed.
+ */
+export async function retireOldPrintFiles(db: Kysely<Database>, job: { volumeId: string; kind: PrintKind; proof: boolean }): Promise<string[]> {
+  return db.transaction().execute(async (trx) => {
+    await lockRow(trx, 'volumes', job.volumeId);
+    const done = await trx
+      .selectFrom('printJobs')
+      .select(['id', 'objectKey'])
+      .where('volumeId', '=', job.volumeId)
+      .where('kind', '=', job.kind)
+      .where('proof', '=', job.proof ? 1 : 0)
+      .where('state', '=', 'done')
+      .where('objectKey', 'is not', null)
+      .orderBy('finishedAt', 'desc')
+      .orderBy('id', 'desc')
+      .execute();
+    const old = done.slice(PRINT_FILES_KEPT);
+    if (old.length === 0) return [];
+    await trx
+      .updateTable('printJobs')
+      .set({ objectKey: null, stage: 'Replaced by a newer file' })
+      .where(
+        'id',
+        'in',
+        old.map((r) => r.id),
+      )
+      .execute();
+    return old.map((r) => r.objectKey!);
+  });
 }
 
 export async function failPrintJob(db: Kysely<Database>, id: string, message: string): Promise<void> {

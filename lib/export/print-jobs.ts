@@ -6,8 +6,18 @@ import 'server-only';
 import { MessageChannel } from 'node:worker_threads';
 import type { Kysely } from 'kysely';
 import type { Database } from '@/db/database';
-import { type PrintJobDto, type PrintKind, failPrintJob, findPrintJob, finishPrintJob, reportProgress, startPrintJob } from '@/db/queries/print-jobs';
+import {
+  type PrintJobDto,
+  type PrintKind,
+  failPrintJob,
+  findPrintJob,
+  finishPrintJob,
+  reportProgress,
+  retireOldPrintFiles,
+  startPrintJob,
+} from '@/db/queries/print-jobs';
 import { Refused } from '@/lib/refused';
+import { deleteObject } from '@/lib/storage/s3';
 import { runHeavyTransferring } from '@/lib/workers/pool';
 import { type PrintProgress, printBlockers } from './print-file';
 
@@ -59,6 +69,7 @@ async function build(db: Kysely<Database>, job: PrintJobDto) {
     clearInterval(beat);
     await writing;
     await finishPrintJob(db, job.id, result);
+    await retireOldFiles(db, job);
   } catch (err) {
     clearInterval(beat);
     await writing;
@@ -67,6 +78,16 @@ async function build(db: Kysely<Database>, job: PrintJobDto) {
     await failPrintJob(db, job.id, message).catch(() => undefined);
   } finally {
     channel.port1.close();
+  }
+}
+
+/** The files this job's newer one replaces leave storage (the rows first, so none names a missing file). */
+export async function retireOldFiles(db: Kysely<Database>, job: PrintJobDto): Promise<void> {
+  try {
+    for (const key of await retireOldPrintFiles(db, job)) await deleteObject(key);
+  } catch (err) {
+    // The new file stands; an old one left in storage is only space.
+    console.error('print job: could not remove older files', job.id, err);
   }
 }
 

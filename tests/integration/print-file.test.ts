@@ -22,6 +22,9 @@ import * as coverRoute from '@/app/api/volumes/[volumeId]/export/cover.pdf/route
 import * as printRoute from '@/app/api/volumes/[volumeId]/export/print.pdf/route';
 import { createGag } from '@/db/queries/gags';
 import { addEntry, createVolume } from '@/db/queries/volumes';
+import { findPrintJob, retireOldPrintFiles } from '@/db/queries/print-jobs';
+import { retireOldFiles } from '@/lib/export/print-jobs';
+import { getObjectStream, putObject } from '@/lib/storage/s3';
 import { callRoute, callRouteRaw } from '../support/call-route';
 import { form, greyTiff, jpegWithExif, lineArtTiff, rgbPng } from '../support/scans';
 import { useS3AndDb } from '../support/s3-fake';
@@ -253,5 +256,64 @@ describe('the print file', () => {
     const r = await callRoute(jobRoute.GET, { as: 'viewer', params: { jobId: id } });
     expect(r.body.job).toMatchObject({ state: 'failed', message: expect.stringMatching(/stopped before it finished/) });
     expect((await callRouteRaw(jobFileRoute.GET, { as: 'viewer', params: { jobId: id } })).status).toBe(409);
+  });
+
+  it('keeps the newest three files of a kind: an older one leaves storage, its job stays listed without a file, and its download says so (410)', async () => {
+    const db = env.db();
+    const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Many builds', deadline: '2027-03-13' });
+    const owner = await db
+      .selectFrom('memberships')
+      .select('userId')
+      .where('seriesId', '=', DEMO_SERIES_ID)
+      .where('role', '=', 'owner')
+      .executeTakeFirstOrThrow();
+    // Five print files built one after another, and one proof (a kind of its own, kept apart).
+    const jobs: { id: string; key: string; proof: boolean }[] = [];
+    for (let i = 0; i < 6; i++) {
+      const proof = i === 0;
+      const id = randomUUID();
+      const key = `print-jobs/${id}.pdf`;
+      await putObject(key, Buffer.from(`%PDF-1.7 build ${i}`), 'application/pdf');
+      await db
+        .insertInto('printJobs')
+        .values({
+          id,
+          volumeId: v.id,
+          kind: 'print',
+          proof: proof ? 1 : 0,
+          state: 'done',
+          stage: 'Ready',
+          objectKey: key,
+          pages: 1,
+          bytes: 20,
+          requestedBy: owner.userId,
+          createdAt: new Date(Date.UTC(2027, 0, 1, 10, i)).toISOString(),
+          finishedAt: new Date(Date.UTC(2027, 0, 1, 10, i, 30)).toISOString(),
+          heartbeatAt: Date.now(),
+        })
+        .execute();
+      jobs.push({ id, key, proof });
+    }
+    const newest = jobs.at(-1)!;
+    await retireOldFiles(db, { ...(await findPrintJob(db, newest.id))! });
+
+    const prints = jobs.filter((j) => !j.proof);
+    const [older, kept] = [prints.slice(0, 2), [...prints.slice(2), jobs[0]!]];
+    for (const j of older) {
+      expect(await getObjectStream(j.key), 'an older file leaves storage').toBeNull();
+      const r = await callRoute(jobRoute.GET, { as: 'viewer', params: { jobId: j.id } });
+      expect(r.body.job).toMatchObject({ state: 'done', file: null, stage: 'Replaced by a newer file' });
+      const file = await callRouteRaw(jobFileRoute.GET, { as: 'viewer', params: { jobId: j.id } });
+      expect(file.status).toBe(410);
+      expect(((await file.json()) as { error: string }).error).toMatch(/replaced by a newer one/);
+    }
+    for (const j of kept) {
+      expect(await getObjectStream(j.key), 'a kept file stays').not.toBeNull();
+      const file = await callRouteRaw(jobFileRoute.GET, { as: 'viewer', params: { jobId: j.id } });
+      expect(file.status).toBe(200);
+      expect(Buffer.from(await file.arrayBuffer()).toString()).toMatch(/^%PDF-1\.7 build/);
+    }
+    // Nothing more to retire: a second pass changes nothing.
+    expect(await retireOldPrintFiles(db, { volumeId: v.id, kind: 'print', proof: false })).toEqual([]);
   });
 });
