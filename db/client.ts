@@ -22,6 +22,7 @@ import type { Database } from './database';
 import { type DbKind, kindOf, markAdapter } from './dialect';
 import { startCheckpointer } from './checkpointer';
 import { migrationProvider } from './migrations';
+import { LRUCache } from 'lru-cache';
 
 export const DEFAULT_DATABASE_URL = 'file:./data/quadrille.sqlite';
 
@@ -74,7 +75,7 @@ class ImmediateSqliteDriver extends SqliteDriver {
  * the schema changes.
  */
 export function withStatementCache(db: SqliteDatabase.Database, size = 500): SqliteDialectConfig['database'] {
-  const cache = new Map<string, SqliteDatabase.Statement>();
+  const cache = new LRUCache<string, SqliteDatabase.Statement>({ max: size });
   return {
     close: () => {
       cache.clear();
@@ -82,13 +83,10 @@ export function withStatementCache(db: SqliteDatabase.Database, size = 500): Sql
     },
     prepare: (query: string) => {
       let stmt = cache.get(query);
-      if (stmt) {
-        cache.delete(query); // to the end: the most recently used
-      } else {
+      if (!stmt) {
         stmt = db.prepare(query);
-        if (cache.size >= size) cache.delete(cache.keys().next().value!);
+        cache.set(query, stmt);
       }
-      cache.set(query, stmt);
       return stmt;
     },
   };

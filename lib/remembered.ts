@@ -3,35 +3,26 @@
 // same key sharing one computation. Keys carry everything the value depends on,
 // so a remembered value is never stale, whichever instance computed it.
 
-type Entry = { value: unknown; bytes: number };
+import { LRUCache } from 'lru-cache';
 
 export function remembered<T>(opts: { maxBytes: number; sizeOf: (value: T) => number }) {
-  const kept = new Map<string, Entry>();
+  // Values are boxed: the cache holds objects, and a remembered null (nothing to show) is a value too.
+  const kept = new LRUCache<string, { value: T }>({
+    maxSize: opts.maxBytes,
+    sizeCalculation: (box) => Math.max(1, opts.sizeOf(box.value)),
+  });
   const running = new Map<string, Promise<T>>();
-  let total = 0;
   return {
     async get(key: string, compute: () => Promise<T>): Promise<T> {
       const hit = kept.get(key);
-      if (hit) {
-        kept.delete(key);
-        kept.set(key, hit); // most recently used last
-        return hit.value as T;
-      }
+      if (hit) return hit.value;
       const inFlight = running.get(key);
       if (inFlight) return inFlight;
       const p = compute().finally(() => running.delete(key));
       running.set(key, p);
       const value = await p;
-      const bytes = opts.sizeOf(value);
-      if (bytes <= opts.maxBytes) {
-        kept.set(key, { value, bytes });
-        total += bytes;
-        for (const [k, e] of kept) {
-          if (total <= opts.maxBytes) break;
-          kept.delete(k);
-          total -= e.bytes;
-        }
-      }
+      // One value larger than the whole budget is answered but not kept.
+      if (opts.sizeOf(value) <= opts.maxBytes) kept.set(key, { value });
       return value;
     },
   };

@@ -2,6 +2,7 @@
 // id), then checked against the sessions table joined to users, in one query per request: a session that was
 // ended (signed out, password changed, removed from the last series) or an account that was deleted is signed out.
 // A cookie from before sessions were recorded names no session and is signed out too.
+import { LRUCache } from 'lru-cache';
 import { type JWT, type JWTDecodeParams, decode, getToken } from 'next-auth/jwt';
 import { getDb } from '@/db/client';
 import { findSessionUser } from '@/db/queries/sessions';
@@ -33,17 +34,14 @@ function cookiesFromHeader(header: string | null): Record<string, string> {
  * the same answer. Only the decryption is kept — the session is still checked in the database on
  * every request — and an answer past its expiry is decoded again (and so refused). The newest 1,000.
  */
-const decoded = new Map<string, JWT>();
+const decoded = new LRUCache<string, JWT>({ max: 1000 });
 async function decodeKept(params: JWTDecodeParams): Promise<JWT | null> {
   const key = `${String(params.secret)}\u0000${params.salt ?? ''}\u0000${params.token ?? ''}`;
   const hit = decoded.get(key);
   if (hit && (typeof hit.exp !== 'number' || hit.exp * 1000 > Date.now())) return hit;
   decoded.delete(key);
   const token = await decode(params);
-  if (token && params.token) {
-    if (decoded.size >= 1000) decoded.delete(decoded.keys().next().value!);
-    decoded.set(key, token);
-  }
+  if (token && params.token) decoded.set(key, token);
   return token;
 }
 
