@@ -30,7 +30,7 @@ import { form, greyTiff, jpegWithExif, lineArtTiff, rgbPng } from '../support/sc
 import { useS3AndDb } from '../support/s3-fake';
 import { lum, renderPage, rgbAt } from '../support/pixels';
 import { pdfBoxesOf as boxes, pdfFontsOf as fonts, pdfImagesOf as images } from '../support/poppler';
-import { DEMO_SERIES_ID } from '../support/test-db';
+import { DEMO_SERIES_ID, PERSONAS } from '../support/test-db';
 
 const env = useS3AndDb();
 
@@ -235,12 +235,6 @@ describe('the print file', () => {
     const db = env.db();
     const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Lost job', deadline: '2027-03-13' });
     const id = randomUUID();
-    const owner = await db
-      .selectFrom('memberships')
-      .select('userId')
-      .where('seriesId', '=', DEMO_SERIES_ID)
-      .where('role', '=', 'owner')
-      .executeTakeFirstOrThrow();
     await db
       .insertInto('printJobs')
       .values({
@@ -248,7 +242,7 @@ describe('the print file', () => {
         volumeId: v.id,
         kind: 'print',
         state: 'running',
-        requestedBy: owner.userId,
+        requestedBy: PERSONAS.owner.id,
         createdAt: new Date().toISOString(),
         heartbeatAt: Date.now() - 61_000,
       })
@@ -261,12 +255,6 @@ describe('the print file', () => {
   it('keeps the newest three files of a kind: an older one leaves storage, its job stays listed without a file, and its download says so (410)', async () => {
     const db = env.db();
     const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Many builds', deadline: '2027-03-13' });
-    const owner = await db
-      .selectFrom('memberships')
-      .select('userId')
-      .where('seriesId', '=', DEMO_SERIES_ID)
-      .where('role', '=', 'owner')
-      .executeTakeFirstOrThrow();
     // Five print files built one after another, and one proof (a kind of its own, kept apart).
     const jobs: { id: string; key: string; proof: boolean }[] = [];
     for (let i = 0; i < 6; i++) {
@@ -286,7 +274,7 @@ describe('the print file', () => {
           objectKey: key,
           pages: 1,
           bytes: 20,
-          requestedBy: owner.userId,
+          requestedBy: PERSONAS.owner.id,
           createdAt: new Date(Date.UTC(2027, 0, 1, 10, i)).toISOString(),
           finishedAt: new Date(Date.UTC(2027, 0, 1, 10, i, 30)).toISOString(),
           heartbeatAt: Date.now(),
@@ -295,7 +283,7 @@ describe('the print file', () => {
       jobs.push({ id, key, proof });
     }
     const newest = jobs.at(-1)!;
-    await retireOldFiles(db, { ...(await findPrintJob(db, newest.id))! });
+    await retireOldFiles(db, (await findPrintJob(db, newest.id))!);
 
     const prints = jobs.filter((j) => !j.proof);
     const [older, kept] = [prints.slice(0, 2), [...prints.slice(2), jobs[0]!]];
