@@ -43,7 +43,7 @@ export default async function setup(project: TestProject) {
   const s3Port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   let output = '';
-  const server = spawn(process.execPath, [path.join(root, 'node_modules/next/dist/bin/next'), 'start', '-H', '127.0.0.1', '-p', String(port)], {
+  const server = spawn(process.execPath, [path.join(root, 'server/main.mjs'), '-H', '127.0.0.1', '-p', String(port)], {
     cwd: root,
     env: {
       ...env,

@@ -10,12 +10,14 @@ import { createDatabase, type PgCluster, startPgCluster } from './pg-cluster';
 
 export const ROOT = path.resolve(import.meta.dirname, '../..');
 const NEXT_BIN = path.join(ROOT, 'node_modules/next/dist/bin/next');
+/** The production server (`npm start`): Next.js's handler behind the front door's admission. */
+export const SERVER_MAIN = path.join(ROOT, 'server/main.mjs');
 const TSX_CLI = path.join(ROOT, 'node_modules/tsx/dist/cli.mjs');
 
 export async function waitForHealth(url: string, server: ChildProcess, log: () => string, ms = 60_000) {
   const deadline = Date.now() + ms;
   while (Date.now() < deadline) {
-    if (server.exitCode !== null || server.signalCode !== null) throw new Error(`next start exited early:\n${log()}`);
+    if (server.exitCode !== null || server.signalCode !== null) throw new Error(`the server exited early:\n${log()}`);
     try {
       const res = await fetch(`${url}/api/health`);
       if (res.ok) return;
@@ -24,7 +26,7 @@ export async function waitForHealth(url: string, server: ChildProcess, log: () =
     }
     await new Promise((r) => setTimeout(r, 300));
   }
-  throw new Error(`next start did not answer within ${ms / 1000} s:\n${log()}`);
+  throw new Error(`the server did not answer within ${ms / 1000} s:\n${log()}`);
 }
 
 /** Builds the production app into `distDir` unless a build is there already. */
@@ -82,8 +84,7 @@ export async function startInstance(opts: {
     process.execPath,
     [
       ...(process.env.CPU_PROF_DIR ? ['--cpu-prof', `--cpu-prof-dir=${process.env.CPU_PROF_DIR}`] : []),
-      NEXT_BIN,
-      'start',
+      SERVER_MAIN,
       '-H',
       '127.0.0.1',
       '-p',

@@ -1,9 +1,7 @@
 // One heavy request must not stall everyone (issue 13, found 6): while the thumbnail of a 50,000-stroke
-// pass, a findings run on it and 100 sign-ins are in flight on a real `next start`, `/api/health` still
-// answers with a p99 under 200 ms. Health is asked every 25 ms whatever the answers (an open loop, so a
-// stalled server shows as the long waits it causes rather than as fewer samples).
-// Pending: it waits in tests/soak/pending until the server holds this goal. Moved to tests/soak/servers/ it runs
-// in `npm test` (e2e) and the soak; until then `SOAK_PENDING=1 npx vitest run --project e2e tests/soak/pending`.
+// pass, a findings run on it and 100 sign-ins are in flight on the production server (`npm start`:
+// server/main.mjs), `/api/health` still answers with a p99 under 200 ms. Health is asked every 25 ms whatever
+// the answers (an open loop, so a stalled server shows as the long waits it causes rather than as fewer samples).
 import { execFileSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
@@ -11,11 +9,11 @@ import { createPass } from '@/db/queries/passes';
 import { applyBatch } from '@/db/queries/batches';
 import { DEMO_PASSWORD } from '@/db/seed/demo-data';
 import { DEFAULT_PAGE_SPEC } from '@/lib/print/geometry';
-import { benchStrokes } from '../../../bench/strokes-fixture';
-import type { Instance } from '../../../support/instances';
-import { type SqliteSite, csrfOf, mustSignIn, signIn, sqliteSite } from '../../../support/servers';
-import { SOAK, percentile, recordFigures, scale } from '../../../support/soak';
-import { startHealthProbe } from '../../../support/health-probe';
+import { benchStrokes } from '../../bench/strokes-fixture';
+import type { Instance } from '../../support/instances';
+import { type SqliteSite, csrfOf, mustSignIn, signIn, sqliteSite } from '../../support/servers';
+import { SOAK, percentile, recordFigures, scale } from '../../support/soak';
+import { startHealthProbe } from '../../support/health-probe';
 
 const STROKES = 50_000;
 // 20 points a stroke: the thumbnail (an SVG of ~100 MB) and the findings each cost seconds of CPU.

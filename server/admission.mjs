@@ -1,0 +1,133 @@
+// @ts-check
+// The front door's admission: requests that each cost the event loop a few ms inside Next.js (routing,
+// the route's module, next-auth's form handling) and arrive by the hundred — sign-in forms above all —
+// are let into Next.js a few at a time. The rest wait here, before Next.js has spent anything on them:
+// a parked request costs the HTTP parse it already had. So a burst of 100 sign-ins does not hold up the
+// health check or the board that arrived with it, which go straight in.
+// This is about this process's own event loop, so it is per process on purpose; who may sign in, and how
+// often, is still decided in the database (lib/auth/throttle.ts).
+
+/** Runs `fn` on the event loop's next turn, so requests that came in meanwhile go first. */
+const nextTurn = (fn) => setImmediate(fn);
+
+/**
+ * Waiting requests are kept per client (`keyOf`) and let in by turns, one client after another: a burst
+ * from one address waits behind itself, and someone else's sign-in gets the next free place. Past
+ * `waiting` in all, or `perClient` from one client, the answer is 503 at once.
+ * @param {{ concurrent: number, waiting: number, perClient?: number, retryAfterS?: number, what: string,
+ *   keyOf?: (req: import('node:http').IncomingMessage) => string }} opts
+ */
+export function admission(opts) {
+  let active = 0;
+  let waiting = 0;
+  /** Each client's waiting requests, in the order the clients' turns come (a Map keeps insertion order). */
+  /** @type {Map<string, Array<() => void>>} */
+  const queues = new Map();
+  const keyOf = opts.keyOf ?? ((req) => req.socket?.remoteAddress ?? 'unknown');
+
+  /** The next request to let in: the first client's oldest; that client, if it has more, goes to the back. */
+  const takeNext = () => {
+    const first = queues.entries().next();
+    if (first.done) return undefined;
+    const [key, queue] = first.value;
+    const start = queue.shift();
+    queues.delete(key);
+    if (queue.length > 0) queues.set(key, queue);
+    waiting--;
+    return start;
+  };
+
+  const pump = () => {
+    while (active < opts.concurrent && waiting > 0) {
+      const start = /** @type {() => void} */ (takeNext());
+      active++;
+      nextTurn(start);
+    }
+  };
+
+  return {
+    /**
+     * Hands `req` to `handle` now or when a place frees up; past `waiting` answers 503 with Retry-After.
+     * @param {import('node:http').IncomingMessage} req
+     * @param {import('node:http').ServerResponse} res
+     * @param {(req: import('node:http').IncomingMessage, res: import('node:http').ServerResponse) => unknown} handle
+     */
+    admit(req, res, handle) {
+      const key = keyOf(req);
+      const queue = queues.get(key) ?? [];
+      if (waiting >= opts.waiting || queue.length >= (opts.perClient ?? opts.waiting)) {
+        const body = JSON.stringify({ error: `Too many ${opts.what} at once on this server. Try again in a few seconds.` });
+        res.writeHead(503, {
+          'content-type': 'application/json',
+          'content-length': Buffer.byteLength(body),
+          'retry-after': String(opts.retryAfterS ?? 2),
+          'cache-control': 'no-store',
+        });
+        res.end(body);
+        return;
+      }
+      queues.set(key, queue);
+      waiting++;
+      queue.push(() => {
+        let released = false;
+        const release = () => {
+          if (released) return;
+          released = true;
+          active--;
+          pump();
+        };
+        // A client that gave up while waiting takes its place with it.
+        if (req.destroyed || res.destroyed || res.writableEnded) {
+          release();
+          return;
+        }
+        res.once('close', release);
+        try {
+          const handled = handle(req, res);
+          if (handled && typeof (/** @type {Promise<unknown>} */ (handled).catch) === 'function') {
+            /** @type {Promise<unknown>} */ (handled).catch(() => release());
+          }
+        } catch (err) {
+          release();
+          throw err;
+        }
+      });
+      pump();
+    },
+    get active() {
+      return active;
+    },
+    get pending() {
+      return waiting;
+    },
+  };
+}
+
+/**
+ * The requests that check or set a password: next-auth's forms (sign-in, sign-out), signing up, and
+ * changing one's password.
+ * @param {Pick<import('node:http').IncomingMessage, 'method' | 'url'>} req
+ */
+export function isCredentialForm(req) {
+  const path = (req.url ?? '').split('?')[0];
+  if (req.method === 'POST') return path.startsWith('/api/auth/') || path === '/api/users';
+  return req.method === 'PATCH' && path === '/api/me';
+}
+
+/**
+ * Whose turn a request waits in: the socket's address, or with `trustedHops` proxies in front (TRUST_PROXY,
+ * as lib/auth/client-address.ts reads it) the X-Forwarded-For entry the outermost of them wrote.
+ * @param {Pick<import('node:http').IncomingMessage, 'headers' | 'socket'>} req
+ * @param {number} trustedHops
+ */
+export function clientOf(req, trustedHops) {
+  if (trustedHops > 0) {
+    const raw = req.headers['x-forwarded-for'];
+    const entries = (Array.isArray(raw) ? raw.join(',') : (raw ?? ''))
+      .split(',')
+      .map((s) => s.trim())
+      .filter(Boolean);
+    if (entries.length > 0) return entries[Math.max(0, entries.length - trustedHops)] ?? 'unknown';
+  }
+  return req.socket?.remoteAddress ?? 'unknown';
+}
