@@ -1,6 +1,6 @@
 // `npm run soak`: the standing attack suites at full length (SOAK=1) — hostile bodies on SQLite and on
 // PostgreSQL, writers across two processes with kill -9, the body-size, sign-in, upload and heavy-request
-// attacks on `next start` — then one summary of what they measured, in the form README's "Reliability"
+// attacks on the production server (`server/main.mjs`) — then one summary of what they measured, in the form README's "Reliability"
 // section quotes. Extra arguments go to vitest (e.g. `npm run soak -- --project integration`).
 // E2E_REUSE_BUILD=1 serves an existing `.next-test` build instead of building it first.
 import { spawnSync } from 'node:child_process';

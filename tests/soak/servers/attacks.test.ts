@@ -1,4 +1,4 @@
-// The attacks of issue 13 that need a real `next start` (one process on a seeded SQLite file):
+// The attacks of issue 13 that need a real server (`server/main.mjs`) (one process on a seeded SQLite file):
 // - bodies over their route's limit (found 1; OWASP ASVS 4.0 V12.1.1 file size, V13.1 API): declared with a
 //   Content-Length or streamed chunked without one, each gets 413 within 1 s of the bytes crossing the limit
 //   while the server's memory grows by less than 50 MB (100 MB is streamed at most, so a server that buffered

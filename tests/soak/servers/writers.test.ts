@@ -1,4 +1,4 @@
-// Concurrent writers on one pass across two `next start` processes sharing one SQLite file, and one of
+// Concurrent writers on one pass across two server processes (`server/main.mjs`) sharing one SQLite file, and one of
 // them killed -9 while writing (issue 13, found 7; SQLite's documented locking and WAL behaviour:
 // write transactions begin IMMEDIATE, a busy database answers 503 with Retry-After, never 500).
 // Writers post batches to `POST /api/passes/:id/ops`, alternating between the processes, retry the same
