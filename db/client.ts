@@ -19,7 +19,7 @@ import {
 } from 'kysely';
 import pg from 'pg';
 import type { Database } from './database';
-import { type DbKind, kindOf, markAdapter } from './dialect';
+import { type DbKind, kindOf, markAdapter, markDataVersion } from './dialect';
 import { startCheckpointer } from './checkpointer';
 import { migrationProvider } from './migrations';
 import { LRUCache } from 'lru-cache';
@@ -92,15 +92,33 @@ export function withStatementCache(db: SqliteDatabase.Database, size = 500): Sql
   };
 }
 
+/**
+ * A reading that changes whenever anything is committed to the file: `total_changes()` counts every row this
+ * connection has inserted, updated or deleted (triggers' included), and `PRAGMA data_version` changes when
+ * any other connection — another process, a CLI — has committed (SQLite's documentation of both). The
+ * worker threads' connections are read-only. A count that also moves for a write later rolled back only
+ * costs a recomputation.
+ */
+export function sqliteDataVersion(sqlite: SqliteDatabase.Database): () => string {
+  const stmt = sqlite.prepare('select total_changes() as own, (select data_version from pragma_data_version()) as others').raw();
+  return () => {
+    const [own, others] = stmt.get() as [number, number];
+    return `${own}:${others}`;
+  };
+}
+
 class ImmediateSqliteDialect extends SqliteDialect {
-  constructor(private readonly sqliteConfig: ConstructorParameters<typeof SqliteDialect>[0]) {
+  constructor(
+    private readonly sqliteConfig: ConstructorParameters<typeof SqliteDialect>[0],
+    private readonly version: () => string,
+  ) {
     super(sqliteConfig);
   }
   override createDriver() {
     return new ImmediateSqliteDriver(this.sqliteConfig);
   }
   override createAdapter() {
-    return markAdapter(super.createAdapter(), 'sqlite');
+    return markDataVersion(markAdapter(super.createAdapter(), 'sqlite'), this.version);
   }
 }
 
@@ -124,9 +142,12 @@ export function createPgPool(url: string, max = Number(process.env.DATABASE_POOL
 
 /** `readOnly`: a connection for the worker threads' reads (SQLite read-only, a pool of two on PostgreSQL). */
 export function createDb(url = process.env.DATABASE_URL || DEFAULT_DATABASE_URL, opts: { readOnly?: boolean } = {}): Kysely<Database> {
-  const dialect = isPostgresUrl(url)
-    ? new MarkedPostgresDialect({ pool: createPgPool(url, opts.readOnly ? 2 : undefined) })
-    : new ImmediateSqliteDialect({ database: withStatementCache(openSqlite(sqlitePathFromUrl(url), opts)) });
+  if (isPostgresUrl(url)) {
+    const dialect = new MarkedPostgresDialect({ pool: createPgPool(url, opts.readOnly ? 2 : undefined) });
+    return new Kysely<Database>({ dialect, plugins: [new CamelCasePlugin()] });
+  }
+  const sqlite = openSqlite(sqlitePathFromUrl(url), opts);
+  const dialect = new ImmediateSqliteDialect({ database: withStatementCache(sqlite) }, sqliteDataVersion(sqlite));
   return new Kysely<Database>({ dialect, plugins: [new CamelCasePlugin()] });
 }
 

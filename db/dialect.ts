@@ -16,6 +16,23 @@ export function markAdapter<A extends object>(adapter: A, kind: DbKind): A {
   return adapter;
 }
 
+const VERSION = Symbol.for('quadrille.dataVersion');
+
+/**
+ * Gives an adapter a reading of its database's version: a text that changes whenever anything is
+ * committed to the database, by this connection or any other (db/unchanged.ts keeps answers by it).
+ */
+export function markDataVersion<A extends object>(adapter: A, read: () => string): A {
+  Object.defineProperty(adapter, VERSION, { value: read });
+  return adapter;
+}
+
+/** The database's version now, or null when the engine gives no such reading (PostgreSQL). */
+export function dataVersion(db: Kysely<any> | Transaction<any>): string | null {
+  const read = (db.getExecutor().adapter as unknown as { [VERSION]?: () => string })[VERSION];
+  return read ? read() : null;
+}
+
 export function kindOf(db: Kysely<any> | Transaction<any>): DbKind {
   const adapter = db.getExecutor().adapter as unknown as { [KIND]?: DbKind };
   return adapter[KIND] ?? (adapter instanceof PostgresAdapter ? 'postgres' : 'sqlite');

@@ -9,6 +9,7 @@ import { recordActivity } from './activity';
 import { artFacts } from './art-status';
 import { setGagStatus } from './gag-status';
 import { keptQuery } from '../kept-query';
+import { whileUnchanged } from '../unchanged';
 import { type StampMark, clearReadyStamps, readyStampStands } from './stamps';
 
 export type BeatDto = Pick<Selectable<BeatsTable>, 'kind' | 'note' | 'updatedAt'>;
@@ -131,6 +132,12 @@ export async function listGags(db: Db, seriesId: string): Promise<GagDto[]> {
   const [rows, beats] = [await boardGags(db, seriesId), await boardBeats(db, seriesId)];
   return toDtos(rows, beats);
 }
+
+/**
+ * The board's answer as JSON bytes, kept while the database is unchanged (db/unchanged.ts): readers of a
+ * quiet series get the bytes made for the first of them.
+ */
+export const boardJson = whileUnchanged(async (db, seriesId) => Buffer.from(JSON.stringify(await listGags(db, seriesId))), { max: 256 });
 
 export async function findGag(db: Db, gagId: string): Promise<GagDto | undefined> {
   const rows = await oneGag(db, gagId);

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { createGag, listGags } from '@/db/queries/gags';
+import { boardJson, createGag } from '@/db/queries/gags';
 import { withSeriesRole } from '@/lib/http/route';
 import { createGagSchema } from '@/lib/validation/gag';
 import { bySeriesId } from '@/lib/http/series-of';
@@ -8,7 +8,12 @@ import { seriesChanged } from '@/lib/live/events';
 type Params = { seriesId: string };
 const seriesOf = bySeriesId;
 
-export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => Response.json(await listGags(db, seriesId)));
+export const GET = withSeriesRole<Params>('read', seriesOf, async ({ db, seriesId }) => {
+  const body = await boardJson(db, seriesId);
+  return new Response(new Uint8Array(body.buffer, body.byteOffset, body.byteLength), {
+    headers: { 'content-type': 'application/json', 'content-length': String(body.byteLength) },
+  });
+});
 
 export const POST = withSeriesRole<Params, typeof createGagSchema>(
   'edit',
