@@ -15,6 +15,8 @@ import * as fitRoute from '@/app/api/final-pages/[finalPageId]/fit/route';
 import * as preflightRoute from '@/app/api/volumes/[volumeId]/preflight/route';
 import * as entryFinalRoute from '@/app/api/volumes/[volumeId]/entries/[entryId]/final-pages/route';
 import * as gagFinalRoute from '@/app/api/gags/[gagId]/final-pages/route';
+import * as passesRoute from '@/app/api/gags/[gagId]/passes/route';
+import * as opsRoute from '@/app/api/passes/[passId]/ops/route';
 import * as jobRoute from '@/app/api/print-jobs/[jobId]/route';
 import * as jobFileRoute from '@/app/api/print-jobs/[jobId]/file/route';
 import * as jobsRoute from '@/app/api/volumes/[volumeId]/print-jobs/route';
@@ -24,6 +26,9 @@ import { createGag } from '@/db/queries/gags';
 import { addEntry, createVolume } from '@/db/queries/volumes';
 import { findPrintJob, retireOldPrintFiles } from '@/db/queries/print-jobs';
 import { retireOldFiles } from '@/lib/export/print-jobs';
+import { PROOF_MARK } from '@/lib/export/print-pdf';
+import { panelRects } from '@/lib/print/geometry';
+import type { Stroke } from '@/lib/strokes/types';
 import { getObjectStream, putObject } from '@/lib/storage/s3';
 import { callRoute, callRouteRaw } from '../support/call-route';
 import { form, greyTiff, jpegWithExif, lineArtTiff, rgbPng } from '../support/scans';
@@ -74,6 +79,56 @@ async function matterScan(volumeId: string, entryId: string, scan: Buffer, name:
   const up = await callRoute(entryFinalRoute.POST, { method: 'POST', as: 'owner', params: { volumeId, entryId }, form: form(scan, name, type) });
   expect(up.status).toBe(201);
 }
+
+/** A gag in pencil only: passes 1 and 2, each with one thick horizontal stroke across panel 0 at `ys[i]` mm down the trim. */
+async function gagInPencil(title: string, ys: number[]) {
+  const gagId = randomUUID();
+  await createGag(env.db(), { id: gagId, seriesId: DEMO_SERIES_ID, title, premise: '', status: 'thumbnailing' });
+  const p0 = panelRects(SPEC)[0]!;
+  for (const [i, y] of ys.entries()) {
+    const pass = await callRoute(passesRoute.POST, { method: 'POST', as: 'cocreator', params: { gagId }, body: {} });
+    expect(pass.status).toBe(201);
+    expect(pass.body.number).toBe(i + 1);
+    const points = Array.from({ length: 21 }, (_, k) => [p0.x + 5 + (k * (p0.w - 10)) / 20, y, 1] as [number, number, number]);
+    const stroke: Stroke = { id: `pencil-${i + 1}`, panel: 0, tool: 'pen', grey: 100, size: 3, points };
+    const ops = await callRoute(opsRoute.POST, {
+      method: 'POST',
+      as: 'cocreator',
+      params: { passId: pass.body.id },
+      body: { batchId: `pencil-${gagId}-${i}`, ops: [{ op: 'add', stroke }] },
+    });
+    expect(ops.status).toBe(200);
+  }
+  return { gagId, across: p0.x + p0.w / 2 };
+}
+
+/** Each word `pdftotext -bbox` finds on a page, in pt from the page's top left (as pdftotext measures). */
+function wordsOn(file: string, page: number) {
+  const html = execFileSync('pdftotext', ['-bbox', '-f', String(page), '-l', String(page), file, '-'], { encoding: 'utf8' });
+  return [...html.matchAll(/<word xMin="([\d.]+)" yMin="([\d.]+)" xMax="([\d.]+)" yMax="([\d.]+)">([^<]*)<\/word>/g)].map((m) => ({
+    x0: Number(m[1]),
+    top: Number(m[2]),
+    x1: Number(m[3]),
+    bottom: Number(m[4]),
+    text: m[5]!,
+  }));
+}
+
+/** Whether a word's box, top-down in pt, overlaps a PDF box ([x0, y0, x1, y1], bottom-up) on a page `pageH` pt high. */
+const overlaps = (w: ReturnType<typeof wordsOn>[number], box: number[], pageH: number) =>
+  w.x0 < box[2]! && w.x1 > box[0]! && w.top < pageH - box[1]! && w.bottom > pageH - box[3]!;
+
+const jobCount = async (volumeId: string) =>
+  Number(
+    (
+      await env
+        .db()
+        .selectFrom('printJobs')
+        .select((eb) => eb.fn.countAll().as('n'))
+        .where('volumeId', '=', volumeId)
+        .executeTakeFirstOrThrow()
+    ).n,
+  );
 
 async function untilDone(jobId: string) {
   for (let i = 0; i < 600; i++) {
@@ -229,6 +284,66 @@ describe('the print file', () => {
     const imgs = images(file);
     expect(imgs).toHaveLength(2);
     for (const i of imgs) expect(i).toMatchObject({ color: 'gray', bpc: 8, xppi: 300, yppi: 300 });
+  }, 120_000);
+
+  it('?proof=1 on print.pdf: the owner gets a proof with the newest pass standing in, marked in a slug outside the bleed; nobody else, and nothing else', async () => {
+    const db = env.db();
+    const v = await createVolume(db, {
+      seriesId: DEMO_SERIES_ID,
+      title: 'Pencil proof',
+      deadline: '2027-03-13',
+      spec: { ...SPEC, binding: 'saddle' },
+    });
+    const inked = await gagWithScan(await greyTiff({ ...SCAN, ppi: 300, tone: 220 }), 'inked.tif', 'image/tiff');
+    await fitToBleed(inked.finalPageId);
+    // Pass 1 draws its bar 40 mm down the trim, pass 2 (the newest) 70 mm down.
+    const pencil = await gagInPencil('Pencil only', [40, 70]);
+    for (const g of [inked, pencil]) await addEntry(db, v.id, DEMO_SERIES_ID, { gagId: g.gagId });
+    for (let i = 0; i < 2; i++) await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'blank' }); // 4 pages: no blanks added
+    const url = (q: string) => `/api/volumes/${v.id}/export/print.pdf${q}`;
+
+    // Without a proof: 409 naming the page in pencil; a co-creator asking for a proof: 403; a proof other than 0 or 1: 422.
+    const refused = await callRoute(printRoute.GET, { url: url(''), as: 'owner', params: { volumeId: v.id } });
+    expect(refused.status).toBe(409);
+    expect(refused.body.missing).toEqual([{ number: 2, label: 'Pencil only' }]);
+    expect(refused.body.error).toBe('Page 2 has no final page yet. Upload it, or ask for a proof.');
+    const notOwner = await callRoute(printRoute.GET, { url: url('?proof=1'), as: 'cocreator', params: { volumeId: v.id } });
+    expect(notOwner.status).toBe(403);
+    expect(notOwner.body.error).toMatch(/Only the owner asks for a proof/);
+    for (const q of ['?proof=2', '?proof=yes', '?proof=']) {
+      const bad = await callRoute(printRoute.GET, { url: url(q), as: 'owner', params: { volumeId: v.id } });
+      expect(bad.status, q).toBe(422);
+      expect(bad.body.error).toMatch(/"proof" is 1/);
+    }
+    expect(await jobCount(v.id), 'refusals write no job').toBe(0);
+
+    const res = await callRouteRaw(printRoute.GET, { url: url('?proof=1'), as: 'owner', params: { volumeId: v.id } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toBe('application/pdf');
+    const file = await save(res, 'pencil-proof.pdf');
+    const jobs = await db.selectFrom('printJobs').select(['kind', 'proof', 'state', 'pages']).where('volumeId', '=', v.id).execute();
+    expect(jobs).toEqual([{ kind: 'print', proof: 1, state: 'done', pages: 4 }]);
+
+    const b = boxes(file);
+    expect(b.pages).toBe(4);
+    // The scan is the only image (page 1); the pencil page is drawn from its pass, not from a picture.
+    expect(images(file).map((i) => i.page)).toEqual([1]);
+    const slugs = [`${PROOF_MARK} · page 1 · inked.tif · final`, `${PROOF_MARK} · page 2 · Pencil only · NOT FINAL: pass 2 stands in`];
+    for (const [i, slug] of slugs.entries()) {
+      const pageH = b.media[i]![3]!;
+      const words = wordsOn(file, i + 1);
+      // The page's only text is its slug, and every word of it lies outside the BleedBox, inside the MediaBox.
+      expect(words.map((w) => w.text).join(' ')).toBe(slug);
+      for (const w of words) {
+        expect(overlaps(w, b.bleed[i]!, pageH), `"${w.text}" on page ${i + 1}`).toBe(false);
+        expect(overlaps(w, b.media[i]!, pageH)).toBe(true);
+      }
+    }
+    // Pass 2's bar is drawn where it lies, pass 1's is not: rendered at 2 px a mm, the trim's corner is the slug and the bleed in.
+    const img = await renderPage(file, 2, 50.8, path.join(dir, 'pencil-2'));
+    const at = (mmAcross: number, mmDown: number) => rgbAt(img, Math.round((8 + BLEED + mmAcross) * 2), Math.round((8 + BLEED + mmDown) * 2));
+    expect(lum(at(pencil.across, 70))).toBeLessThan(80);
+    expect(lum(at(pencil.across, 40))).toBeGreaterThan(240);
   }, 120_000);
 
   it('a job whose server stopped reads as failed on every instance', async () => {
