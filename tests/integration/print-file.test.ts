@@ -346,6 +346,62 @@ describe('the print file', () => {
     expect(lum(at(pencil.across, 40))).toBeGreaterThan(240);
   }, 120_000);
 
+  it('a perfect-bound book of an odd page count gets one blank before the back matter, and a cover proof on ?proof=1', async () => {
+    const db = env.db();
+    const v = await createVolume(db, {
+      seriesId: DEMO_SERIES_ID,
+      title: 'Odd perfect',
+      deadline: '2027-03-13',
+      spec: { ...SPEC, binding: 'perfect', caliperUm: 120 },
+    });
+    const grey = (tone: number) => greyTiff({ ...SCAN, ppi: 300, tone });
+    const cover = await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'cover' });
+    const gags = [await gagWithScan(await grey(200), 'a.tif', 'image/tiff'), await gagWithScan(await grey(210), 'b.tif', 'image/tiff')];
+    for (const g of gags) {
+      await fitToBleed(g.finalPageId);
+      await addEntry(db, v.id, DEMO_SERIES_ID, { gagId: g.gagId });
+    }
+    const afterword = await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'afterword' });
+    const back = await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'back-cover' });
+    await matterScan(v.id, cover.id, await grey(120), 'cover.tif', 'image/tiff');
+    await matterScan(v.id, afterword.id, await grey(230), 'afterword.tif', 'image/tiff');
+
+    // The back cover has no scan yet: the cover file waits, except as the owner's proof.
+    const url = (q: string) => `/api/volumes/${v.id}/export/cover.pdf${q}`;
+    const refused = await callRoute(coverRoute.GET, { url: url(''), as: 'owner', params: { volumeId: v.id } });
+    expect(refused.status).toBe(409);
+    expect(refused.body.missing).toEqual([{ number: 5, label: 'Back cover' }]);
+    expect((await callRoute(coverRoute.GET, { url: url('?proof=1'), as: 'cocreator', params: { volumeId: v.id } })).status).toBe(403);
+    expect((await callRoute(coverRoute.GET, { url: url('?proof=2'), as: 'owner', params: { volumeId: v.id } })).status).toBe(422);
+    expect(await jobCount(v.id)).toBe(0);
+    const proofRes = await callRouteRaw(coverRoute.GET, { url: url('?proof=1'), as: 'owner', params: { volumeId: v.id } });
+    expect(proofRes.status).toBe(200);
+    const proof = await save(proofRes, 'odd-cover-proof.pdf');
+    const pb = boxes(proof);
+    expect(pb.pages).toBe(1);
+    // The spine counts the added blank: 6 pages ÷ 2 × 0.12 mm = 0.36 mm.
+    const words = wordsOn(proof, 1);
+    expect(words.map((w) => w.text).join(' ')).toBe(`${PROOF_MARK} · cover · spine 0.36 mm`);
+    for (const w of words) expect(overlaps(w, pb.bleed[0]!, pb.media[0]![3]!), w.text).toBe(false);
+    expect(images(proof)).toHaveLength(1); // the front only: nothing stands in for a cover's scan
+
+    await matterScan(v.id, back.id, await grey(160), 'back.tif', 'image/tiff');
+    const res = await callRouteRaw(printRoute.GET, { as: 'editor', params: { volumeId: v.id } });
+    expect(res.status).toBe(200);
+    const file = await save(res, 'odd-perfect.pdf');
+    // pdfinfo: 5 pages in the running order, 6 in the file — perfect binding takes an even count (one blank, not three as for saddle stitch).
+    const b = boxes(file);
+    expect(b.pages).toBe(6);
+    expect(b.trim).toHaveLength(6);
+    const w = (SCAN.w / IN) * PT;
+    const h = (SCAN.h / IN) * PT;
+    for (let i = 0; i < 6; i++) near(b.bleed[i]!, [0, 0, w, h]);
+    // The blank goes after the last gag, before the afterword and back cover: page 4 has no image.
+    expect(images(file).map((i) => i.page)).toEqual([1, 2, 3, 5, 6]);
+    const pre = await callRoute(preflightRoute.GET, { as: 'viewer', params: { volumeId: v.id } });
+    expect(pre.body.book).toMatchObject({ pages: 5, binding: 'perfect', blanksToAdd: 1, blanksAfter: 3 });
+  }, 120_000);
+
   it('a job whose server stopped reads as failed on every instance', async () => {
     const db = env.db();
     const v = await createVolume(db, { seriesId: DEMO_SERIES_ID, title: 'Lost job', deadline: '2027-03-13' });
