@@ -153,6 +153,11 @@ describe('FlatplanView', () => {
       blanksNeeded: 1,
       printerSpreads: [],
     });
+    // The page-count warning names the blank to add and where, and that printers differ.
+    const warning = within(screen.getByTestId('flatplan-warnings')).getByRole('listitem');
+    expect(warning.textContent).toMatch(
+      /^3 pages cannot be saddle stitched \(it takes a multiple of 4\): add 1 blank page, best after page 3 .*Printers differ on the counts they take: confirm with your printer\.$/,
+    );
     fireEvent.click(screen.getByRole('button', { name: 'Printer spreads' }));
     expect(screen.getByTestId('printer-spreads-note').textContent).toMatch(/multiple of 4: add 1 blank page first/);
   });
