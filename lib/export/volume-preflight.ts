@@ -13,6 +13,8 @@ import { PRINTER_FIRST } from '@/lib/print/preflight-rules';
 import { ensureAnalyses } from './final-analyses';
 
 export type VolumePreflight = { note: string; pages: PagePreflight[]; book: BookPreflight };
+/** One page's checks, with the same caution as the volume's: its figures give way to the printer's. */
+export type FinalPagePreflight = PagePreflight & { note: string };
 
 type Row = NonNullable<Awaited<ReturnType<typeof finalPageRow>>>;
 const scanOf = (r: Row) => ({ id: r.id, width: r.width, height: r.height, colour: r.colour, fit: fitOf(r) });
@@ -50,7 +52,7 @@ export async function volumePreflight(db: Kysely<Database>, volumeId: string): P
 }
 
 /** One final page's checks on the page it belongs to (its gag's page spec, or its matter page's volume). */
-export async function finalPagePreflight(db: Kysely<Database>, finalPageId: string, seriesId: string): Promise<PagePreflight | null> {
+export async function finalPagePreflight(db: Kysely<Database>, finalPageId: string, seriesId: string): Promise<FinalPagePreflight | null> {
   const row = await finalPageRow(db, finalPageId);
   if (!row) return null;
   const placed = await db
@@ -62,7 +64,7 @@ export async function finalPagePreflight(db: Kysely<Database>, finalPageId: stri
   const spec = row.gagId ? await pageSpecForGag(db, seriesId, row.gagId) : volume!.spec;
   const number = placed ? (await listEntries(db, placed.volumeId)).findIndex((e) => e.id === placed.id) + 1 : 0;
   const analyses = await ensureAnalyses(db, [row]);
-  return pagePreflight(spec, {
+  const page = pagePreflight(spec, {
     number,
     entryId: placed?.id ?? '',
     ...(row.gagId ? { gagId: row.gagId } : {}),
@@ -70,4 +72,5 @@ export async function finalPagePreflight(db: Kysely<Database>, finalPageId: stri
     final: scanOf(row),
     analysis: analyses.get(row.id) ?? null,
   });
+  return { ...page, note: PRINTER_FIRST };
 }

@@ -5,6 +5,7 @@
 import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import * as fitRoute from '@/app/api/final-pages/[finalPageId]/fit/route';
+import * as pagePreflightRoute from '@/app/api/final-pages/[finalPageId]/preflight/route';
 import * as gagFinalRoute from '@/app/api/gags/[gagId]/final-pages/route';
 import * as preflightRoute from '@/app/api/volumes/[volumeId]/preflight/route';
 import { createGag } from '@/db/queries/gags';
@@ -121,5 +122,16 @@ describe('GET /api/volumes/:volumeId/preflight', () => {
     expect((fit.body.preflight.checks as Check[]).filter((c) => c.rule === 'bleed')).toEqual([expect.objectContaining({ level: 'ok' })]);
     // 1772 px (150 mm at 300 ppi) now spread over 156 mm: 288.5 ppi, under greyscale's 300.
     expect(fit.body.preflight.ppi.x).toBeCloseTo(1772 / (156 / 25.4), 6);
+    // With its figures, the caution the volume's answer carries: the printer's own specification takes precedence.
+    expect(fit.body.preflight.note).toBe("The printer's own specification takes precedence.");
+    expect(fit.body.preflight.note).toBe(note);
+
+    // The page's own preflight reads the same, caution included, for any member.
+    const one = await callRoute(pagePreflightRoute.GET, { as: 'viewer', params: { finalPageId: trimOnly.finalPageId } });
+    expect(one.status).toBe(200);
+    expect(one.body).toEqual(fit.body.preflight);
+    expect(one.body.note).toBe(note);
+    const soft1 = await callRoute(pagePreflightRoute.GET, { as: 'editor', params: { finalPageId: soft.finalPageId } });
+    expect(soft1.body).toMatchObject({ number: 4, finalPageId: soft.finalPageId, level: 'warn', note });
   });
 });
