@@ -1,6 +1,7 @@
 // What the PDFs share: the document with its embedded font, the content-stream
 // writer, the graphics states, and the strokes' outlines as path operators. Every
 // PDF draws the same outlines as the editor and the thumbnails (lib/strokes/outline).
+import { randomInt } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import { constants as zlibConstants, deflateSync } from 'node:zlib';
@@ -16,6 +17,18 @@ const FONT_FILE = 'atkinson-hyperlegible-latin-400-normal.woff';
 let fontBytes: Buffer | undefined;
 /** The font as plain TrueType, unwrapped once per process (see woff.ts). */
 const fontFile = () => (fontBytes ??= sfntFromWoff(fs.readFileSync(path.join(process.cwd(), 'fonts', FONT_FILE))));
+let fontName: string | undefined;
+
+/**
+ * The embedded subset's name: six capital letters, '+', the font's PostScript name, as ISO 32000-1 §9.6.4 asks of a
+ * font subset (pdf-lib subsets but names it without the tag, so preflight tools and `pdffonts` took it for the whole
+ * font). Random per document, so subsets from different files never share a name in an imposition that merges them.
+ */
+function subsetName(): string {
+  fontName ??= fontkit.create(fontFile()).postscriptName || 'Font';
+  const tag = Array.from({ length: 6 }, () => String.fromCharCode(65 + randomInt(26))).join('');
+  return `${tag}+${fontName}`;
+}
 
 export async function newDoc(title: string): Promise<{ doc: PDFDocument; font: PDFFont }>;
 /** `font: false`: a document with no text (the print file), so with no font embedded. */
@@ -25,7 +38,7 @@ export async function newDoc(title: string, opts: { font?: boolean } = {}): Prom
   let font: PDFFont | null = null;
   if (opts.font !== false) {
     doc.registerFontkit(fontkit);
-    font = await doc.embedFont(fontFile(), { subset: true });
+    font = await doc.embedFont(fontFile(), { subset: true, customName: subsetName() });
   }
   doc.setTitle(title);
   doc.setSubject(PRINTER_NOTE);

@@ -10,6 +10,8 @@ import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import fontkit from '@pdf-lib/fontkit';
+import { PDFDict, PDFDocument, PDFName, PDFRawStream, decodePDFRawStream } from 'pdf-lib';
 import { describe, expect, it } from 'vitest';
 import * as fitRoute from '@/app/api/final-pages/[finalPageId]/fit/route';
 import * as preflightRoute from '@/app/api/volumes/[volumeId]/preflight/route';
@@ -27,6 +29,7 @@ import { addEntry, createVolume } from '@/db/queries/volumes';
 import { findPrintJob, retireOldPrintFiles } from '@/db/queries/print-jobs';
 import { retireOldFiles } from '@/lib/export/print-jobs';
 import { PROOF_MARK } from '@/lib/export/print-pdf';
+import { sfntFromWoff } from '@/lib/export/woff';
 import { panelRects } from '@/lib/print/geometry';
 import type { Stroke } from '@/lib/strokes/types';
 import { getObjectStream, putObject } from '@/lib/storage/s3';
@@ -117,6 +120,18 @@ function wordsOn(file: string, page: number) {
 /** Whether a word's box, top-down in pt, overlaps a PDF box ([x0, y0, x1, y1], bottom-up) on a page `pageH` pt high. */
 const overlaps = (w: ReturnType<typeof wordsOn>[number], box: number[], pageH: number) =>
   w.x0 < box[2]! && w.x1 > box[0]! && w.top < pageH - box[1]! && w.bottom > pageH - box[3]!;
+
+/** The glyphs in each font program a PDF embeds (FontFile2), as fontkit counts them. */
+async function embeddedGlyphCounts(file: string): Promise<number[]> {
+  const doc = await PDFDocument.load(fs.readFileSync(file));
+  return doc.context
+    .enumerateIndirectObjects()
+    .flatMap(([, o]) => {
+      const program = o instanceof PDFDict ? o.lookup(PDFName.of('FontFile2')) : undefined;
+      return program instanceof PDFRawStream ? [program] : [];
+    })
+    .map((s) => (fontkit.create(Buffer.from(decodePDFRawStream(s).decode())) as { numGlyphs: number }).numGlyphs);
+}
 
 const jobCount = async (volumeId: string) =>
   Number(
@@ -339,6 +354,16 @@ describe('the print file', () => {
         expect(overlaps(w, b.media[i]!, pageH)).toBe(true);
       }
     }
+    // The slug's font is embedded as a subset (ISO 32000-1 §9.6.4): named with a six-letter tag and '+', which is what
+    // pdffonts reads as "sub", and holding only the glyphs the slugs use, not the whole font.
+    const slugFonts = fonts(file);
+    expect(slugFonts).toHaveLength(1);
+    expect(slugFonts[0]).toMatch(/^[A-Z]{6}\+AtkinsonHyperlegible-Regular\s+CID TrueType\s+Identity-H\s+yes\s+yes\s+yes\s/);
+    const whole = (fontkit.create(sfntFromWoff(fs.readFileSync('fonts/atkinson-hyperlegible-latin-400-normal.woff'))) as { numGlyphs: number })
+      .numGlyphs;
+    const [glyphs] = await embeddedGlyphCounts(file);
+    expect(whole).toBeGreaterThan(200);
+    expect(glyphs).toBeLessThan(60); // the slugs' distinct characters (and .notdef)
     // Pass 2's bar is drawn where it lies, pass 1's is not: rendered at 2 px a mm, the trim's corner is the slug and the bleed in.
     const img = await renderPage(file, 2, 50.8, path.join(dir, 'pencil-2'));
     const at = (mmAcross: number, mmDown: number) => rgbAt(img, Math.round((8 + BLEED + mmAcross) * 2), Math.round((8 + BLEED + mmDown) * 2));
