@@ -1,7 +1,8 @@
 // One heavy request must not stall everyone (issue 13, found 6): while the thumbnail of a 50,000-stroke
 // pass, a findings run on it and 100 sign-ins are in flight on the production server (`npm start`:
-// server/main.mjs), `/api/health` still answers with a p99 under 200 ms. Health is asked every 25 ms whatever
-// the answers (an open loop, so a stalled server shows as the long waits it causes rather than as fewer samples).
+// server/main.mjs), `/api/health` still answers with a p99 under 200 ms, as seen from a process of its own
+// (tests/support/health-probe.ts). Health is asked every 25 ms whatever the answers (an open loop, so a
+// stalled server shows as the long waits it causes rather than as fewer samples).
 import { execFileSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeDb, getDb } from '@/db/client';
@@ -151,6 +152,11 @@ describe('heavy requests beside light ones', () => {
       'sign-ins answered 5xx or dropped',
     ).toEqual([]);
     expect(samples.length).toBeGreaterThan(10);
-    expect(p99, `health p99 (ms) over ${samples.length} samples`).toBeLessThan(P99_MS);
+    expect(probed.length).toBeGreaterThan(10);
+    // The goal is read from the probe, a process of its own: the test's process also receives the 50,000-stroke
+    // thumbnail (tens of MB) and the sign-ins' answers, and its own asks wait for that work too. Its figure is
+    // held to a looser bound, so a stall the probe missed still fails.
+    expect(percentile(probed, 0.99), `health p99 (ms) seen by the probe over ${probed.length} samples`).toBeLessThan(P99_MS);
+    expect(p99, `health p99 (ms) seen by the test's own process over ${samples.length} samples`).toBeLessThan(2 * P99_MS);
   }, 300_000);
 });
