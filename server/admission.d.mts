@@ -13,6 +13,8 @@ export function admission(opts: {
   retryAfterS?: number;
   what: string;
   keyOf?: (req: IncomingMessage) => string;
+  /** How long a let-in request's body may take to arrive before 408 (10 s). */
+  bodyMs?: number;
 }): Admission;
 
 export function clientOf(req: Pick<IncomingMessage, 'headers' | 'socket'>, trustedHops: number): string;

@@ -14,8 +14,10 @@ const nextTurn = (fn) => setImmediate(fn);
  * Waiting requests are kept per client (`keyOf`) and let in by turns, one client after another: a burst
  * from one address waits behind itself, and someone else's sign-in gets the next free place. Past
  * `waiting` in all, or `perClient` from one client, the answer is 503 at once.
+ * A request is let in on a turn of the event loop of its own; its place is given back when its answer
+ * has ended and the handler settled. A handler that fails gets a 500 (or its connection closed).
  * @param {{ concurrent: number, waiting: number, perClient?: number, retryAfterS?: number, what: string,
- *   keyOf?: (req: import('node:http').IncomingMessage) => string }} opts
+ *   keyOf?: (req: import('node:http').IncomingMessage) => string, bodyMs?: number }} opts
  */
 export function admission(opts) {
   let active = 0;
@@ -24,6 +26,7 @@ export function admission(opts) {
   /** @type {Map<string, Array<() => void>>} */
   const queues = new Map();
   const keyOf = opts.keyOf ?? ((req) => req.socket?.remoteAddress ?? 'unknown');
+  const bodyMs = opts.bodyMs ?? 10_000;
 
   /** The next request to let in: the first client's oldest; that client, if it has more, goes to the back. */
   const takeNext = () => {
@@ -45,6 +48,28 @@ export function admission(opts) {
     }
   };
 
+  /**
+   * @param {import('node:http').IncomingMessage} req
+   * @param {import('node:http').ServerResponse} res
+   * @param {number} status
+   * @param {string} message
+   * @param {Record<string, string>} [headers]
+   */
+  const answer = (req, res, status, message, headers = {}) => {
+    if (res.headersSent || res.destroyed) {
+      req.destroy();
+      return;
+    }
+    const body = JSON.stringify({ error: message });
+    res.writeHead(status, {
+      'content-type': 'application/json',
+      'content-length': String(Buffer.byteLength(body)),
+      'cache-control': 'no-store',
+      ...headers,
+    });
+    res.end(body);
+  };
+
   return {
     /**
      * Hands `req` to `handle` now or when a place frees up; past `waiting` answers 503 with Retry-After.
@@ -56,42 +81,58 @@ export function admission(opts) {
       const key = keyOf(req);
       const queue = queues.get(key) ?? [];
       if (waiting >= opts.waiting || queue.length >= (opts.perClient ?? opts.waiting)) {
-        const body = JSON.stringify({ error: `Too many ${opts.what} at once on this server. Try again in a few seconds.` });
-        res.writeHead(503, {
-          'content-type': 'application/json',
-          'content-length': Buffer.byteLength(body),
+        answer(req, res, 503, `Too many ${opts.what} at once on this server. Try again in a few seconds.`, {
           'retry-after': String(opts.retryAfterS ?? 2),
-          'cache-control': 'no-store',
         });
-        res.end(body);
         return;
       }
-      queues.set(key, queue);
-      waiting++;
-      queue.push(() => {
-        let released = false;
-        const release = () => {
-          if (released) return;
-          released = true;
+      const start = () => {
+        res.off('close', leftWhileWaiting);
+        // A place is given back once the answer has ended (or its client has gone) and the handler has
+        // settled: a client that hangs up does not free a place Next.js is still working in.
+        let pending = 2;
+        const done = () => {
+          if (--pending > 0) return;
+          clearTimeout(deadline);
           active--;
           pump();
         };
-        // A client that gave up while waiting takes its place with it.
-        if (req.destroyed || res.destroyed || res.writableEnded) {
-          release();
+        if (res.destroyed || res.writableEnded) pending--;
+        else res.once('close', done);
+        // A form is a few hundred bytes, all there on arrival; one whose body is withheld loses its place.
+        const deadline = req.complete
+          ? undefined
+          : setTimeout(() => {
+              if (req.complete) return;
+              answer(req, res, 408, `The ${opts.what} form did not arrive in time.`, { connection: 'close' });
+              // The rest of the body is not waited for: the connection goes, and the handler reading it settles.
+              if (res.writableFinished) req.destroy();
+              else res.once('finish', () => req.destroy());
+            }, bodyMs);
+        if (pending === 1 && (res.destroyed || res.writableEnded)) {
+          done();
           return;
         }
-        res.once('close', release);
-        try {
-          const handled = handle(req, res);
-          if (handled && typeof (/** @type {Promise<unknown>} */ (handled).catch) === 'function') {
-            /** @type {Promise<unknown>} */ (handled).catch(() => release());
-          }
-        } catch (err) {
-          release();
-          throw err;
-        }
-      });
+        Promise.resolve()
+          .then(() => handle(req, res))
+          .catch((err) => {
+            console.error(`[admission] ${req.method} ${req.url}:`, err);
+            answer(req, res, 500, 'The server could not handle this request.');
+          })
+          .finally(done);
+      };
+      // A client that gives up while waiting takes its turn with it.
+      const leftWhileWaiting = () => {
+        const at = queue.indexOf(start);
+        if (at < 0) return;
+        queue.splice(at, 1);
+        waiting--;
+        if (queue.length === 0 && queues.get(key) === queue) queues.delete(key);
+      };
+      res.once('close', leftWhileWaiting);
+      queues.set(key, queue);
+      waiting++;
+      queue.push(start);
       pump();
     },
     get active() {
@@ -109,7 +150,13 @@ export function admission(opts) {
  * @param {Pick<import('node:http').IncomingMessage, 'method' | 'url'>} req
  */
 export function isCredentialForm(req) {
-  const path = (req.url ?? '').split('?')[0];
+  let path = (req.url ?? '').split('?')[0] ?? '';
+  // Next.js also matches a route by its decoded path: /api/%75sers is /api/users.
+  try {
+    path = decodeURIComponent(path);
+  } catch {
+    /* not decodable: matched as sent */
+  }
   if (req.method === 'POST') return path.startsWith('/api/auth/') || path === '/api/users';
   return req.method === 'PATCH' && path === '/api/me';
 }

@@ -177,7 +177,7 @@ async function latency(a: Instance, b: Instance, c: Api, cookieHeader: string) {
   let poller: Promise<unknown> = Promise.resolve();
   try {
     await firstOf(stream.helloSeq, stream.done, 10_000, 'hello on the stream from instance B');
-    // Fresh `next start` processes load each route module on first use; keep that out of the figures.
+    // Fresh server processes load each route module on first use; keep that out of the figures.
     for (let i = 0; i < 10; i++) {
       const seq = await c.post(a.url, passId, `warm-${i}`, `warm-${i}`, i);
       await stream.arrival(seq);

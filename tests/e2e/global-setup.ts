@@ -1,5 +1,5 @@
 // Builds the production app into .next-test, seeds a temporary SQLite database,
-// and serves it with `next start` on 127.0.0.1 for the browser tests.
+// and serves it with `server/main.mjs` (as `npm start` does) on 127.0.0.1 for the browser tests.
 import { execFileSync, spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';

@@ -1,4 +1,4 @@
-// Several app instances as a deployment runs them: `next start` processes of one
+// Several app instances as a deployment runs them: server processes (`server/main.mjs`) of one
 // production build, sharing nothing but a PostgreSQL database and an S3 fake.
 // Used by the multi-instance browser test and by the bench.
 import { type ChildProcess, execFileSync, spawn } from 'node:child_process';

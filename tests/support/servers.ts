@@ -1,4 +1,4 @@
-// Real `next start` processes of the e2e build (`.next-test`, made by tests/e2e/global-setup.ts) on one
+// Real server processes (`server/main.mjs`) of the e2e build (`.next-test`, made by tests/e2e/global-setup.ts) on one
 // SQLite file, for the attack suites that need processes: kill -9 while writing, two processes writing
 // one file, a server's memory while a body streams in, and answer times while heavy work runs.
 import fs from 'node:fs';
@@ -17,7 +17,7 @@ export type SqliteSite = {
   file: string;
   databaseUrl: string;
   instances: Instance[];
-  /** Starts one more `next start` on the file (on `port` to come back where a killed one was). */
+  /** Starts one more server on the file (on `port` to come back where a killed one was). */
   start: (name: string, port?: number) => Promise<Instance>;
   stop: () => Promise<void>;
 };
@@ -64,7 +64,7 @@ export async function waitGone(inst: Instance, ms = 10_000): Promise<void> {
   while (Date.now() < deadline && groupPids(inst.server.pid!).length) await new Promise((r) => setTimeout(r, 50));
 }
 
-/** The processes of a process group (an instance is `next start` and what it starts, in its own group). */
+/** The processes of a process group (an instance is the server and what it starts, in its own group). */
 export function groupPids(pgid: number): number[] {
   const out: number[] = [];
   for (const d of fs.readdirSync('/proc')) {

@@ -18,7 +18,10 @@ afterEach(async () => {
 });
 
 /** A server whose handler holds every request until the test answers it. */
-async function serve(opts: { concurrent: number; waiting: number; perClient?: number }) {
+async function serve(
+  opts: { concurrent: number; waiting: number; perClient?: number; bodyMs?: number },
+  fail?: (req: http.IncomingMessage) => unknown,
+) {
   // Clients told apart by a header here (the server keys them by address).
   const gate = admission({ ...opts, what: 'sign-ins', keyOf: (req) => String(req.headers['x-client'] ?? 'one') });
   const held: Held[] = [];
@@ -26,6 +29,7 @@ async function serve(opts: { concurrent: number; waiting: number; perClient?: nu
   server = http.createServer((req, res) => {
     const handle = () => {
       entered++;
+      if (fail) return fail(req);
       if (req.url === '/api/health') res.end('ok');
       else held.push({ res, path: req.url ?? '' });
     };
@@ -135,6 +139,69 @@ describe('admission', () => {
     }
     expect((await Promise.all([...kept, other])).map((r) => r.status)).toEqual([200, 200, 200, 200]);
   });
+
+  it('forgets a waiting request whose client left, so the waiting room does not fill with the gone', async () => {
+    const { gate, held, base } = await serve({ concurrent: 1, waiting: 2 });
+    const inside = fetch(`${base}/api/users`, { method: 'POST', body: '{}' });
+    await until(() => held.length === 1);
+    const leaving = Array.from({ length: 2 }, () => new AbortController());
+    const gone = leaving.map((c) => fetch(`${base}/api/users`, { method: 'POST', body: '{}', signal: c.signal }).catch(() => 'gone'));
+    await until(() => gate.pending === 2);
+    for (const c of leaving) c.abort();
+    expect(await Promise.all(gone)).toEqual(['gone', 'gone']);
+    await until(() => gate.pending === 0);
+    // Room again: a new one waits rather than being refused.
+    const next = fetch(`${base}/api/users`, { method: 'POST', body: '{}' });
+    await until(() => gate.pending === 1);
+    held.shift()!.res.end();
+    await until(() => held.length === 1);
+    held.shift()!.res.end();
+    expect([(await inside).status, (await next).status]).toEqual([200, 200]);
+  });
+
+  it('keeps a place until the handler has settled, even when the client hung up first', async () => {
+    let finish = () => {};
+    const { gate, base } = await serve({ concurrent: 1, waiting: 10 }, () => new Promise<void>((r) => (finish = r)));
+    const c = new AbortController();
+    const a = fetch(`${base}/api/users`, { method: 'POST', body: '{}', signal: c.signal }).catch(() => 'gone');
+    await until(() => gate.active === 1);
+    c.abort();
+    expect(await a).toBe('gone');
+    await new Promise((r) => setTimeout(r, 50));
+    expect(gate.active).toBe(1);
+    finish();
+    await until(() => gate.active === 0);
+  });
+
+  it('answers 500 when the handler fails, and gives the place back', async () => {
+    const { gate, base } = await serve({ concurrent: 1, waiting: 10 }, () => Promise.reject(new Error('route broke')));
+    const res = await fetch(`${base}/api/users`, { method: 'POST', body: '{}' });
+    expect(res.status).toBe(500);
+    await until(() => gate.active === 0);
+  });
+
+  it('answers 408 to a form whose body does not arrive, and gives the place back', async () => {
+    // The handler reads the body as Next.js would, and settles when the request closes.
+    const { gate, base } = await serve(
+      { concurrent: 1, waiting: 10, bodyMs: 200 },
+      (req) =>
+        new Promise<void>((resolve) => {
+          req.on('data', () => {});
+          req.on('close', resolve);
+        }),
+    );
+    const url = new URL(base);
+    const status = await new Promise<number>((resolve, reject) => {
+      const req = http.request(
+        { host: url.hostname, port: url.port, path: '/api/users', method: 'POST', headers: { 'content-length': '100' } },
+        (res) => resolve(res.statusCode ?? 0),
+      );
+      req.on('error', reject);
+      req.write('{"email":'); // and nothing more
+    });
+    expect(status).toBe(408);
+    await until(() => gate.active === 0);
+  });
 });
 
 describe('clientOf', () => {
@@ -159,6 +226,9 @@ describe('isCredentialForm', () => {
     ['GET', '/api/auth/session', false],
     ['GET', '/api/me', false],
     ['POST', '/api/usersx', false],
+    ['POST', '/api/%75sers', true],
+    ['PATCH', '/api/m%65', true],
+    ['POST', '/api/%zz', false],
     ['POST', '/api/series/s1/gags', false],
   ])('%s %s → %s', (method, url, expected) => {
     expect(isCredentialForm({ method, url })).toBe(expected);
