@@ -7,6 +7,8 @@
 // This is about this process's own event loop, so it is per process on purpose; who may sign in, and how
 // often, is still decided in the database (lib/auth/throttle.ts).
 
+import { clientKey, trustedEntry } from '../lib/auth/client-key.mjs';
+
 /** Runs `fn` on the event loop's next turn, so requests that came in meanwhile go first. */
 const nextTurn = (fn) => setImmediate(fn);
 
@@ -162,19 +164,14 @@ export function isCredentialForm(req) {
 }
 
 /**
- * Whose turn a request waits in: the socket's address, or with `trustedHops` proxies in front (TRUST_PROXY,
- * as lib/auth/client-address.ts reads it) the X-Forwarded-For entry the outermost of them wrote.
+ * Whose turn a request waits in: the socket's address, or with `trustedHops` proxies in front (TRUST_PROXY)
+ * the X-Forwarded-For entry the outermost of them wrote — keyed as the per-client sign-in limit keys it
+ * (lib/auth/client-key.mjs: IPv6 by its /64).
  * @param {Pick<import('node:http').IncomingMessage, 'headers' | 'socket'>} req
  * @param {number} trustedHops
  */
 export function clientOf(req, trustedHops) {
-  if (trustedHops > 0) {
-    const raw = req.headers['x-forwarded-for'];
-    const entries = (Array.isArray(raw) ? raw.join(',') : (raw ?? ''))
-      .split(',')
-      .map((s) => s.trim())
-      .filter(Boolean);
-    if (entries.length > 0) return entries[Math.max(0, entries.length - trustedHops)] ?? 'unknown';
-  }
-  return req.socket?.remoteAddress ?? 'unknown';
+  const raw = req.headers['x-forwarded-for'];
+  const entry = trustedHops > 0 ? trustedEntry(Array.isArray(raw) ? raw.join(',') : raw, trustedHops) : null;
+  return clientKey(entry ?? req.socket?.remoteAddress ?? 'unknown');
 }

@@ -6,6 +6,7 @@
 import http from 'node:http';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
+import { trustedProxyHops } from '../lib/auth/client-key.mjs';
 import { admission, clientOf, isCredentialForm } from './admission.mjs';
 
 const { values } = parseArgs({
@@ -29,14 +30,7 @@ const app = next({ dev: false, dir, hostname, port });
 await app.prepare();
 const handle = app.getRequestHandler();
 
-/** TRUST_PROXY as lib/auth/client-address.ts reads it: how many proxies in front append to X-Forwarded-For. */
-function trustedProxyHops() {
-  const raw = (process.env.TRUST_PROXY ?? '').trim().toLowerCase();
-  if (raw === 'true') return 1;
-  const n = Number(raw);
-  return Number.isInteger(n) && n > 0 && n < 32 ? n : 0;
-}
-const hops = trustedProxyHops();
+const hops = trustedProxyHops(process.env);
 // A few at a time: a sign-in spends most of its time waiting for the hashing worker, not the event loop.
 const passwords = admission({
   concurrent: 4,

@@ -210,6 +210,11 @@ describe('clientOf', () => {
   it('is the socket address when no proxy is trusted, whatever the client wrote', () => {
     expect(clientOf(req('6.6.6.6'), 0)).toBe('127.0.0.1');
   });
+  it('keys as the sign-in limit does: an IPv6 client by its /64, an IPv4-mapped one as IPv4', () => {
+    expect(clientOf(req(undefined, '2001:db8:1:2:aaaa::1'), 0)).toBe(clientOf(req(undefined, '2001:db8:1:2:bbbb::9'), 0));
+    expect(clientOf(req(undefined, '2001:db8:1:2:aaaa::1'), 0)).toBe('2001:db8:1:2::/64');
+    expect(clientOf(req(undefined, '::ffff:127.0.0.1'), 0)).toBe('127.0.0.1');
+  });
   it('is the entry the outermost trusted proxy wrote', () => {
     expect(clientOf(req('6.6.6.6, 203.0.113.7'), 1)).toBe('203.0.113.7');
     expect(clientOf(req('6.6.6.6, 203.0.113.7, 10.0.0.2'), 2)).toBe('203.0.113.7');
