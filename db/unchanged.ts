@@ -15,18 +15,27 @@ import { dataVersion } from './dialect';
  * computes again rather than trusting it.
  */
 export function whileUnchanged<T>(compute: (db: Kysely<Database>, key: string) => Promise<T>, opts: { max: number }) {
-  const kept = new WeakMap<Kysely<Database>, LRUCache<string, { version: string; value: T }>>();
+  type Kept = { answers: LRUCache<string, { version: string; value: T }>; running: Map<string, Promise<T>> };
+  const kept = new WeakMap<Kysely<Database>, Kept>();
   return async (db: Kysely<Database>, key: string): Promise<T> => {
     const version = dataVersion(db);
     if (version === null) return compute(db, key);
-    let answers = kept.get(db);
-    if (!answers) {
-      answers = new LRUCache({ max: opts.max });
-      kept.set(db, answers);
+    let mine = kept.get(db);
+    if (!mine) {
+      mine = { answers: new LRUCache({ max: opts.max }), running: new Map() };
+      kept.set(db, mine);
     }
+    const { answers, running } = mine;
     const hit = answers.get(key);
     if (hit && hit.version === version) return hit.value;
-    const value = await compute(db, key);
+    // Asks that arrive together, at one version, share one computation.
+    const id = `${version} ${key}`;
+    const already = running.get(id);
+    if (already) return already;
+    const computing = compute(db, key).finally(() => running.delete(id));
+    running.set(id, computing);
+    const value = await computing;
+    // (One computed at an older version may replace a newer one: that costs the next ask a computation, no more.)
     answers.set(key, { version, value });
     return value;
   };

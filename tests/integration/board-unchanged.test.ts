@@ -81,5 +81,8 @@ describe('the board kept while the database is unchanged', () => {
     expect(computed).toBe(sqlite ? 3 : 4);
     await kept(db, 'a');
     expect(computed).toBe(sqlite ? 3 : 5);
+    // Asks that arrive together share one computation.
+    await Promise.all([kept(db, 'c'), kept(db, 'c'), kept(db, 'c')]);
+    expect(computed).toBe(sqlite ? 4 : 8);
   });
 });
