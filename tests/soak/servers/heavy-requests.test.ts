@@ -1,7 +1,8 @@
 // One heavy request must not stall everyone (issue 13, found 6): while the thumbnail of a 50,000-stroke
 // pass, a findings run on it and 100 sign-ins are in flight on the production server (`npm start`:
 // server/main.mjs), `/api/health` still answers with a p99 under 200 ms, as seen from a process of its own
-// (tests/support/health-probe.ts). Health is asked every 25 ms whatever the answers (an open loop, so a
+// (tests/support/health-probe.ts) — the goal, held by the soak over the whole heavy work; `npm test`'s short
+// run (its first 10 s) holds it to twice that. Health is asked every 25 ms whatever the answers (an open loop, so a
 // stalled server shows as the long waits it causes rather than as fewer samples).
 import { execFileSync } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -74,7 +75,7 @@ const shown = (r: { status: number; ms: number }) =>
   r.status === -1 ? `still running after ${Math.round(r.ms)} ms` : `${r.status} in ${Math.round(r.ms)} ms`;
 
 describe('heavy requests beside light ones', () => {
-  it(`/api/health p99 < ${P99_MS} ms while a ${STROKES.toLocaleString('en')}-stroke thumbnail, its findings and ${SIGN_INS} sign-ins run`, async () => {
+  it(`/api/health p99 < ${SOAK ? P99_MS : 2 * P99_MS} ms while a ${STROKES.toLocaleString('en')}-stroke thumbnail, its findings and ${SIGN_INS} sign-ins run`, async () => {
     for (let i = 0; i < 5; i++) await fetch(`${server.url}/api/health`);
     // The floor beside the figure: ${SIGN_INS} health checks at once, on connections of their own, with nothing
     // heavy running — what the arrival of a burst of that size costs this server and machine by itself.
@@ -156,7 +157,11 @@ describe('heavy requests beside light ones', () => {
     // The goal is read from the probe, a process of its own: the test's process also receives the 50,000-stroke
     // thumbnail (tens of MB) and the sign-ins' answers, and its own asks wait for that work too. Its figure is
     // held to a looser bound, so a stall the probe missed still fails.
-    expect(percentile(probed, 0.99), `health p99 (ms) seen by the probe over ${probed.length} samples`).toBeLessThan(P99_MS);
-    expect(p99, `health p99 (ms) seen by the test's own process over ${samples.length} samples`).toBeLessThan(2 * P99_MS);
+    // The 200 ms goal is the soak's (`npm run soak`, the whole heavy work): speed goals stay out of `npm test`,
+    // where other work on a 2-core machine moves a latency figure. The short run there guards against the stalls
+    // this check was written for (p99 of 0.5–15 s before the front door and the worker pools) at twice the goal.
+    const bound = SOAK ? P99_MS : 2 * P99_MS;
+    expect(percentile(probed, 0.99), `health p99 (ms) seen by the probe over ${probed.length} samples`).toBeLessThan(bound);
+    expect(p99, `health p99 (ms) seen by the test's own process over ${samples.length} samples`).toBeLessThan(2 * bound);
   }, 300_000);
 });
