@@ -90,38 +90,37 @@ export function admission(opts) {
       }
       const start = () => {
         res.off('close', leftWhileWaiting);
-        // A place is given back once the answer has ended (or its client has gone) and the handler has
-        // settled: a client that hangs up does not free a place Next.js is still working in.
-        let pending = 2;
-        const done = () => {
-          if (--pending > 0) return;
-          clearTimeout(deadline);
+        const release = () => {
           active--;
           pump();
         };
-        if (res.destroyed || res.writableEnded) pending--;
-        else res.once('close', done);
+        if (res.destroyed || res.writableEnded) {
+          release();
+          return;
+        }
         // A form is a few hundred bytes, all there on arrival; one whose body is withheld loses its place.
         const deadline = req.complete
           ? undefined
           : setTimeout(() => {
               if (req.complete) return;
-              answer(req, res, 408, `The ${opts.what} form did not arrive in time.`, { connection: 'close' });
+              answer(req, res, 408, 'The form did not arrive in time.', { connection: 'close' });
               // The rest of the body is not waited for: the connection goes, and the handler reading it settles.
               if (res.writableFinished) req.destroy();
               else res.once('finish', () => req.destroy());
             }, bodyMs);
-        if (pending === 1 && (res.destroyed || res.writableEnded)) {
-          done();
-          return;
-        }
-        Promise.resolve()
+        const closed = new Promise((resolve) => res.once('close', resolve));
+        const handled = Promise.resolve()
           .then(() => handle(req, res))
           .catch((err) => {
             console.error(`[admission] ${req.method} ${req.url}:`, err);
             answer(req, res, 500, 'The server could not handle this request.');
-          })
-          .finally(done);
+          });
+        // The place is given back once the answer has ended (or its client has gone) and the handler has
+        // settled: a client that hangs up does not free a place Next.js is still working in.
+        void Promise.all([closed, handled]).then(() => {
+          clearTimeout(deadline);
+          release();
+        });
       };
       // A client that gives up while waiting takes its turn with it.
       const leftWhileWaiting = () => {

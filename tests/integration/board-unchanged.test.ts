@@ -1,6 +1,8 @@
 // The board's answer kept while the database is unchanged (db/unchanged.ts, db/queries/gags.ts boardJson):
 // whatever commits — this connection, another process's connection to the same file, a transaction rolled
 // back — the next read equals a fresh listGags. On PostgreSQL nothing is kept (no version reading).
+// What the version rests on is SQLite's documentation: `PRAGMA data_version` changes when another connection
+// has committed; `total_changes()` counts the rows this connection has inserted, updated or deleted.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Kysely } from 'kysely';
 import { createDb } from '@/db/client';

@@ -78,6 +78,10 @@ async function fitToBleed(finalPageId: string, scale = 1) {
   expect(r.status).toBe(200);
 }
 
+/** A perfect-bound volume of the test's trim, 0.12 mm paper. */
+const perfectBound = (db: ReturnType<typeof env.db>, title: string) =>
+  createVolume(db, { seriesId: DEMO_SERIES_ID, title, deadline: '2027-03-13', spec: { ...SPEC, binding: 'perfect', caliperUm: 120 } });
+
 async function matterScan(volumeId: string, entryId: string, scan: Buffer, name: string, type: string) {
   const up = await callRoute(entryFinalRoute.POST, { method: 'POST', as: 'owner', params: { volumeId, entryId }, form: form(scan, name, type) });
   expect(up.status).toBe(201);
@@ -272,12 +276,7 @@ describe('the print file', () => {
 
   it('the cover of a perfect-bound book: back, spine and front at the computed width, with the bleed', async () => {
     const db = env.db();
-    const v = await createVolume(db, {
-      seriesId: DEMO_SERIES_ID,
-      title: 'Kettle Crab cover',
-      deadline: '2027-03-13',
-      spec: { ...SPEC, binding: 'perfect', caliperUm: 120 },
-    });
+    const v = await perfectBound(db, 'Kettle Crab cover');
     const cover = await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'cover' });
     for (let i = 0; i < 4; i++) await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'blank' });
     const back = await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'back-cover' });
@@ -373,12 +372,7 @@ describe('the print file', () => {
 
   it('a perfect-bound book of an odd page count gets one blank before the back matter, and a cover proof on ?proof=1', async () => {
     const db = env.db();
-    const v = await createVolume(db, {
-      seriesId: DEMO_SERIES_ID,
-      title: 'Odd perfect',
-      deadline: '2027-03-13',
-      spec: { ...SPEC, binding: 'perfect', caliperUm: 120 },
-    });
+    const v = await perfectBound(db, 'Odd perfect');
     const grey = (tone: number) => greyTiff({ ...SCAN, ppi: 300, tone });
     const cover = await addEntry(db, v.id, DEMO_SERIES_ID, { kind: 'cover' });
     const gags = [await gagWithScan(await grey(200), 'a.tif', 'image/tiff'), await gagWithScan(await grey(210), 'b.tif', 'image/tiff')];

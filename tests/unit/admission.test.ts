@@ -210,6 +210,7 @@ describe('clientOf', () => {
   it('is the socket address when no proxy is trusted, whatever the client wrote', () => {
     expect(clientOf(req('6.6.6.6'), 0)).toBe('127.0.0.1');
   });
+  // The /64 as one subscriber's usual allocation: RFC 6177; IPv4-mapped addresses: RFC 4291 §2.5.5.2.
   it('keys as the sign-in limit does: an IPv6 client by its /64, an IPv4-mapped one as IPv4', () => {
     expect(clientOf(req(undefined, '2001:db8:1:2:aaaa::1'), 0)).toBe(clientOf(req(undefined, '2001:db8:1:2:bbbb::9'), 0));
     expect(clientOf(req(undefined, '2001:db8:1:2:aaaa::1'), 0)).toBe('2001:db8:1:2::/64');

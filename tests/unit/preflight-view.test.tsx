@@ -8,22 +8,14 @@ import { SWRConfig } from 'swr';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { PreflightView } from '@/components/volume/preflight-view';
 import type { EntryDto } from '@/db/queries/volumes';
+import { entry as placedEntry } from '../support/entries';
 import type { VolumePreflight } from '@/lib/export/volume-preflight';
 import { bookPreflight } from '@/lib/print/preflight';
 import { PRINTER_FIRST, SOURCES, resolutionCheck } from '@/lib/print/preflight-rules';
 
 afterEach(cleanup);
 
-const entry = (id: string, kind: EntryDto['kind'], title: string | null = null): EntryDto => ({
-  id,
-  kind,
-  gagId: kind === 'gag' ? `g-${id}` : null,
-  position: id,
-  title,
-  status: kind === 'gag' ? 'inked' : null,
-  latestPass: null,
-  done: false,
-});
+const entry = (id: string, kind: EntryDto['kind'], title: string | null = null) => placedEntry(id, kind, title, 'inked');
 const ENTRIES = [
   entry('e1', 'cover'),
   entry('e2', 'gag', 'Kettle Crab'),

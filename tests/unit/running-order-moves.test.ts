@@ -3,18 +3,8 @@
 // Title page", never sounding like it replaces a page).
 import { describe, expect, it } from 'vitest';
 import { END_SLOT, landing, sayPlace, sayWhat } from '@/components/volume/running-order-moves';
-import type { EntryDto } from '@/db/queries/volumes';
+import { entry } from '../support/entries';
 
-const entry = (id: string, kind: EntryDto['kind'], title: string | null = null): EntryDto => ({
-  id,
-  kind,
-  gagId: kind === 'gag' ? `g-${id}` : null,
-  position: id,
-  title,
-  status: kind === 'gag' ? 'placed' : null,
-  latestPass: null,
-  done: false,
-});
 const ORDER = [entry('c', 'cover'), entry('t', 'title'), entry('a', 'gag', 'Lunch'), entry('b', 'gag', 'Periscope'), entry('w', 'afterword')];
 
 describe('a gag from the unplaced list', () => {
